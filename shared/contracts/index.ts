@@ -1,0 +1,6 @@
+export * from './errors';
+export * from './roles';
+export * from './health';
+export * from './me';
+export * from './projects';
+export * from './members';

@@ -1,0 +1,49 @@
+import { z } from 'zod';
+import { roleSchema } from './roles';
+
+export const memberSchema = z.object({
+  userId: z.string(),
+  email: z.string(),
+  name: z.string(),
+  role: roleSchema,
+  joinedAt: z.string(),
+});
+export type Member = z.infer<typeof memberSchema>;
+
+export const invitationSchema = z.object({
+  id: z.string(),
+  email: z.string(),
+  role: roleSchema,
+  status: z.enum(['pending', 'accepted', 'expired']),
+  createdAt: z.string(),
+  expiresAt: z.string(),
+});
+export type Invitation = z.infer<typeof invitationSchema>;
+
+export const memberListSchema = z.object({
+  members: z.array(memberSchema),
+  invitations: z.array(invitationSchema),
+});
+export type MemberList = z.infer<typeof memberListSchema>;
+
+/** Body of POST /api/organisation/members (and POST /api/organisation/invitations): invite a person by e-mail. */
+export const createInvitationSchema = z.object({
+  email: z.email('must be an e-mail address').trim().toLowerCase(),
+  name: z.string().trim().min(1, 'is required').max(120).optional(),
+  role: roleSchema,
+});
+export type CreateInvitationInput = z.infer<typeof createInvitationSchema>;
+
+/** Body of POST /api/invitations/:token/accept (public: the token is the proof). */
+export const acceptInvitationSchema = z.object({
+  name: z.string().trim().min(1, 'is required').max(120),
+  password: z.string().min(10, 'must be at least 10 characters').max(200),
+});
+export type AcceptInvitationInput = z.infer<typeof acceptInvitationSchema>;
+
+export const invitationPreviewSchema = z.object({
+  email: z.string(),
+  role: roleSchema,
+  organisationName: z.string(),
+});
+export type InvitationPreview = z.infer<typeof invitationPreviewSchema>;

@@ -1,0 +1,12 @@
+import { z } from 'zod';
+
+export const roles = ['admin', 'engineer', 'owner', 'fabricator', 'viewer'] as const;
+export const roleSchema = z.enum(roles);
+export type Role = z.infer<typeof roleSchema>;
+
+/** Roles allowed to create, change or delete projects. */
+export const projectEditorRoles: readonly Role[] = ['admin', 'engineer'];
+
+export function canEditProjects(role: Role): boolean {
+  return projectEditorRoles.includes(role);
+}

@@ -1,0 +1,28 @@
+/**
+ * Shared engine types. SI units throughout; the unit is in every name that carries one.
+ * Every damping ratio is referred to the frequency of the oscillator it belongs to.
+ */
+
+/** One structural mode, modal mass for the mode shape scaled to 1 at the damper's position. */
+export interface StructureMode {
+  modalMassKg: number;
+  frequencyHz: number;
+  dampingRatio: number;
+}
+
+/** One tuned mass damper: moving mass, its own frequency, damping ratio referred to its own frequency. */
+export interface TmdParameters {
+  massKg: number;
+  frequencyHz: number;
+  dampingRatio: number;
+}
+
+export type TuningMethod = 'den-hartog' | 'warburton-random' | 'ioi-ikeda' | 'hinf' | 'h2';
+
+export interface TuningResult {
+  frequencyRatio: number;
+  tmdFrequencyHz: number;
+  tmdDampingRatio: number;
+  /** max over frequency of |X_s| K / F for the tuned system (continuous peak search). */
+  peakAmplification: number;
+}
