@@ -4,3 +4,4 @@ export * from './health';
 export * from './me';
 export * from './projects';
 export * from './members';
+export * from './app-config';

@@ -47,3 +47,23 @@ export const invitationPreviewSchema = z.object({
   organisationName: z.string(),
 });
 export type InvitationPreview = z.infer<typeof invitationPreviewSchema>;
+
+/** PATCH /api/organisation/members/:userId (admin only). */
+export const updateMemberRoleSchema = z.object({ role: roleSchema });
+export type UpdateMemberRoleInput = z.infer<typeof updateMemberRoleSchema>;
+
+export const userIdParamsSchema = z.object({ userId: z.uuid('must be a user id (UUID)') });
+export const invitationTokenParamsSchema = z.object({ token: z.string().min(20, 'must be an invitation token') });
+
+/** The people working on one project (GET/POST /api/projects/:id/members). Their role is their organisation role. */
+export const projectMemberSchema = z.object({
+  userId: z.string(),
+  email: z.string(),
+  name: z.string(),
+  role: roleSchema,
+  addedAt: z.string(),
+});
+export type ProjectMember = z.infer<typeof projectMemberSchema>;
+export const projectMemberListSchema = z.object({ members: z.array(projectMemberSchema) });
+export const addProjectMemberSchema = z.object({ userId: z.uuid('must be a user id (UUID)') });
+export type AddProjectMemberInput = z.infer<typeof addProjectMemberSchema>;
