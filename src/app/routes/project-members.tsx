@@ -1,0 +1,25 @@
+import { useQuery } from '@tanstack/react-query';
+import { Loading } from '../../components/ui/loading';
+import { QueryError } from '../../components/ui/query-error';
+import { organisationMembersQueryOptions } from '../../features/members/api/members';
+import { projectMembersQueryOptions } from '../../features/projects/api/projects';
+import { ProjectMembersPanel, type MemberCandidate } from '../../features/projects/components/project-members-panel';
+import { useProjectContext } from './project-layout';
+
+/** The project's people; editors may add people of the organisation (the organisation list composes in here). */
+export function ProjectMembersRoute() {
+  const { project, canEdit } = useProjectContext();
+  const members = useQuery(projectMembersQueryOptions(project.id));
+  const organisation = useQuery({ ...organisationMembersQueryOptions(), enabled: canEdit });
+
+  if (members.isPending) return <Loading label="Loading the project's members…" />;
+  if (members.isError) return <QueryError error={members.error} retry={() => void members.refetch()} what="the project's members" />;
+
+  let candidates: MemberCandidate[] | null = null;
+  if (organisation.data) {
+    candidates = organisation.data.members.map(({ userId, name, email, role }) => ({ userId, name, email, role }));
+  }
+  if (canEdit && organisation.isPending) return <Loading label="Loading the organisation's people…" />;
+
+  return <ProjectMembersPanel projectId={project.id} members={members.data} canEdit={canEdit} candidates={candidates} />;
+}

@@ -1,0 +1,34 @@
+import { useQuery } from '@tanstack/react-query';
+import { Navigate, useNavigate, useSearchParams } from 'react-router-dom';
+import { appConfigQueryOptions, meQueryOptions } from '../../features/auth/api/session';
+import { SignInForm } from '../../features/auth/components/sign-in-form';
+import { safeNextPath } from '../session';
+
+export function SignInRoute() {
+  const { data: me } = useQuery(meQueryOptions());
+  const { data: config } = useQuery(appConfigQueryOptions());
+  const [params] = useSearchParams();
+  const navigate = useNavigate();
+  const next = safeNextPath(params.get('next'));
+
+  if (me) return <Navigate to={next} replace />;
+
+  return (
+    <div className="grid gap-10 md:grid-cols-[1fr_minmax(0,28rem)] md:items-start">
+      <div className="flex flex-col gap-4 pt-2">
+        <p className="text-caption font-semibold uppercase tracking-[0.12em] text-ember-600">Footbridges and long-span floors</p>
+        <h1 className="text-display font-semibold text-ink">Keep lively structures calm.</h1>
+        <p className="max-w-prose text-lead text-ink-soft">
+          Stillspan is where a design team sizes a tuned mass damper: model the mode, check comfort under pedestrian
+          load cases, compare tuning variants and hand the fabricator a sheet that can be built and re-tuned on site.
+        </p>
+      </div>
+      <section aria-labelledby="sign-in-title" className="rounded-plate border border-paper-line bg-paper-raised p-6 shadow-sm sm:p-8">
+        <h2 id="sign-in-title" className="mb-6 text-title font-semibold text-ink">
+          Sign in
+        </h2>
+        <SignInForm config={config} onSignedIn={() => navigate(next, { replace: true })} />
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,34 @@
+import { useQuery } from '@tanstack/react-query';
+import { redirect, type LoaderFunctionArgs } from 'react-router-dom';
+import type { Me } from '../../shared/contracts';
+import { appConfigQueryOptions, meQueryOptions } from '../features/auth/api/session';
+import { queryClient } from '../lib/query-client';
+
+/** Root loader: the server's mode and who is signed in, before the first paint. */
+export async function rootLoader() {
+  await Promise.all([queryClient.ensureQueryData(appConfigQueryOptions()), queryClient.ensureQueryData(meQueryOptions())]);
+  return null;
+}
+
+/** Loader of the signed-in part: sends a visitor without a session to the sign-in page, coming back afterwards. */
+export async function requireSessionLoader({ request }: LoaderFunctionArgs) {
+  const me = await queryClient.ensureQueryData(meQueryOptions());
+  if (!me) {
+    const url = new URL(request.url);
+    const next = url.pathname + url.search;
+    throw redirect(next === '/' ? '/sign-in' : `/sign-in?next=${encodeURIComponent(next)}`);
+  }
+  return null;
+}
+
+/** The signed-in person; only for pages below the signed-in layout, which guarantees the session. */
+export function useCurrentUser(): Me {
+  const { data } = useQuery(meQueryOptions());
+  if (!data) throw new Error('No signed-in person: this page belongs below the signed-in layout.');
+  return data;
+}
+
+/** A path inside this site to return to after signing in, or the projects list. */
+export function safeNextPath(next: string | null): string {
+  return next && next.startsWith('/') && !next.startsWith('//') ? next : '/projects';
+}

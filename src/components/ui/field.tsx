@@ -1,0 +1,110 @@
+import { forwardRef, useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes, type TextareaHTMLAttributes } from 'react';
+
+const control =
+  'block w-full rounded-plate border border-paper-line bg-paper-raised px-3 py-2 text-body text-ink ' +
+  'placeholder:text-ink-muted hover:border-ink-muted aria-[invalid=true]:border-signal-error aria-[invalid=true]:bg-signal-error-bg/40';
+
+interface FieldFrameProps {
+  id: string;
+  label: string;
+  hint?: ReactNode;
+  error?: string;
+  optional?: boolean;
+  children: ReactNode;
+}
+
+function FieldFrame({ id, label, hint, error, optional, children }: FieldFrameProps) {
+  return (
+    <div className="flex flex-col gap-1">
+      <label htmlFor={id} className="text-small font-semibold text-ink-soft">
+        {label}
+        {optional ? <span className="ml-1 font-normal text-ink-muted">(optional)</span> : null}
+      </label>
+      {children}
+      {hint ? (
+        <p id={`${id}-hint`} className="text-caption text-ink-muted">
+          {hint}
+        </p>
+      ) : null}
+      {error ? (
+        <p id={`${id}-error`} className="text-caption font-medium text-signal-error">
+          {error}
+        </p>
+      ) : null}
+    </div>
+  );
+}
+
+function describedBy(id: string, hint: unknown, error: unknown): string | undefined {
+  const ids = [hint ? `${id}-hint` : null, error ? `${id}-error` : null].filter(Boolean);
+  return ids.length ? ids.join(' ') : undefined;
+}
+
+interface CommonProps {
+  label: string;
+  hint?: ReactNode;
+  error?: string;
+  optional?: boolean;
+}
+
+export const TextField = forwardRef<HTMLInputElement, CommonProps & InputHTMLAttributes<HTMLInputElement>>(function TextField(
+  { label, hint, error, optional, id, className = '', ...rest },
+  ref,
+) {
+  const autoId = useId();
+  const fieldId = id ?? autoId;
+  return (
+    <FieldFrame id={fieldId} label={label} hint={hint} error={error} optional={optional}>
+      <input
+        ref={ref}
+        id={fieldId}
+        className={`${control} ${className}`}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={describedBy(fieldId, hint, error)}
+        {...rest}
+      />
+    </FieldFrame>
+  );
+});
+
+export const SelectField = forwardRef<HTMLSelectElement, CommonProps & SelectHTMLAttributes<HTMLSelectElement>>(function SelectField(
+  { label, hint, error, optional, id, className = '', children, ...rest },
+  ref,
+) {
+  const autoId = useId();
+  const fieldId = id ?? autoId;
+  return (
+    <FieldFrame id={fieldId} label={label} hint={hint} error={error} optional={optional}>
+      <select
+        ref={ref}
+        id={fieldId}
+        className={`${control} ${className}`}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={describedBy(fieldId, hint, error)}
+        {...rest}
+      >
+        {children}
+      </select>
+    </FieldFrame>
+  );
+});
+
+export const TextAreaField = forwardRef<HTMLTextAreaElement, CommonProps & TextareaHTMLAttributes<HTMLTextAreaElement>>(
+  function TextAreaField({ label, hint, error, optional, id, className = '', ...rest }, ref) {
+    const autoId = useId();
+    const fieldId = id ?? autoId;
+    return (
+      <FieldFrame id={fieldId} label={label} hint={hint} error={error} optional={optional}>
+        <textarea
+          ref={ref}
+          id={fieldId}
+          rows={4}
+          className={`${control} ${className}`}
+          aria-invalid={error ? true : undefined}
+          aria-describedby={describedBy(fieldId, hint, error)}
+          {...rest}
+        />
+      </FieldFrame>
+    );
+  },
+);

@@ -1,0 +1,58 @@
+import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
+import { appConfigSchema, meSchema, type Me } from '../../../../shared/contracts';
+import { apiRequest, isApiError } from '../../../lib/api-client';
+import { signInWithCredentials, signOut } from '../../../lib/auth';
+
+/** The signed-in person, or null when nobody is signed in (the API answers 401). */
+export const meQueryOptions = () =>
+  queryOptions({
+    queryKey: ['me'],
+    queryFn: async ({ signal }): Promise<Me | null> => {
+      try {
+        return await apiRequest('/api/me', { schema: meSchema, signal });
+      } catch (error) {
+        if (isApiError(error) && error.isUnauthenticated) return null;
+        throw error;
+      }
+    },
+    staleTime: 60_000,
+  });
+
+/** How the server runs (demo accounts, development mailbox); it does not change while the page is open. */
+export const appConfigQueryOptions = () =>
+  queryOptions({
+    queryKey: ['config'],
+    queryFn: ({ signal }) => apiRequest('/api/config', { schema: appConfigSchema, signal }),
+    staleTime: Infinity,
+  });
+
+export function useSignIn() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: async ({ email, password }: { email: string; password: string }) => {
+      await signInWithCredentials(email, password);
+      return queryClient.fetchQuery({ ...meQueryOptions(), staleTime: 0 });
+    },
+    onSuccess: () => {
+      // Everything cached belonged to nobody or to somebody else: start clean, keeping the new session.
+      const me = queryClient.getQueryData(meQueryOptions().queryKey);
+      const config = queryClient.getQueryData(appConfigQueryOptions().queryKey);
+      queryClient.clear();
+      queryClient.setQueryData(meQueryOptions().queryKey, me ?? null);
+      if (config) queryClient.setQueryData(appConfigQueryOptions().queryKey, config);
+    },
+  });
+}
+
+export function useSignOut() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: signOut,
+    onSuccess: () => {
+      const config = queryClient.getQueryData(appConfigQueryOptions().queryKey);
+      queryClient.clear();
+      queryClient.setQueryData(meQueryOptions().queryKey, null);
+      if (config) queryClient.setQueryData(appConfigQueryOptions().queryKey, config);
+    },
+  });
+}

@@ -1,0 +1,35 @@
+import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
+import {
+  memberListSchema,
+  type CreateInvitationInput,
+  type UpdateMemberRoleInput,
+} from '../../../../shared/contracts';
+import { apiRequest } from '../../../lib/api-client';
+
+export const memberKeys = {
+  all: ['organisation', 'members'] as const,
+};
+
+/** The organisation's people and its invitations (administrators only). */
+export const organisationMembersQueryOptions = () =>
+  queryOptions({
+    queryKey: memberKeys.all,
+    queryFn: ({ signal }) => apiRequest('/api/organisation/members', { schema: memberListSchema, signal }),
+  });
+
+export function useInviteMember() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: CreateInvitationInput) => apiRequest('/api/organisation/members', { method: 'POST', body: input }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: memberKeys.all }),
+  });
+}
+
+export function useChangeMemberRole() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ userId, ...input }: UpdateMemberRoleInput & { userId: string }) =>
+      apiRequest(`/api/organisation/members/${encodeURIComponent(userId)}`, { method: 'PATCH', body: input }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: memberKeys.all }),
+  });
+}

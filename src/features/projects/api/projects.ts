@@ -1,0 +1,93 @@
+import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
+import {
+  projectListSchema,
+  projectMemberListSchema,
+  projectSchema,
+  type AddProjectMemberInput,
+  type CreateProjectInput,
+  type Project,
+  type UpdateProjectInput,
+} from '../../../../shared/contracts';
+import { apiRequest } from '../../../lib/api-client';
+
+/** Keys form a tree, so invalidating ['projects'] refreshes the list, every project and their members. */
+export const projectKeys = {
+  all: ['projects'] as const,
+  list: () => ['projects', 'list'] as const,
+  detail: (projectId: string) => ['projects', projectId] as const,
+  members: (projectId: string) => ['projects', projectId, 'members'] as const,
+};
+
+export const projectsQueryOptions = () =>
+  queryOptions({
+    queryKey: projectKeys.list(),
+    queryFn: ({ signal }) => apiRequest('/api/projects', { schema: projectListSchema, signal }),
+    select: (data) => data.projects,
+  });
+
+export const projectQueryOptions = (projectId: string) =>
+  queryOptions({
+    queryKey: projectKeys.detail(projectId),
+    queryFn: ({ signal }) => apiRequest(`/api/projects/${encodeURIComponent(projectId)}`, { schema: projectSchema, signal }),
+  });
+
+export const projectMembersQueryOptions = (projectId: string) =>
+  queryOptions({
+    queryKey: projectKeys.members(projectId),
+    queryFn: ({ signal }) =>
+      apiRequest(`/api/projects/${encodeURIComponent(projectId)}/members`, { schema: projectMemberListSchema, signal }),
+    select: (data) => data.members,
+  });
+
+export function useCreateProject() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: CreateProjectInput) =>
+      apiRequest('/api/projects', { method: 'POST', body: input, schema: projectSchema }),
+    onSuccess: (project) => {
+      queryClient.setQueryData(projectKeys.detail(project.id), project);
+      return queryClient.invalidateQueries({ queryKey: projectKeys.list() });
+    },
+  });
+}
+
+export function useUpdateProject(projectId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: UpdateProjectInput) =>
+      apiRequest(`/api/projects/${encodeURIComponent(projectId)}`, { method: 'PATCH', body: input, schema: projectSchema }),
+    onSuccess: (project: Project) => {
+      queryClient.setQueryData(projectKeys.detail(projectId), project);
+      return queryClient.invalidateQueries({ queryKey: projectKeys.list() });
+    },
+  });
+}
+
+export function useDeleteProject(projectId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: () => apiRequest(`/api/projects/${encodeURIComponent(projectId)}`, { method: 'DELETE' }),
+    onSuccess: () => {
+      queryClient.removeQueries({ queryKey: projectKeys.detail(projectId) });
+      return queryClient.invalidateQueries({ queryKey: projectKeys.list() });
+    },
+  });
+}
+
+export function useAddProjectMember(projectId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: AddProjectMemberInput) =>
+      apiRequest(`/api/projects/${encodeURIComponent(projectId)}/members`, { method: 'POST', body: input }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: projectKeys.members(projectId) }),
+  });
+}
+
+export function useRemoveProjectMember(projectId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (userId: string) =>
+      apiRequest(`/api/projects/${encodeURIComponent(projectId)}/members/${encodeURIComponent(userId)}`, { method: 'DELETE' }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: projectKeys.members(projectId) }),
+  });
+}

@@ -1,0 +1,65 @@
+import type { FieldErrors, UseFormRegister } from 'react-hook-form';
+import { projectKinds, type CreateProjectInput } from '../../../../shared/contracts';
+import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
+import { formatProjectKind } from '../../../lib/format';
+
+export type ProjectFormValues = CreateProjectInput;
+export const projectFormFields = ['name', 'kind', 'location', 'description'] as const;
+
+export const emptyProjectForm: ProjectFormValues = { name: '', kind: 'footbridge', location: '', description: '' };
+
+/** Optional text left blank is sent as absent, not as an empty string. */
+export function cleanProjectValues(values: ProjectFormValues): ProjectFormValues {
+  return {
+    name: values.name,
+    kind: values.kind,
+    location: values.location ? values.location : undefined,
+    description: values.description ? values.description : undefined,
+  };
+}
+
+interface ProjectFieldsProps {
+  register: UseFormRegister<ProjectFormValues>;
+  errors: FieldErrors<ProjectFormValues>;
+  idPrefix: string;
+}
+
+/** The fields a project is described by, shared by the create and the edit form. */
+export function ProjectFields({ register, errors, idPrefix }: ProjectFieldsProps) {
+  return (
+    <div className="grid gap-4 sm:grid-cols-2">
+      <TextField id={`${idPrefix}-name`} label="Project name" autoComplete="off" error={errors.name?.message} {...register('name')} />
+      <SelectField
+        id={`${idPrefix}-kind`}
+        label="Structure kind"
+        hint="A footbridge is checked for walking, running and crowd loads; a floor for walking on it."
+        error={errors.kind?.message}
+        {...register('kind')}
+      >
+        {projectKinds.map((kind) => (
+          <option key={kind} value={kind}>
+            {formatProjectKind(kind)}
+          </option>
+        ))}
+      </SelectField>
+      <TextField
+        id={`${idPrefix}-location`}
+        label="Location"
+        optional
+        autoComplete="off"
+        error={errors.location?.message}
+        {...register('location')}
+      />
+      <div className="sm:col-span-2">
+        <TextAreaField
+          id={`${idPrefix}-description`}
+          label="Description"
+          optional
+          hint="What the structure is and why its liveliness matters, in a few lines."
+          error={errors.description?.message}
+          {...register('description')}
+        />
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,57 @@
+/** The pages a project will hold. Overview and members work now; the engineering pages follow. */
+export interface ProjectSection {
+  slug: string;
+  label: string;
+  available: boolean;
+  /** What the page will let the team do, in the trade's words. */
+  purpose: string;
+}
+
+export const projectSections: ProjectSection[] = [
+  { slug: '', label: 'Overview', available: true, purpose: 'The project’s name, structure kind, place and description.' },
+  { slug: 'members', label: 'Members', available: true, purpose: 'The people who work on the project.' },
+  {
+    slug: 'modes',
+    label: 'Modes',
+    available: false,
+    purpose:
+      'The structure’s modes — natural frequency, modal mass, damping ratio and direction — typed in from a finite-element model or derived from a simple beam.',
+  },
+  {
+    slug: 'load-cases',
+    label: 'Load cases',
+    available: false,
+    purpose: 'Single walker, group, crowd by density class, jogger, lateral crowd and floor walking, each from a named guide.',
+  },
+  {
+    slug: 'comfort-criteria',
+    label: 'Comfort criteria',
+    available: false,
+    purpose: 'The acceleration limits the owner accepts: a guide’s comfort class, a code limit or custom values.',
+  },
+  {
+    slug: 'tuning-variants',
+    label: 'Tuning variants',
+    available: false,
+    purpose:
+      'Mass ratio, tuning method and number of units; response with and without the damper over the pacing band, stroke and detuning robustness, compared side by side.',
+  },
+  {
+    slug: 'hardware-sheet',
+    label: 'Hardware sheet',
+    available: false,
+    purpose: 'Moving mass, spring rate, damper coefficient, static deflection, design stroke and tuning range for the fabricator.',
+  },
+  {
+    slug: 'sign-off',
+    label: 'Sign-off',
+    available: false,
+    purpose: 'Submit the comfort criteria and the chosen design to the owner, who approves them or returns them with a comment.',
+  },
+  {
+    slug: 'site-records',
+    label: 'Site records',
+    available: false,
+    purpose: 'Measured acceleration records from site: spectrum, peak frequency and damping, compared with the design.',
+  },
+];

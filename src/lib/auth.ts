@@ -1,0 +1,63 @@
+import { z } from 'zod';
+import { ApiError } from './api-client';
+
+/**
+ * The browser side of the Auth.js Credentials flow on /api/auth: fetch a CSRF token (which also sets its cookie),
+ * post the form, and read the JSON `{ url }` answer that the `X-Auth-Return-Redirect` header asks for.
+ */
+const csrfSchema = z.object({ csrfToken: z.string().min(1) });
+const redirectSchema = z.object({ url: z.string() });
+
+async function fetchCsrfToken(): Promise<string> {
+  let response: Response;
+  try {
+    response = await fetch('/api/auth/csrf', { credentials: 'same-origin', headers: { Accept: 'application/json' } });
+  } catch {
+    throw new ApiError(0, 'network', 'The server could not be reached. Check your connection and try again.');
+  }
+  const parsed = csrfSchema.safeParse(await response.json().catch(() => null));
+  if (!response.ok || !parsed.success) {
+    throw new ApiError(response.status, 'auth_unavailable', 'Sign-in is not available right now. Try again in a moment.');
+  }
+  return parsed.data.csrfToken;
+}
+
+async function postAuthForm(path: string, fields: Record<string, string>): Promise<string> {
+  let response: Response;
+  try {
+    response = await fetch(path, {
+      method: 'POST',
+      credentials: 'same-origin',
+      headers: {
+        'Content-Type': 'application/x-www-form-urlencoded',
+        Accept: 'application/json',
+        'X-Auth-Return-Redirect': '1',
+      },
+      body: new URLSearchParams(fields).toString(),
+    });
+  } catch {
+    throw new ApiError(0, 'network', 'The server could not be reached. Check your connection and try again.');
+  }
+  const parsed = redirectSchema.safeParse(await response.json().catch(() => null));
+  if (!parsed.success) {
+    throw new ApiError(response.status, 'auth_failed', `The sign-in service answered ${response.status}.`);
+  }
+  return parsed.data.url;
+}
+
+/** Signs in with e-mail and password; throws an ApiError (status 401, code `invalid_credentials`) when refused. */
+export async function signInWithCredentials(email: string, password: string): Promise<void> {
+  const csrfToken = await fetchCsrfToken();
+  const url = await postAuthForm('/api/auth/callback/credentials', { csrfToken, email, password });
+  if (/[?&]error=/.test(url)) {
+    throw new ApiError(401, 'invalid_credentials', 'That e-mail and password do not match an account.', [
+      { path: 'password', message: 'E-mail or password is not right.' },
+    ]);
+  }
+}
+
+/** Ends the session (clears the session cookie). */
+export async function signOut(): Promise<void> {
+  const csrfToken = await fetchCsrfToken();
+  await postAuthForm('/api/auth/signout', { csrfToken });
+}

@@ -1,0 +1,55 @@
+import type { ProjectKind, Role } from '../../shared/contracts';
+
+const roleLabels: Record<Role, string> = {
+  admin: 'Administrator',
+  engineer: 'Engineer',
+  owner: 'Owner',
+  fabricator: 'Fabricator',
+  viewer: 'Viewer',
+};
+
+const roleDuties: Record<Role, string> = {
+  admin: "Manages the organisation's people and their roles",
+  engineer: 'Creates and changes projects and their designs',
+  owner: 'Reads the design and approves or returns it',
+  fabricator: 'Reads the released hardware sheet and records as-built data',
+  viewer: 'Reads everything in a project, changes nothing',
+};
+
+const kindLabels: Record<ProjectKind, string> = {
+  footbridge: 'Footbridge',
+  floor: 'Floor',
+};
+
+export function formatRole(role: Role): string {
+  return roleLabels[role];
+}
+
+export function describeRole(role: Role): string {
+  return roleDuties[role];
+}
+
+export function formatProjectKind(kind: ProjectKind): string {
+  return kindLabels[kind];
+}
+
+const dateFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
+const dateTimeFormat = new Intl.DateTimeFormat('en-GB', {
+  day: 'numeric',
+  month: 'short',
+  year: 'numeric',
+  hour: '2-digit',
+  minute: '2-digit',
+});
+
+/** "3 Dec 2026" from an ISO timestamp; an unreadable value is shown as it came. */
+export function formatDate(iso: string): string {
+  const date = new Date(iso);
+  return Number.isNaN(date.getTime()) ? iso : dateFormat.format(date);
+}
+
+/** "3 Dec 2026, 14:05" from an ISO timestamp. */
+export function formatDateTime(iso: string): string {
+  const date = new Date(iso);
+  return Number.isNaN(date.getTime()) ? iso : dateTimeFormat.format(date);
+}
