@@ -1,0 +1,198 @@
+/**
+ * Optimum tuning of one TMD on one structure mode. Every damping ratio is referred to the frequency of its own
+ * oscillator: ζ_a to the damper's frequency f_a, ζ_s to the structure's f_s. Frequency ratio f = f_a / f_s,
+ * mass ratio μ = m / M.
+ *
+ * Closed forms (see docs/engine.md for the sources):
+ *   den-hartog        f = 1/(1+μ),               ζ_a = √(3μ / (8(1+μ)))
+ *   warburton-random  f = √(1+μ/2)/(1+μ),        ζ_a = √(μ(1+3μ/4) / (4(1+μ)(1+μ/2)))
+ *   ioi-ikeda         f = 1/(1+μ) − (0.241+1.7μ−2.6μ²)ζ_s − (1−1.9μ+μ²)ζ_s²
+ *                     ζ_a = √(3μ/(8(1+μ))) + (0.13+0.12μ+0.4μ²)ζ_s − (0.01+0.9μ+3μ²)ζ_s²
+ * Numerical:
+ *   hinf  minimises max_ω |X_s| K / F (continuous peak search), for any ζ_s
+ *   h2    minimises the mean-square structure displacement under a white-noise force on the structure, from the
+ *         stationary covariance of the state (Lyapunov equation A P + P Aᵀ + B Bᵀ = 0), for any ζ_s
+ */
+import type { TuningMethod, TuningResult } from './types';
+import { EngineInputError, solveLyapunov } from './linalg';
+import { brentMaximise } from './peak';
+import { createModeTmdSystem, findResponsePeak } from './response';
+
+export const tuningMethods: readonly TuningMethod[] = ['den-hartog', 'warburton-random', 'ioi-ikeda', 'hinf', 'h2'];
+
+export interface TuningRatios {
+  frequencyRatio: number;
+  tmdDampingRatio: number;
+}
+
+function checkMassRatio(massRatio: number): void {
+  if (typeof massRatio !== 'number' || !Number.isFinite(massRatio) || !(massRatio > 0)) {
+    throw new EngineInputError('massRatio', `massRatio: must be a finite number greater than 0 (got ${massRatio})`);
+  }
+}
+
+function checkStructureDamping(structureDampingRatio: number): void {
+  if (typeof structureDampingRatio !== 'number' || !Number.isFinite(structureDampingRatio) || structureDampingRatio < 0 || structureDampingRatio >= 1) {
+    throw new EngineInputError('structureDampingRatio', `structureDampingRatio: must be a damping ratio in [0, 1) (got ${structureDampingRatio})`);
+  }
+}
+
+/** Den Hartog (Mechanical Vibrations, 4th ed. 1956, §3.3): harmonic force, undamped primary. */
+export function tuneDenHartog(massRatio: number): TuningRatios {
+  checkMassRatio(massRatio);
+  const mu = massRatio;
+  return { frequencyRatio: 1 / (1 + mu), tmdDampingRatio: Math.sqrt((3 * mu) / (8 * (1 + mu))) };
+}
+
+/** Warburton (Earthquake Eng. Struct. Dyn. 10, 1982): white-noise force, undamped primary, displacement. */
+export function tuneWarburtonRandom(massRatio: number): TuningRatios {
+  checkMassRatio(massRatio);
+  const mu = massRatio;
+  return {
+    frequencyRatio: Math.sqrt(1 + mu / 2) / (1 + mu),
+    tmdDampingRatio: Math.sqrt((mu * (1 + (3 * mu) / 4)) / (4 * (1 + mu) * (1 + mu / 2))),
+  };
+}
+
+/** Ioi & Ikeda (1978) curve fit: harmonic force, damped primary. */
+export function tuneIoiIkeda(massRatio: number, structureDampingRatio: number): TuningRatios {
+  checkMassRatio(massRatio);
+  checkStructureDamping(structureDampingRatio);
+  const mu = massRatio;
+  const z = structureDampingRatio;
+  const frequencyRatio = 1 / (1 + mu) - (0.241 + 1.7 * mu - 2.6 * mu * mu) * z - (1 - 1.9 * mu + mu * mu) * z * z;
+  const tmdDampingRatio = Math.sqrt((3 * mu) / (8 * (1 + mu))) + (0.13 + 0.12 * mu + 0.4 * mu * mu) * z - (0.01 + 0.9 * mu + 3 * mu * mu) * z * z;
+  if (!(frequencyRatio > 0) || !(tmdDampingRatio > 0 && tmdDampingRatio < 1)) {
+    throw new EngineInputError(
+      'structureDampingRatio',
+      `structureDampingRatio: the Ioi–Ikeda fit gives no usable tuning at massRatio ${mu} and structureDampingRatio ${z} (frequency ratio ${frequencyRatio}, damping ratio ${tmdDampingRatio})`,
+    );
+  }
+  return { frequencyRatio, tmdDampingRatio };
+}
+
+/**
+ * Peak dynamic amplification max_ω |X_s| K / F of a structure (μ, ζ_s) with one TMD (f, ζ_a), over all ω ≥ 0
+ * (the static value 1 at ω = 0 included). Dimensionless; independent of the structure's frequency and mass.
+ */
+export function peakAmplification(massRatio: number, frequencyRatio: number, tmdDampingRatio: number, structureDampingRatio: number): number {
+  return peakAmplificationAt(massRatio, frequencyRatio, tmdDampingRatio, structureDampingRatio).value;
+}
+
+function peakAmplificationAt(massRatio: number, frequencyRatio: number, tmdDampingRatio: number, structureDampingRatio: number): { frequencyRatio: number; value: number } {
+  // Structure of 1 kg at 1 Hz: K = (2π)² N/m, so |X_s| K / F = |X_s per N| × (2π)².
+  const system = createModeTmdSystem(
+    { modalMassKg: 1, frequencyHz: 1, dampingRatio: structureDampingRatio },
+    [{ massKg: massRatio, frequencyHz: frequencyRatio, dampingRatio: tmdDampingRatio }],
+  );
+  const stiffness = system.structureStiffnessNPerM;
+  const low = system.coupledFrequenciesHz[0];
+  const high = system.coupledFrequenciesHz[system.coupledFrequenciesHz.length - 1];
+  const peak = findResponsePeak(system, [0.1 * Math.min(low, 1), 3 * Math.max(high, 1)], { quantity: 'structureDisplacement', samples: 16 });
+  const value = peak.value * stiffness;
+  return value > 1 ? { frequencyRatio: peak.frequencyHz, value } : { frequencyRatio: 0, value: 1 };
+}
+
+/**
+ * Stationary variance of x_s under a unit-intensity white-noise force (E[w(t) w(t+τ)] = δ(τ)) on a structure of
+ * 1 kg at 1 rad/s with the given TMD: P₀₀ of the Lyapunov solution, equal to (1/2π) ∫ |X_s(ω)/F|² dω.
+ * Dimensionless in these units; only its minimum over the tuning matters for `h2`.
+ */
+export function meanSquareAmplification(massRatio: number, frequencyRatio: number, tmdDampingRatio: number, structureDampingRatio: number): number {
+  const mu = massRatio;
+  const ka = mu * frequencyRatio * frequencyRatio; // ω_s = 1, M = 1
+  const ca = 2 * tmdDampingRatio * mu * frequencyRatio;
+  const cs = 2 * structureDampingRatio;
+  // State z = [x_s, x_a, v_s, v_a]; ż = A z + B w.
+  const a = new Float64Array(16);
+  a[0 * 4 + 2] = 1;
+  a[1 * 4 + 3] = 1;
+  a[2 * 4 + 0] = -(1 + ka);
+  a[2 * 4 + 1] = ka;
+  a[2 * 4 + 2] = -(cs + ca);
+  a[2 * 4 + 3] = ca;
+  a[3 * 4 + 0] = ka / mu;
+  a[3 * 4 + 1] = -ka / mu;
+  a[3 * 4 + 2] = ca / mu;
+  a[3 * 4 + 3] = -ca / mu;
+  const q = new Float64Array(16);
+  q[2 * 4 + 2] = 1;
+  const p = solveLyapunov(a, q, 4);
+  if (!p || !(p[0] > 0)) return Infinity;
+  return p[0];
+}
+
+/** Brent minimisation of a smooth or V-shaped unimodal function on [a, b]. */
+function minimise(fn: (x: number) => number, a: number, b: number, relativeTolerance: number): { x: number; value: number } {
+  const x0 = a + 0.3819660112501051 * (b - a);
+  const f0 = fn(x0);
+  const result = brentMaximise((x) => -fn(x), a, b, x0, -f0, relativeTolerance, 0, 200);
+  return { x: result.x, value: -result.value };
+}
+
+/** Two-level search: for each frequency ratio the best damping ratio (log scale), then the best frequency ratio. */
+function optimise(objective: (frequencyRatio: number, tmdDampingRatio: number) => number, massRatio: number, start: TuningRatios): TuningRatios {
+  const logZetaLo = Math.log(1e-4);
+  const logZetaHi = Math.log(0.95);
+  const innerTolerance = 1e-8;
+  let bestZeta = start.tmdDampingRatio;
+  const inner = (f: number) => {
+    const found = minimise((u) => objective(f, Math.exp(u)), logZetaLo, logZetaHi, innerTolerance);
+    bestZeta = Math.exp(found.x);
+    return found.value;
+  };
+  const fLo = Math.max(1e-3, 0.3 * start.frequencyRatio);
+  const fHi = 1.3 * Math.max(start.frequencyRatio, 1 / (1 + massRatio));
+  const outer = minimise(inner, fLo, fHi, 1e-9);
+  inner(outer.x);
+  return { frequencyRatio: outer.x, tmdDampingRatio: bestZeta };
+}
+
+/** Numerical H∞ optimum: the tuning with the lowest peak of |X_s| K / F, for any structure damping. */
+export function tuneHInfinity(massRatio: number, structureDampingRatio: number): TuningRatios {
+  checkMassRatio(massRatio);
+  checkStructureDamping(structureDampingRatio);
+  return optimise((f, z) => peakAmplification(massRatio, f, z, structureDampingRatio), massRatio, tuneDenHartog(massRatio));
+}
+
+/** Numerical H2 optimum: the tuning with the lowest mean-square structure displacement under white noise. */
+export function tuneH2(massRatio: number, structureDampingRatio: number): TuningRatios {
+  checkMassRatio(massRatio);
+  checkStructureDamping(structureDampingRatio);
+  return optimise((f, z) => meanSquareAmplification(massRatio, f, z, structureDampingRatio), massRatio, tuneWarburtonRandom(massRatio));
+}
+
+/** Tuning of one TMD by the named method; the peak amplification is that of the tuned system with its ζ_s. */
+export function tuneTmd(method: TuningMethod, massRatio: number, structureFrequencyHz: number, structureDampingRatio = 0): TuningResult {
+  checkMassRatio(massRatio);
+  checkStructureDamping(structureDampingRatio);
+  if (typeof structureFrequencyHz !== 'number' || !Number.isFinite(structureFrequencyHz) || !(structureFrequencyHz > 0)) {
+    throw new EngineInputError('structureFrequencyHz', `structureFrequencyHz: must be a finite number greater than 0 (got ${structureFrequencyHz})`);
+  }
+  let ratios: TuningRatios;
+  switch (method) {
+    case 'den-hartog':
+      ratios = tuneDenHartog(massRatio);
+      break;
+    case 'warburton-random':
+      ratios = tuneWarburtonRandom(massRatio);
+      break;
+    case 'ioi-ikeda':
+      ratios = tuneIoiIkeda(massRatio, structureDampingRatio);
+      break;
+    case 'hinf':
+      ratios = tuneHInfinity(massRatio, structureDampingRatio);
+      break;
+    case 'h2':
+      ratios = tuneH2(massRatio, structureDampingRatio);
+      break;
+    default:
+      throw new EngineInputError('method', `method: must be one of ${tuningMethods.join(', ')} (got ${String(method)})`);
+  }
+  return {
+    frequencyRatio: ratios.frequencyRatio,
+    tmdFrequencyHz: ratios.frequencyRatio * structureFrequencyHz,
+    tmdDampingRatio: ratios.tmdDampingRatio,
+    peakAmplification: peakAmplification(massRatio, ratios.frequencyRatio, ratios.tmdDampingRatio, structureDampingRatio),
+  };
+}
