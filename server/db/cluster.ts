@@ -233,6 +233,11 @@ export async function startProjectCluster(port: number): Promise<RunningCluster>
     async stop() {
       if (!startedHere || stopped) return;
       stopped = true;
+      // A Ctrl-C in the terminal may have reached the server already.
+      if (!(await clusterRunning(paths.dataDir))) {
+        log('already stopped');
+        return;
+      }
       await stopServer(paths.dataDir);
       log('stopped');
     },

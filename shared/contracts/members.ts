@@ -48,6 +48,15 @@ export const invitationPreviewSchema = z.object({
 });
 export type InvitationPreview = z.infer<typeof invitationPreviewSchema>;
 
+/** Answer of POST /api/invitations/:token/accept: the account now exists; the client signs in with it. */
+export const acceptedInvitationSchema = z.object({
+  userId: z.string(),
+  email: z.string(),
+  role: roleSchema,
+  organisationName: z.string(),
+});
+export type AcceptedInvitation = z.infer<typeof acceptedInvitationSchema>;
+
 /** PATCH /api/organisation/members/:userId (admin only). */
 export const updateMemberRoleSchema = z.object({ role: roleSchema });
 export type UpdateMemberRoleInput = z.infer<typeof updateMemberRoleSchema>;

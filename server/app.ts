@@ -1,0 +1,64 @@
+import { ExpressAuth } from '@auth/express';
+import express, { type Express } from 'express';
+import { existsSync } from 'node:fs';
+import { join } from 'node:path';
+import type { AppContext } from './context';
+import { repoRoot } from './db/cluster';
+import { requireUser } from './middleware/auth';
+import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { requireJsonBody, sameOrigin } from './middleware/same-origin';
+import { computeRouter } from './modules/compute/compute.router';
+import { configRouter } from './modules/config/config.router';
+import { devMailRouter } from './modules/dev-mail/dev-mail.router';
+import { healthRouter } from './modules/health/health.router';
+import { meRouter } from './modules/me/me.router';
+import { invitationsRouter, organisationRouter } from './modules/members/members.router';
+import { projectMembersRouter } from './modules/project-members/project-members.router';
+import { projectsRouter } from './modules/projects/projects.router';
+
+export const clientDist = join(repoRoot, 'dist', 'client');
+
+/** The whole HTTP application, without listening: the server and the tests (supertest) both use it. */
+export function createApp(ctx: AppContext, options: { clientDir?: string | null } = {}): Express {
+  const app = express();
+  app.disable('x-powered-by');
+  // Auth.js reads the protocol and host; behind a reverse proxy they come from X-Forwarded-*.
+  app.set('trust proxy', true);
+
+  app.use('/api', (_req, res, next) => {
+    res.set('Cache-Control', 'no-store');
+    next();
+  });
+  app.use('/api', sameOrigin(ctx.env.appUrl));
+  app.use('/api/auth', ExpressAuth(ctx.authConfig));
+
+  app.use('/api', requireJsonBody, express.json({ limit: '5mb' }));
+  app.use('/api/health', healthRouter(ctx.pool));
+  app.use('/api/config', configRouter(ctx));
+  app.use('/api/invitations', invitationsRouter(ctx));
+  if (!ctx.env.isProduction && ctx.fakeSmtp) app.use('/api/dev/mail', devMailRouter(ctx.fakeSmtp));
+
+  const signedIn = requireUser(ctx.db, ctx.authConfig);
+  app.use('/api/me', signedIn, meRouter());
+  app.use('/api/projects/:id/members', signedIn, projectMembersRouter(ctx));
+  app.use('/api/projects', signedIn, projectsRouter(ctx));
+  app.use('/api/organisation', signedIn, organisationRouter(ctx));
+  app.use('/api/compute', signedIn, computeRouter());
+  app.use('/api', apiNotFound);
+
+  // The built client (vite build → dist/client), with every other GET answered by index.html for the client router.
+  const clientDir = options.clientDir === undefined ? clientDist : options.clientDir;
+  if (clientDir && existsSync(join(clientDir, 'index.html'))) {
+    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    app.get(/^(?!\/api(\/|$)).*/, (_req, res) => {
+      res.set('Cache-Control', 'no-cache').sendFile(join(clientDir, 'index.html'));
+    });
+  } else {
+    app.get(/^(?!\/api(\/|$)).*/, (_req, res) => {
+      res.status(404).type('text/plain').send('The client is not built: run `npm run build` (npm start does it), or use `npm run dev`.\n');
+    });
+  }
+
+  app.use(errorHandler);
+  return app;
+}

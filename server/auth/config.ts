@@ -1,0 +1,83 @@
+import { DrizzleAdapter } from '@auth/drizzle-adapter';
+import type { ExpressAuthConfig } from '@auth/express';
+import Credentials from '@auth/express/providers/credentials';
+import { z } from 'zod';
+import type { Database } from '../db/client';
+import { accounts, authenticators, sessions, users, verificationTokens } from '../db/schema';
+import { findUserByEmail } from '../modules/users/users.repository';
+import { roleSchema } from '../../shared/contracts/roles';
+import { verifyPassword } from './password';
+
+/** How long a sign-in lasts without activity; the JWT is renewed at most once an hour while it is used. */
+export const sessionMaxAgeS = 12 * 60 * 60;
+
+const credentialsSchema = z.object({
+  email: z.string().trim().toLowerCase().min(3).max(320),
+  password: z.string().min(1).max(200),
+});
+
+/** The token's own claims beside `sub` (the user id). */
+const claimsSchema = z.object({ organisationId: z.string(), role: roleSchema });
+
+export function createAuthConfig(options: { db: Database; secret: string }): ExpressAuthConfig {
+  const { db } = options;
+  return {
+    secret: options.secret,
+    trustHost: true,
+    basePath: '/api/auth',
+    // Credentials sign-in only works with JWT sessions; the adapter still owns the users table (docs/decisions).
+    session: { strategy: 'jwt', maxAge: sessionMaxAgeS, updateAge: 60 * 60 },
+    adapter: DrizzleAdapter(db, {
+      usersTable: users,
+      accountsTable: accounts,
+      sessionsTable: sessions,
+      verificationTokensTable: verificationTokens,
+      authenticatorsTable: authenticators,
+    }),
+    providers: [
+      Credentials({
+        credentials: { email: { label: 'E-mail', type: 'email' }, password: { label: 'Password', type: 'password' } },
+        async authorize(raw) {
+          const parsed = credentialsSchema.safeParse(raw);
+          if (!parsed.success) return null;
+          const user = await findUserByEmail(db, parsed.data.email);
+          const ok = await verifyPassword(parsed.data.password, user?.passwordHash);
+          if (!user || !ok) return null;
+          return { id: user.id, email: user.email, name: user.name, organisationId: user.organisationId, role: user.role };
+        },
+      }),
+    ],
+    callbacks: {
+      jwt({ token, user }) {
+        if (user) {
+          const claims = claimsSchema.parse(user);
+          token.sub = user.id;
+          token.organisationId = claims.organisationId;
+          token.role = claims.role;
+        }
+        return token;
+      },
+      session({ session, token }) {
+        // The role and organisation in the session are those at sign-in; the API reads the current ones per request.
+        const claims = claimsSchema.safeParse(token);
+        Object.assign(session.user, {
+          id: token.sub,
+          organisationId: claims.success ? claims.data.organisationId : null,
+          role: claims.success ? claims.data.role : null,
+        });
+        return session;
+      },
+    },
+    logger: {
+      error(error) {
+        // A wrong password is an answer, not a server fault.
+        if ((error as { type?: string }).type === 'CredentialsSignin') return;
+        process.stderr.write(`[auth] ${error.name}: ${error.message}\n`);
+      },
+      warn(code) {
+        process.stderr.write(`[auth] warning: ${code}\n`);
+      },
+      debug() {},
+    },
+  };
+}

@@ -1,0 +1,17 @@
+import type { ExpressAuthConfig } from '@auth/express';
+import type pg from 'pg';
+import type { Database } from './db/client';
+import type { Env } from './env';
+import type { FakeSmtp } from './mail/fake-smtp';
+import type { Mailer } from './mail/mailer';
+
+/** What the app's routers need, built once by the server (or by a test). */
+export interface AppContext {
+  env: Env;
+  pool: pg.Pool;
+  db: Database;
+  mailer: Mailer;
+  /** The in-process fake SMTP server, when it runs (never in production). */
+  fakeSmtp: FakeSmtp | null;
+  authConfig: ExpressAuthConfig;
+}

@@ -1,0 +1,116 @@
+/**
+ * The server's one parsed environment. Nothing else in the server reads process.env.
+ * A bad value stops start-up with a message naming the variable and the rule.
+ */
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { z } from 'zod';
+import { repoRoot } from './db/cluster';
+
+const flag = z
+  .enum(['1', '0', 'true', 'false', 'yes', 'no', 'on', 'off'], { error: 'must be one of 1, 0, true, false, yes, no, on, off' })
+  .transform((value) => ['1', 'true', 'yes', 'on'].includes(value));
+
+const port = (fallback: number) =>
+  z.coerce.number({ error: 'must be a port number' }).int('must be a whole number').min(0, 'must be 0–65535').max(65535, 'must be 0–65535').default(fallback);
+
+const rawEnvSchema = z.object({
+  NODE_ENV: z.enum(['development', 'test', 'production'], { error: 'must be development, test or production' }).default('development'),
+  PORT: port(3000),
+  DATABASE_URL: z
+    .string()
+    .regex(/^postgres(ql)?:\/\//, 'must be a postgres:// connection URL')
+    .optional(),
+  AUTH_SECRET: z.string().min(32, 'must be at least 32 characters (for example `openssl rand -hex 32`)').optional(),
+  APP_URL: z.url('must be an absolute URL such as http://localhost:3000').optional(),
+  SMTP_HOST: z.string().min(1).default('127.0.0.1'),
+  SMTP_PORT: port(2525),
+  MAIL_FROM: z.string().min(3).default('Stillspan <no-reply@stillspan.test>'),
+  STILLSPAN_FAKE_SMTP: flag.optional(),
+  STILLSPAN_PG_PORT: port(54329),
+  STILLSPAN_DATA_DIR: z.string().min(1).optional(),
+});
+
+export interface Env {
+  nodeEnv: 'development' | 'test' | 'production';
+  isProduction: boolean;
+  port: number;
+  databaseUrl: string;
+  authSecret: string;
+  appUrl: string;
+  smtpHost: string;
+  smtpPort: number;
+  mailFrom: string;
+  fakeSmtp: boolean;
+  pgPort: number;
+  dataDir: string;
+}
+
+export class EnvError extends Error {
+  override name = 'EnvError';
+}
+
+/** The project-local folder for generated secrets and the database (git-ignored). */
+export const defaultDataDir = join(repoRoot, '.data');
+
+/** Reads the development secret from the data folder, creating it on first use. */
+function developmentSecret(dataDir: string): string {
+  const file = join(dataDir, 'auth-secret');
+  if (existsSync(file)) {
+    const stored = readFileSync(file, 'utf8').trim();
+    if (stored.length >= 32) return stored;
+  }
+  const secret = randomBytes(32).toString('hex');
+  mkdirSync(dataDir, { recursive: true, mode: 0o755 });
+  writeFileSync(file, `${secret}\n`, { mode: 0o600 });
+  return secret;
+}
+
+/** Parses an environment (process.env by default). Throws EnvError listing every bad variable. */
+export function parseEnv(source: Record<string, string | undefined> = process.env): Env {
+  // An empty variable counts as unset.
+  const cleaned = Object.fromEntries(Object.entries(source).filter(([, value]) => value !== undefined && value !== ''));
+  const parsed = rawEnvSchema.safeParse(cleaned);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((issue) => `  ${issue.path.join('.')}: ${issue.message}`);
+    throw new EnvError(`Invalid environment:\n${lines.join('\n')}`);
+  }
+  const raw = parsed.data;
+  const isProduction = raw.NODE_ENV === 'production';
+  const problems: string[] = [];
+  if (isProduction && !raw.AUTH_SECRET) problems.push('  AUTH_SECRET: is required in production (at least 32 characters)');
+  if (isProduction && !raw.DATABASE_URL) problems.push('  DATABASE_URL: is required in production');
+  if (isProduction && !raw.APP_URL) problems.push('  APP_URL: is required in production (the address people open, used in mailed links)');
+  if (isProduction && raw.STILLSPAN_FAKE_SMTP) problems.push('  STILLSPAN_FAKE_SMTP: cannot be on in production');
+  if (problems.length > 0) throw new EnvError(`Invalid environment:\n${problems.join('\n')}`);
+
+  const dataDir = raw.STILLSPAN_DATA_DIR ?? defaultDataDir;
+  return {
+    nodeEnv: raw.NODE_ENV,
+    isProduction,
+    port: raw.PORT,
+    databaseUrl: raw.DATABASE_URL ?? `postgres://postgres@127.0.0.1:${raw.STILLSPAN_PG_PORT}/stillspan`,
+    authSecret: raw.AUTH_SECRET ?? developmentSecret(dataDir),
+    appUrl: (raw.APP_URL ?? `http://localhost:${raw.PORT}`).replace(/\/+$/, ''),
+    smtpHost: raw.SMTP_HOST,
+    smtpPort: raw.SMTP_PORT,
+    mailFrom: raw.MAIL_FROM,
+    fakeSmtp: raw.STILLSPAN_FAKE_SMTP ?? !isProduction,
+    pgPort: raw.STILLSPAN_PG_PORT,
+    dataDir,
+  };
+}
+
+let cached: Env | undefined;
+
+/** The process's environment, parsed once. */
+export function getEnv(): Env {
+  cached ??= parseEnv(process.env);
+  return cached;
+}
+
+/** True when DATABASE_URL was given (then the start scripts use it instead of the project's own cluster). */
+export function databaseUrlGiven(): boolean {
+  return Boolean(process.env.DATABASE_URL);
+}

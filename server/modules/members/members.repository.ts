@@ -1,0 +1,116 @@
+import { and, desc, eq, isNull, sql } from 'drizzle-orm';
+import type { Database } from '../../db/client';
+import { invitations, memberships, organisations, users } from '../../db/schema';
+import type { Role } from '../../../shared/contracts/roles';
+
+export type InvitationRow = typeof invitations.$inferSelect;
+export interface MemberRow {
+  userId: string;
+  email: string;
+  name: string | null;
+  role: Role;
+  joinedAt: Date;
+}
+
+const memberColumns = { userId: users.id, email: users.email, name: users.name, role: memberships.role, joinedAt: memberships.createdAt };
+
+export function listMembers(db: Database, organisationId: string): Promise<MemberRow[]> {
+  return db
+    .select(memberColumns)
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(eq(memberships.organisationId, organisationId))
+    .orderBy(users.email);
+}
+
+export async function findMember(db: Database, organisationId: string, userId: string): Promise<MemberRow | undefined> {
+  const [row] = await db
+    .select(memberColumns)
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(and(eq(memberships.organisationId, organisationId), eq(memberships.userId, userId)))
+    .limit(1);
+  return row;
+}
+
+/**
+ * Sets a member's role. Refuses (returns 'last_admin') to take the admin role from the organisation's last admin;
+ * the admins' rows are locked so two simultaneous changes cannot both pass that check.
+ */
+export function updateMemberRole(db: Database, organisationId: string, userId: string, role: Role): Promise<'updated' | 'not_found' | 'last_admin'> {
+  return db.transaction(async (tx) => {
+    const admins = await tx
+      .select({ userId: memberships.userId })
+      .from(memberships)
+      .where(and(eq(memberships.organisationId, organisationId), eq(memberships.role, 'admin')))
+      .for('update');
+    const [current] = await tx
+      .select({ role: memberships.role })
+      .from(memberships)
+      .where(and(eq(memberships.organisationId, organisationId), eq(memberships.userId, userId)))
+      .for('update');
+    if (!current) return 'not_found';
+    if (current.role === 'admin' && role !== 'admin' && admins.length <= 1) return 'last_admin';
+    await tx
+      .update(memberships)
+      .set({ role })
+      .where(and(eq(memberships.organisationId, organisationId), eq(memberships.userId, userId)));
+    return 'updated';
+  });
+}
+
+export function listInvitations(db: Database, organisationId: string): Promise<InvitationRow[]> {
+  return db.select().from(invitations).where(eq(invitations.organisationId, organisationId)).orderBy(desc(invitations.createdAt)).limit(200);
+}
+
+/** Stores a new invitation, replacing any invitation to the same address that is still open. */
+export function replaceInvitation(
+  db: Database,
+  values: { organisationId: string; email: string; name: string | null; role: Role; tokenHash: string; invitedBy: string; expiresAt: Date },
+): Promise<InvitationRow> {
+  return db.transaction(async (tx) => {
+    await tx
+      .delete(invitations)
+      .where(and(eq(invitations.organisationId, values.organisationId), eq(invitations.email, values.email), isNull(invitations.acceptedAt)));
+    const [row] = await tx.insert(invitations).values(values).returning();
+    return row;
+  });
+}
+
+export async function deleteInvitation(db: Database, id: string): Promise<void> {
+  await db.delete(invitations).where(eq(invitations.id, id));
+}
+
+export async function findInvitationByTokenHash(db: Database, tokenHash: string): Promise<(InvitationRow & { organisationName: string }) | undefined> {
+  const [row] = await db
+    .select({ invitation: invitations, organisationName: organisations.name })
+    .from(invitations)
+    .innerJoin(organisations, eq(organisations.id, invitations.organisationId))
+    .where(eq(invitations.tokenHash, tokenHash))
+    .limit(1);
+  return row ? { ...row.invitation, organisationName: row.organisationName } : undefined;
+}
+
+export type AcceptOutcome =
+  | { outcome: 'accepted'; userId: string; email: string; role: Role; organisationName: string }
+  | { outcome: 'not_found' | 'used' | 'expired' | 'email_taken' };
+
+/** Creates the invited person with the invitation's role and marks the invitation used, all or nothing. */
+export function acceptInvitation(db: Database, tokenHash: string, input: { name: string; passwordHash: string }): Promise<AcceptOutcome> {
+  return db.transaction(async (tx) => {
+    const [invitation] = await tx.select().from(invitations).where(eq(invitations.tokenHash, tokenHash)).for('update');
+    if (!invitation) return { outcome: 'not_found' as const };
+    if (invitation.acceptedAt) return { outcome: 'used' as const };
+    if (invitation.expiresAt.getTime() <= Date.now()) return { outcome: 'expired' as const };
+    const [taken] = await tx.select({ id: users.id }).from(users).where(eq(users.email, invitation.email)).limit(1);
+    if (taken) return { outcome: 'email_taken' as const };
+    const [user] = await tx
+      .insert(users)
+      .values({ email: invitation.email, name: input.name, passwordHash: input.passwordHash, emailVerified: sql`now()` })
+      .returning({ id: users.id });
+    await tx.insert(memberships).values({ organisationId: invitation.organisationId, userId: user.id, role: invitation.role });
+    await tx.update(invitations).set({ acceptedAt: sql`now()` }).where(eq(invitations.id, invitation.id));
+    const [organisation] = await tx.select({ name: organisations.name }).from(organisations).where(eq(organisations.id, invitation.organisationId));
+    return { outcome: 'accepted' as const, userId: user.id, email: invitation.email, role: invitation.role, organisationName: organisation.name };
+  });
+}

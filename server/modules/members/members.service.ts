@@ -1,0 +1,129 @@
+import { createHash, randomBytes } from 'node:crypto';
+import type { Database } from '../../db/client';
+import type { Env } from '../../env';
+import { hashPassword } from '../../auth/password';
+import { HttpError, notFound } from '../../lib/http-error';
+import type { Mailer } from '../../mail/mailer';
+import { invitationMail } from '../../mail/templates';
+import type { CurrentUser } from '../../middleware/auth';
+import type {
+  AcceptInvitationInput,
+  AcceptedInvitation,
+  CreateInvitationInput,
+  Invitation,
+  InvitationPreview,
+  Member,
+  MemberList,
+} from '../../../shared/contracts/members';
+import type { Role } from '../../../shared/contracts/roles';
+import { emailRegistered } from '../users/users.repository';
+import * as repository from './members.repository';
+
+/** How long an invitation link works. */
+export const invitationLifetimeMs = 7 * 24 * 60 * 60 * 1000;
+
+export function hashInvitationToken(token: string): string {
+  return createHash('sha256').update(token).digest('hex');
+}
+
+function toMember(row: repository.MemberRow): Member {
+  return { userId: row.userId, email: row.email, name: row.name ?? row.email, role: row.role, joinedAt: row.joinedAt.toISOString() };
+}
+
+function invitationStatus(row: repository.InvitationRow, now = Date.now()): Invitation['status'] {
+  if (row.acceptedAt) return 'accepted';
+  return row.expiresAt.getTime() <= now ? 'expired' : 'pending';
+}
+
+function toInvitation(row: repository.InvitationRow): Invitation {
+  return {
+    id: row.id,
+    email: row.email,
+    role: row.role,
+    status: invitationStatus(row),
+    createdAt: row.createdAt.toISOString(),
+    expiresAt: row.expiresAt.toISOString(),
+  };
+}
+
+export async function listMembers(db: Database, user: CurrentUser): Promise<MemberList> {
+  const [members, invitations] = await Promise.all([repository.listMembers(db, user.organisationId), repository.listInvitations(db, user.organisationId)]);
+  return { members: members.map(toMember), invitations: invitations.map(toInvitation) };
+}
+
+export async function changeMemberRole(db: Database, user: CurrentUser, userId: string, role: Role): Promise<Member> {
+  const outcome = await repository.updateMemberRole(db, user.organisationId, userId, role);
+  if (outcome === 'not_found') throw notFound('The member', 'member_not_found');
+  if (outcome === 'last_admin') {
+    throw new HttpError(409, 'last_admin', 'The organisation needs at least one admin: make someone else admin first', [
+      { path: 'role', message: 'role: the last admin cannot be given another role' },
+    ]);
+  }
+  const member = await repository.findMember(db, user.organisationId, userId);
+  if (!member) throw notFound('The member', 'member_not_found');
+  return toMember(member);
+}
+
+/** Stores an invitation and mails its link; if the mail cannot be sent, the invitation is withdrawn again. */
+export async function invite(
+  deps: { db: Database; mailer: Mailer; env: Env },
+  user: CurrentUser,
+  input: CreateInvitationInput,
+): Promise<Invitation> {
+  if (await emailRegistered(deps.db, input.email)) {
+    throw new HttpError(409, 'already_registered', `${input.email} already has a Stillspan account`, [
+      { path: 'email', message: 'email: already has an account' },
+    ]);
+  }
+  const token = randomBytes(32).toString('base64url');
+  const expiresAt = new Date(Date.now() + invitationLifetimeMs);
+  const row = await repository.replaceInvitation(deps.db, {
+    organisationId: user.organisationId,
+    email: input.email,
+    name: input.name ?? null,
+    role: input.role,
+    tokenHash: hashInvitationToken(token),
+    invitedBy: user.id,
+    expiresAt,
+  });
+  const link = `${deps.env.appUrl}/invitations/${token}`;
+  try {
+    await deps.mailer.send(
+      invitationMail({ to: input.email, link, organisationName: user.organisationName, inviterName: user.name, role: input.role, expiresAt }),
+    );
+  } catch (error) {
+    await repository.deleteInvitation(deps.db, row.id);
+    throw new HttpError(502, 'mail_failed', `The invitation mail could not be sent (${(error as Error).message}); nothing was stored, try again`);
+  }
+  return toInvitation(row);
+}
+
+async function openInvitation(db: Database, token: string) {
+  const row = await repository.findInvitationByTokenHash(db, hashInvitationToken(token));
+  if (!row) throw notFound('The invitation', 'invitation_not_found');
+  if (row.acceptedAt) throw new HttpError(410, 'invitation_used', 'This invitation has already been used: sign in instead');
+  if (row.expiresAt.getTime() <= Date.now()) throw new HttpError(410, 'invitation_expired', 'This invitation has expired: ask your admin for a new one');
+  return row;
+}
+
+export async function previewInvitation(db: Database, token: string): Promise<InvitationPreview> {
+  const row = await openInvitation(db, token);
+  return { email: row.email, role: row.role, organisationName: row.organisationName };
+}
+
+export async function acceptInvitation(db: Database, token: string, input: AcceptInvitationInput): Promise<AcceptedInvitation> {
+  await openInvitation(db, token);
+  const result = await repository.acceptInvitation(db, hashInvitationToken(token), { name: input.name, passwordHash: await hashPassword(input.password) });
+  switch (result.outcome) {
+    case 'accepted':
+      return { userId: result.userId, email: result.email, role: result.role, organisationName: result.organisationName };
+    case 'not_found':
+      throw notFound('The invitation', 'invitation_not_found');
+    case 'used':
+      throw new HttpError(410, 'invitation_used', 'This invitation has already been used: sign in instead');
+    case 'expired':
+      throw new HttpError(410, 'invitation_expired', 'This invitation has expired: ask your admin for a new one');
+    case 'email_taken':
+      throw new HttpError(409, 'already_registered', 'This e-mail address already has an account: sign in instead');
+  }
+}

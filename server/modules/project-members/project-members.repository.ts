@@ -1,0 +1,46 @@
+import { and, asc, eq } from 'drizzle-orm';
+import type { Database } from '../../db/client';
+import { memberships, projectMembers, users } from '../../db/schema';
+
+const columns = {
+  userId: users.id,
+  email: users.email,
+  name: users.name,
+  role: memberships.role,
+  addedAt: projectMembers.addedAt,
+};
+
+export type ProjectMemberRow = { userId: string; email: string; name: string | null; role: (typeof memberships.$inferSelect)['role']; addedAt: Date };
+
+export function listProjectMembers(db: Database, organisationId: string, projectId: string): Promise<ProjectMemberRow[]> {
+  return db
+    .select(columns)
+    .from(projectMembers)
+    .innerJoin(users, eq(users.id, projectMembers.userId))
+    .innerJoin(memberships, and(eq(memberships.userId, users.id), eq(memberships.organisationId, organisationId)))
+    .where(eq(projectMembers.projectId, projectId))
+    .orderBy(asc(projectMembers.addedAt), asc(users.email));
+}
+
+/** Adds the person (nothing happens when they are already on the project). True when newly added. */
+export async function addProjectMember(db: Database, projectId: string, userId: string): Promise<boolean> {
+  const rows = await db.insert(projectMembers).values({ projectId, userId }).onConflictDoNothing().returning({ userId: projectMembers.userId });
+  return rows.length > 0;
+}
+
+export async function removeProjectMember(db: Database, projectId: string, userId: string): Promise<boolean> {
+  const rows = await db
+    .delete(projectMembers)
+    .where(and(eq(projectMembers.projectId, projectId), eq(projectMembers.userId, userId)))
+    .returning({ userId: projectMembers.userId });
+  return rows.length > 0;
+}
+
+export async function isOrganisationMember(db: Database, organisationId: string, userId: string): Promise<boolean> {
+  const [row] = await db
+    .select({ userId: memberships.userId })
+    .from(memberships)
+    .where(and(eq(memberships.organisationId, organisationId), eq(memberships.userId, userId)))
+    .limit(1);
+  return row !== undefined;
+}

@@ -1,0 +1,41 @@
+import type { Database } from '../../db/client';
+import { invalidField, notFound } from '../../lib/http-error';
+import type { CurrentUser } from '../../middleware/auth';
+import type { ProjectMember } from '../../../shared/contracts/members';
+import { findProject } from '../projects/projects.repository';
+import * as repository from './project-members.repository';
+
+function toProjectMember(row: repository.ProjectMemberRow): ProjectMember {
+  return { userId: row.userId, email: row.email, name: row.name ?? row.email, role: row.role, addedAt: row.addedAt.toISOString() };
+}
+
+async function requireProject(db: Database, user: CurrentUser, projectId: string): Promise<void> {
+  if (!(await findProject(db, user.organisationId, projectId))) throw notFound('The project', 'project_not_found');
+}
+
+export async function listProjectMembers(db: Database, user: CurrentUser, projectId: string): Promise<ProjectMember[]> {
+  await requireProject(db, user, projectId);
+  return (await repository.listProjectMembers(db, user.organisationId, projectId)).map(toProjectMember);
+}
+
+/** Adds a person of the same organisation to the project; returns the member and whether they were new. */
+export async function addProjectMember(
+  db: Database,
+  user: CurrentUser,
+  projectId: string,
+  userId: string,
+): Promise<{ member: ProjectMember; created: boolean }> {
+  await requireProject(db, user, projectId);
+  if (!(await repository.isOrganisationMember(db, user.organisationId, userId))) {
+    throw invalidField('userId', 'is not a member of your organisation');
+  }
+  const created = await repository.addProjectMember(db, projectId, userId);
+  const member = (await repository.listProjectMembers(db, user.organisationId, projectId)).find((row) => row.userId === userId);
+  if (!member) throw notFound('The project member');
+  return { member: toProjectMember(member), created };
+}
+
+export async function removeProjectMember(db: Database, user: CurrentUser, projectId: string, userId: string): Promise<void> {
+  await requireProject(db, user, projectId);
+  if (!(await repository.removeProjectMember(db, projectId, userId))) throw notFound('That person on this project', 'project_member_not_found');
+}

@@ -1,0 +1,61 @@
+import { and, desc, eq, sql } from 'drizzle-orm';
+import type { Database } from '../../db/client';
+import { projectMembers, projects } from '../../db/schema';
+
+export type ProjectRow = typeof projects.$inferSelect;
+type ProjectChanges = Partial<Pick<ProjectRow, 'name' | 'kind' | 'location' | 'description'>>;
+
+export function listProjects(db: Database, organisationId: string): Promise<ProjectRow[]> {
+  return db.select().from(projects).where(eq(projects.organisationId, organisationId)).orderBy(desc(projects.updatedAt), projects.name);
+}
+
+export async function findProject(db: Database, organisationId: string, id: string): Promise<ProjectRow | undefined> {
+  const [row] = await db
+    .select()
+    .from(projects)
+    .where(and(eq(projects.id, id), eq(projects.organisationId, organisationId)))
+    .limit(1);
+  return row;
+}
+
+/** Inserts the project and makes its creator its first member, in one transaction. */
+export function insertProject(
+  db: Database,
+  values: { organisationId: string; createdBy: string; name: string; kind: ProjectRow['kind']; location?: string; description?: string },
+): Promise<ProjectRow> {
+  return db.transaction(async (tx) => {
+    const [row] = await tx
+      .insert(projects)
+      .values({ ...values, location: values.location ?? null, description: values.description ?? null })
+      .returning();
+    await tx.insert(projectMembers).values({ projectId: row.id, userId: values.createdBy });
+    return row;
+  });
+}
+
+/**
+ * Changes the project only if it still has `version`; the version then goes up by one. Returns undefined when no
+ * row matched (absent, another organisation's, or a stale version).
+ */
+export async function updateProjectAtVersion(
+  db: Database,
+  organisationId: string,
+  id: string,
+  version: number,
+  changes: ProjectChanges,
+): Promise<ProjectRow | undefined> {
+  const [row] = await db
+    .update(projects)
+    .set({ ...changes, version: sql`${projects.version} + 1`, updatedAt: sql`now()` })
+    .where(and(eq(projects.id, id), eq(projects.organisationId, organisationId), eq(projects.version, version)))
+    .returning();
+  return row;
+}
+
+export async function deleteProject(db: Database, organisationId: string, id: string): Promise<boolean> {
+  const rows = await db
+    .delete(projects)
+    .where(and(eq(projects.id, id), eq(projects.organisationId, organisationId)))
+    .returning({ id: projects.id });
+  return rows.length > 0;
+}

@@ -1,0 +1,71 @@
+import type { Database } from '../../db/client';
+import { HttpError, notFound } from '../../lib/http-error';
+import type { CurrentUser } from '../../middleware/auth';
+import type { CreateProjectInput, Project, UpdateProjectInput } from '../../../shared/contracts/projects';
+import * as repository from './projects.repository';
+
+export function toProject(row: repository.ProjectRow): Project {
+  return {
+    id: row.id,
+    organisationId: row.organisationId,
+    name: row.name,
+    kind: row.kind,
+    location: row.location,
+    description: row.description,
+    version: row.version,
+    createdAt: row.createdAt.toISOString(),
+    updatedAt: row.updatedAt.toISOString(),
+  };
+}
+
+export async function listProjects(db: Database, user: CurrentUser): Promise<Project[]> {
+  return (await repository.listProjects(db, user.organisationId)).map(toProject);
+}
+
+/** The project if it belongs to the user's organisation; another organisation's project is reported as absent. */
+export async function getProject(db: Database, user: CurrentUser, id: string): Promise<Project> {
+  const row = await repository.findProject(db, user.organisationId, id);
+  if (!row) throw notFound('The project', 'project_not_found');
+  return toProject(row);
+}
+
+export async function createProject(db: Database, user: CurrentUser, input: CreateProjectInput): Promise<Project> {
+  const row = await repository.insertProject(db, {
+    organisationId: user.organisationId,
+    createdBy: user.id,
+    name: input.name,
+    kind: input.kind,
+    location: input.location || undefined,
+    description: input.description || undefined,
+  });
+  return toProject(row);
+}
+
+export async function updateProject(db: Database, user: CurrentUser, id: string, input: UpdateProjectInput): Promise<Project> {
+  const { version, ...fields } = input;
+  const changes = Object.fromEntries(Object.entries(fields).filter(([, value]) => value !== undefined));
+  // An empty optional text is stored as "not given".
+  for (const key of ['location', 'description'] as const) {
+    if (changes[key] === '') changes[key] = null;
+  }
+  if (Object.keys(changes).length === 0) {
+    throw new HttpError(400, 'invalid_request', 'Give at least one of name, kind, location, description to change', [
+      { path: '', message: 'give at least one of name, kind, location, description to change' },
+    ]);
+  }
+  const row = await repository.updateProjectAtVersion(db, user.organisationId, id, version, changes);
+  if (row) return toProject(row);
+  const current = await repository.findProject(db, user.organisationId, id);
+  if (!current) throw notFound('The project', 'project_not_found');
+  throw new HttpError(
+    409,
+    'version_conflict',
+    `The project was changed by someone else (you sent version ${version}, it is now at version ${current.version}); reload it and apply your change again`,
+    [{ path: 'version', message: `version: is ${current.version} now, not ${version}` }],
+  );
+}
+
+export async function deleteProject(db: Database, user: CurrentUser, id: string): Promise<void> {
+  const deleted = await repository.deleteProject(db, user.organisationId, id);
+  if (!deleted) throw notFound('The project', 'project_not_found');
+}
