@@ -96,6 +96,11 @@ export function issuesFor(error: unknown, field: string): ApiIssue[] {
   return error.issues.filter((issue) => issue.path === field || issue.path.startsWith(`${field}.`));
 }
 
+/** An issue's message without the path the server puts in front of it ("name: is required" → "is required"). */
+export function issueMessage(issue: ApiIssue): string {
+  return issue.path && issue.message.startsWith(`${issue.path}: `) ? issue.message.slice(issue.path.length + 2) : issue.message;
+}
+
 /** A sentence for a person, from any error a query or mutation may throw. */
 export function describeError(error: unknown): string {
   if (isApiError(error)) return error.message;

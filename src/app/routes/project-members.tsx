@@ -4,13 +4,19 @@ import { QueryError } from '../../components/ui/query-error';
 import { organisationMembersQueryOptions } from '../../features/members/api/members';
 import { projectMembersQueryOptions } from '../../features/projects/api/projects';
 import { ProjectMembersPanel, type MemberCandidate } from '../../features/projects/components/project-members-panel';
+import { useCurrentUser } from '../session';
 import { useProjectContext } from './project-layout';
 
-/** The project's people; editors may add people of the organisation (the organisation list composes in here). */
+/**
+ * The project's people; editors add people of the organisation. The organisation's list is readable by
+ * administrators only, so only they get the list to choose from.
+ */
 export function ProjectMembersRoute() {
   const { project, canEdit } = useProjectContext();
+  const me = useCurrentUser();
+  const canListOrganisation = canEdit && me.role === 'admin';
   const members = useQuery(projectMembersQueryOptions(project.id));
-  const organisation = useQuery({ ...organisationMembersQueryOptions(), enabled: canEdit });
+  const organisation = useQuery({ ...organisationMembersQueryOptions(), enabled: canListOrganisation });
 
   if (members.isPending) return <Loading label="Loading the project's members…" />;
   if (members.isError) return <QueryError error={members.error} retry={() => void members.refetch()} what="the project's members" />;
@@ -19,7 +25,7 @@ export function ProjectMembersRoute() {
   if (organisation.data) {
     candidates = organisation.data.members.map(({ userId, name, email, role }) => ({ userId, name, email, role }));
   }
-  if (canEdit && organisation.isPending) return <Loading label="Loading the organisation's people…" />;
+  if (canListOrganisation && organisation.isPending) return <Loading label="Loading the organisation's people…" />;
 
   return <ProjectMembersPanel projectId={project.id} members={members.data} canEdit={canEdit} candidates={candidates} />;
 }

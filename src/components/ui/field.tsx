@@ -13,6 +13,11 @@ interface FieldFrameProps {
   children: ReactNode;
 }
 
+/** A rule fragment such as "is required" reads as a sentence with the field's label in front of it. */
+function errorSentence(label: string, error: string): string {
+  return /^[a-z]/.test(error) ? `${label} ${error}` : error;
+}
+
 function FieldFrame({ id, label, hint, error, optional, children }: FieldFrameProps) {
   return (
     <div className="flex flex-col gap-1">
@@ -28,7 +33,7 @@ function FieldFrame({ id, label, hint, error, optional, children }: FieldFramePr
       ) : null}
       {error ? (
         <p id={`${id}-error`} className="text-caption font-medium text-signal-error">
-          {error}
+          {errorSentence(label, error)}
         </p>
       ) : null}
     </div>

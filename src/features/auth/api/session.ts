@@ -1,13 +1,18 @@
+import { z } from 'zod';
 import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import { appConfigSchema, meSchema, type Me } from '../../../../shared/contracts';
 import { apiRequest, isApiError } from '../../../lib/api-client';
 import { signInWithCredentials, signOut } from '../../../lib/auth';
 
-/** The signed-in person, or null when nobody is signed in (the API answers 401). */
+/**
+ * The signed-in person, or null when nobody is signed in. Auth.js's session endpoint answers 200 either way, so a
+ * visitor without a session costs no failed request; /api/me then gives the current role and organisation.
+ */
 export const meQueryOptions = () =>
   queryOptions({
     queryKey: ['me'],
     queryFn: async ({ signal }): Promise<Me | null> => {
+      if (!(await hasSession(signal))) return null;
       try {
         return await apiRequest('/api/me', { schema: meSchema, signal });
       } catch (error) {
@@ -17,6 +22,13 @@ export const meQueryOptions = () =>
     },
     staleTime: 60_000,
   });
+
+const authSessionSchema = z.object({ user: z.object({}).loose().optional() }).loose().nullable();
+
+async function hasSession(signal: AbortSignal): Promise<boolean> {
+  const session = await apiRequest('/api/auth/session', { schema: authSessionSchema, signal });
+  return Boolean(session?.user);
+}
 
 /** How the server runs (demo accounts, development mailbox); it does not change while the page is open. */
 export const appConfigQueryOptions = () =>

@@ -5,7 +5,7 @@ import { acceptInvitationSchema, type AcceptInvitationInput, type InvitationPrev
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
-import { describeError, isApiError } from '../../../lib/api-client';
+import { describeError, isApiError, issueMessage } from '../../../lib/api-client';
 import { formatRole } from '../../../lib/format';
 import { useAcceptInvitation } from '../api/invitations';
 
@@ -35,7 +35,7 @@ export function AcceptInvitationForm({ token, invitation, onAccepted }: AcceptIn
           const issues = isApiError(error) ? error.issues : [];
           const rest: string[] = [];
           for (const issue of issues) {
-            if (issue.path === 'name' || issue.path === 'password') setError(issue.path, { type: 'server', message: issue.message });
+            if (issue.path === 'name' || issue.path === 'password') setError(issue.path, { type: 'server', message: issueMessage(issue) });
             else rest.push(issue.message);
           }
           setFormError(issues.length === 0 ? describeError(error) : rest.length ? rest.join(' ') : null);

@@ -6,7 +6,7 @@ import { createInvitationSchema, roles } from '../../../../shared/contracts';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
-import { describeError, isApiError } from '../../../lib/api-client';
+import { describeError, isApiError, issueMessage } from '../../../lib/api-client';
 import { describeRole, formatRole } from '../../../lib/format';
 import { useInviteMember } from '../api/members';
 
@@ -46,7 +46,7 @@ export function InviteForm() {
         const rest: string[] = [];
         for (const issue of error.issues) {
           const field = inviteFields.find((name) => issue.path === name);
-          if (field) setError(field, { type: 'server', message: issue.message });
+          if (field) setError(field, { type: 'server', message: issueMessage(issue) });
           else rest.push(issue.message);
         }
         setFormError(rest.length ? rest.join(' ') : null);

@@ -1,5 +1,5 @@
 import type { FieldValues, Path, UseFormSetError } from 'react-hook-form';
-import { describeError, isApiError } from '../../../lib/api-client';
+import { describeError, isApiError, issueMessage } from '../../../lib/api-client';
 
 /**
  * Puts the server's `issues[].path` messages under the matching form fields. Returns what is left for a notice
@@ -14,7 +14,7 @@ export function applyServerIssues<T extends FieldValues>(
   const rest: string[] = [];
   for (const issue of error.issues) {
     const field = fields.find((name) => issue.path === name || issue.path.startsWith(`${name}.`));
-    if (field) setError(field, { type: 'server', message: issue.message }, { shouldFocus: true });
+    if (field) setError(field, { type: 'server', message: issueMessage(issue) }, { shouldFocus: true });
     else rest.push(issue.message);
   }
   return rest.length ? rest.join(' ') : null;

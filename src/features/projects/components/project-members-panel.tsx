@@ -92,7 +92,8 @@ function AddProjectMember({ projectId, members, candidates }: { projectId: strin
     return (
       <Panel title="Add a member">
         <p className="text-small text-ink-muted">
-          The organisation&apos;s people could not be listed for you. Ask an administrator to add members to this project.
+          Only an administrator can see the organisation&apos;s full list of people, so an administrator adds new members
+          to this project. You can remove members here.
         </p>
       </Panel>
     );

@@ -1,0 +1,118 @@
+/**
+ * Global set-up of the end-to-end suite: builds the client, starts a throwaway PostgreSQL cluster and the real
+ * server on a free port (the server migrates and seeds the invented demo organisation at start outside
+ * production), waits until it reports healthy, and hands its base URL to the tests (`inject('baseUrl')`).
+ * The teardown stops the server and removes the cluster.
+ */
+import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { createServer } from 'node:net';
+import { dirname, join, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import type {} from 'vitest';
+import type { TestProject } from 'vitest/node';
+import { startThrowawayCluster } from './pg-cluster';
+
+declare module 'vitest' {
+  export interface ProvidedContext {
+    baseUrl: string;
+    resultsDir: string;
+  }
+}
+
+const repoRoot = resolve(dirname(fileURLToPath(import.meta.url)), '..', '..');
+const resultsDir = join(repoRoot, 'test-results', 'e2e');
+const healthTimeoutMs = 60_000;
+
+function freePort(): Promise<number> {
+  return new Promise((resolvePort, reject) => {
+    const probe = createServer();
+    probe.once('error', reject);
+    probe.listen(0, '127.0.0.1', () => {
+      const address = probe.address();
+      const port = typeof address === 'object' && address ? address.port : 0;
+      probe.close(() => resolvePort(port));
+    });
+  });
+}
+
+function buildClient(): void {
+  const result = spawnSync('npx', ['vite', 'build'], { cwd: repoRoot, encoding: 'utf8' });
+  if (result.status !== 0) {
+    throw new Error(`vite build failed (exit ${result.status}):\n${result.stdout}\n${result.stderr}`);
+  }
+}
+
+async function waitForHealth(baseUrl: string, server: ChildProcess, log: () => string): Promise<void> {
+  const deadline = Date.now() + healthTimeoutMs;
+  let last = 'no answer yet';
+  while (Date.now() < deadline) {
+    if (server.exitCode !== null || server.signalCode !== null) {
+      throw new Error(`The server stopped before it became healthy (exit ${server.exitCode ?? server.signalCode}):\n${log()}`);
+    }
+    try {
+      const response = await fetch(`${baseUrl}/api/health`);
+      if (response.ok) return;
+      last = `${response.status} ${await response.text()}`;
+    } catch (error) {
+      last = (error as Error).message;
+    }
+    await new Promise((wait) => setTimeout(wait, 250));
+  }
+  throw new Error(`GET /api/health did not answer 200 within ${healthTimeoutMs / 1000} s (last: ${last}):\n${log()}`);
+}
+
+function stopServer(server: ChildProcess): Promise<void> {
+  if (server.exitCode !== null || server.signalCode !== null) return Promise.resolve();
+  return new Promise((done) => {
+    const force = setTimeout(() => server.kill('SIGKILL'), 10_000);
+    server.once('exit', () => {
+      clearTimeout(force);
+      done();
+    });
+    server.kill('SIGTERM');
+  });
+}
+
+export default async function setup(project: TestProject): Promise<() => Promise<void>> {
+  mkdirSync(resultsDir, { recursive: true });
+  buildClient();
+
+  const cluster = await startThrowawayCluster();
+  let server: ChildProcess | undefined;
+  let output = '';
+  try {
+    const port = await freePort();
+    const baseUrl = `http://127.0.0.1:${port}`;
+    server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+      cwd: repoRoot,
+      env: {
+        ...process.env,
+        NODE_ENV: 'test',
+        DATABASE_URL: cluster.url,
+        PORT: String(port),
+        AUTH_SECRET: randomBytes(32).toString('hex'),
+        APP_URL: baseUrl,
+      },
+      stdio: ['ignore', 'pipe', 'pipe'],
+    });
+    server.stdout?.on('data', (chunk: Buffer) => (output += chunk.toString()));
+    server.stderr?.on('data', (chunk: Buffer) => (output += chunk.toString()));
+    await waitForHealth(baseUrl, server, () => output);
+
+    project.provide('baseUrl', baseUrl);
+    project.provide('resultsDir', resultsDir);
+  } catch (error) {
+    if (server) await stopServer(server);
+    await cluster.stop();
+    throw error;
+  }
+
+  const running = server;
+  return async () => {
+    await stopServer(running);
+    writeFileSync(join(resultsDir, 'server.log'), output);
+    await cluster.stop();
+  };
+}
