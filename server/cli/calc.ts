@@ -1,0 +1,107 @@
+/**
+ * `calc <command> <request.json|->`: runs one compute command on a JSON request and prints the JSON answer.
+ * Exit 0 with the answer on stdout; exit 2 with `{ "error": { code, message, issues } }` as the last line of stderr
+ * for bad input (unknown command, unreadable file, invalid JSON, a request the schema or the mathematics refuses);
+ * exit 1 for an internal failure. The same commands and schemas serve POST /api/compute/<command>.
+ */
+import { readFileSync } from 'node:fs';
+import { computeCommands, getComputeCommand } from '../../shared/compute/commands';
+import { ComputeInputError, errorCodes } from '../../shared/compute/types';
+import { toApiIssues, type ApiErrorBody, type ApiIssue } from '../../shared/contracts/errors';
+
+export interface CalcIo {
+  readStdin(): string;
+  readFile(path: string): string;
+  stdout(text: string): void;
+  stderr(text: string): void;
+}
+
+export const defaultIo: CalcIo = {
+  readStdin: () => readFileSync(0, 'utf8'),
+  readFile: (path) => readFileSync(path, 'utf8'),
+  stdout: (text) => process.stdout.write(text),
+  stderr: (text) => process.stderr.write(text),
+};
+
+export function usage(): string {
+  const names = Object.keys(computeCommands).sort();
+  const lines = [
+    'Usage: npm run --silent calc -- <command> <request.json | ->',
+    '',
+    'Runs one Stillspan compute command on a JSON request (a file, or - for standard input) and prints the JSON',
+    'answer. SI units, named in every field. Exit 0: answer on stdout; exit 2: bad input, the last line of stderr',
+    'is {"error":{"code","message","issues":[{"path","message"}]}}; exit 1: internal failure.',
+    '',
+    'Commands:',
+    ...names.map((name) => `  ${name.padEnd(11)} ${computeCommands[name].summary}`),
+    '',
+    'Results support, and never replace, the judgement of a qualified engineer; local codes and licensed practice govern.',
+  ];
+  return lines.join('\n') + '\n';
+}
+
+function fail(io: CalcIo, code: string, message: string, issues: ApiIssue[], exitCode = 2): number {
+  const body: ApiErrorBody = { error: { code, message, issues } };
+  io.stderr(`${message}\n${JSON.stringify(body)}\n`);
+  return exitCode;
+}
+
+/** Runs `calc` with its arguments (after the script name); returns the exit code. */
+export function runCalc(args: readonly string[], io: CalcIo = defaultIo): number {
+  if (args.length === 1 && (args[0] === '--help' || args[0] === '-h' || args[0] === 'help')) {
+    io.stdout(usage());
+    return 0;
+  }
+  if (args.length !== 2) {
+    io.stderr(usage());
+    return fail(io, errorCodes.invalidRequest, `calc needs exactly two arguments, <command> and <request.json | ->, got ${args.length}`, [
+      { path: '', message: 'usage: calc <command> <request.json | ->' },
+    ]);
+  }
+  const [name, source] = args;
+  const command = getComputeCommand(name);
+  if (!command) {
+    const known = Object.keys(computeCommands).sort().join(', ');
+    return fail(io, errorCodes.unknownCommand, `Unknown command "${name}"; the commands are ${known}`, [
+      { path: '', message: `command: must be one of ${known}` },
+    ]);
+  }
+  let text: string;
+  try {
+    text = source === '-' ? io.readStdin() : io.readFile(source);
+  } catch (error) {
+    const reason = error instanceof Error ? error.message : String(error);
+    return fail(io, errorCodes.unreadableInput, `Cannot read the request ${source === '-' ? 'from standard input' : `file ${source}`}: ${reason}`, [
+      { path: '', message: `request: cannot be read (${reason})` },
+    ]);
+  }
+  let body: unknown;
+  try {
+    body = JSON.parse(text);
+  } catch (error) {
+    const reason = error instanceof Error ? error.message : String(error);
+    return fail(io, errorCodes.unreadableInput, `The request is not valid JSON: ${reason}`, [{ path: '', message: `request: must be valid JSON (${reason})` }]);
+  }
+  const parsed = command.request.safeParse(body);
+  if (!parsed.success) {
+    const issues = toApiIssues(parsed.error);
+    return fail(io, errorCodes.invalidRequest, `Invalid ${name} request: ${issues.map((issue) => issue.message).join('; ')}`, issues);
+  }
+  let answer: unknown;
+  try {
+    answer = command.run(parsed.data);
+  } catch (error) {
+    if (error instanceof ComputeInputError) {
+      return fail(io, errorCodes.invalidRequest, `Invalid ${name} request: ${error.message}`, error.issues);
+    }
+    const reason = error instanceof Error ? error.message : String(error);
+    return fail(io, 'internal_error', `The ${name} command failed: ${reason}`, [], 1);
+  }
+  io.stdout(`${JSON.stringify(answer)}\n`);
+  return 0;
+}
+
+/** Entry point used by server/cli/calc.mjs. */
+export function main(argv: readonly string[] = process.argv.slice(2)): void {
+  process.exitCode = runCalc(argv);
+}

@@ -1,0 +1,173 @@
+import { z } from 'zod';
+
+/**
+ * Requests and answers of the engine's compute commands (`modes`, `tune`, `response`, `free`), the same for the
+ * `calc` command and POST /api/compute/<command>. SI units, named in every field.
+ */
+
+/** Largest matrix accepted by `modes` and `free`. */
+export const MAX_DOF = 400;
+/** Largest number of frequencies in one `response` request, and of times in one `free` request. */
+export const MAX_POINTS = 100_000;
+/** Largest number of dampers on one mode in a `response` request. */
+export const MAX_TMDS = 50;
+/** Relative tolerance of the symmetry check, against the largest entry of the matrix. */
+export const MATRIX_SYMMETRY_TOLERANCE = 1e-9;
+
+const finite = z.number({ error: 'must be a number' });
+const positive = finite.gt(0, { error: 'must be greater than 0' });
+const dampingRatio = finite
+  .min(0, { error: 'must be a damping ratio in [0, 1): at least 0' })
+  .lt(1, { error: 'must be a damping ratio in [0, 1): less than 1' });
+
+const matrix = z
+  .array(z.array(finite, { error: 'must be an array of numbers (a matrix row)' }), { error: 'must be an array of rows (a square matrix)' })
+  .min(1, { error: 'must have at least one row' })
+  .max(MAX_DOF, { error: `must have at most ${MAX_DOF} rows` });
+
+type Issues = z.core.$RefinementCtx;
+
+/** Square shape, and symmetry when the shape is right. Returns the size, or null when the shape is wrong. */
+function checkSquareSymmetric(value: number[][], field: string, ctx: Issues): number | null {
+  const n = value.length;
+  let ok = true;
+  value.forEach((row, i) => {
+    if (row.length !== n) {
+      ctx.addIssue({ code: 'custom', path: [field, i], message: `must have ${n} entries (the matrix has ${n} rows and must be square)` });
+      ok = false;
+    }
+  });
+  if (!ok) return null;
+  let largest = 0;
+  for (const row of value) for (const entry of row) largest = Math.max(largest, Math.abs(entry));
+  const tolerance = MATRIX_SYMMETRY_TOLERANCE * largest;
+  for (let i = 0; i < n; i++) {
+    for (let j = i + 1; j < n; j++) {
+      if (Math.abs(value[i][j] - value[j][i]) > tolerance) {
+        ctx.addIssue({
+          code: 'custom',
+          path: [field, j, i],
+          message: `must equal entry (${i}, ${j}) = ${value[i][j]} (the matrix must be symmetric; got ${value[j][i]})`,
+        });
+      }
+    }
+  }
+  return n;
+}
+
+function checkMassAndStiffness(value: { massMatrixKg: number[][]; stiffnessMatrixNPerM: number[][] }, ctx: Issues): number | null {
+  const n = checkSquareSymmetric(value.massMatrixKg, 'massMatrixKg', ctx);
+  const nk = checkSquareSymmetric(value.stiffnessMatrixNPerM, 'stiffnessMatrixNPerM', ctx);
+  if (n !== null) {
+    value.massMatrixKg.forEach((row, i) => {
+      if (!(row[i] > 0)) ctx.addIssue({ code: 'custom', path: ['massMatrixKg', i, i], message: `must be greater than 0 (a diagonal mass; got ${row[i]})` });
+    });
+  }
+  if (nk !== null) {
+    value.stiffnessMatrixNPerM.forEach((row, i) => {
+      if (row[i] < 0) ctx.addIssue({ code: 'custom', path: ['stiffnessMatrixNPerM', i, i], message: `must be at least 0 (a diagonal stiffness; got ${row[i]})` });
+    });
+  }
+  if (n !== null && nk !== null && n !== nk) {
+    ctx.addIssue({ code: 'custom', path: ['stiffnessMatrixNPerM'], message: `must be ${n}×${n} like massMatrixKg (got ${nk}×${nk})` });
+    return null;
+  }
+  return n !== null && nk !== null ? n : null;
+}
+
+// ---------- modes ----------
+export const modesRequestSchema = z
+  .strictObject({ massMatrixKg: matrix, stiffnessMatrixNPerM: matrix })
+  .superRefine((value, ctx) => {
+    checkMassAndStiffness(value, ctx);
+  });
+export const modeSchema = z.object({
+  frequencyHz: z.number(),
+  angularFrequencyRadPerS: z.number(),
+  shape: z.array(z.number()),
+});
+export const modesResponseSchema = z.object({ modes: z.array(modeSchema) });
+
+// ---------- tune ----------
+export const tuningMethodSchema = z.enum(['den-hartog', 'warburton-random', 'ioi-ikeda', 'hinf', 'h2'], {
+  error: 'must be one of den-hartog, warburton-random, ioi-ikeda, hinf, h2',
+});
+export const tuneRequestSchema = z.strictObject({
+  method: tuningMethodSchema,
+  massRatio: positive.max(1, { error: 'must be at most 1 (the damper heavier than the modal mass)' }),
+  structureFrequencyHz: positive,
+  structureDampingRatio: dampingRatio.default(0),
+});
+export const tuneResponseSchema = z.object({
+  frequencyRatio: z.number(),
+  tmdFrequencyHz: z.number(),
+  tmdDampingRatio: z.number(),
+  peakAmplification: z.number(),
+});
+
+// ---------- response ----------
+export const structureModeSchema = z.strictObject({
+  modalMassKg: positive,
+  frequencyHz: positive,
+  dampingRatio,
+});
+export const tmdSchema = z.strictObject({
+  massKg: positive,
+  frequencyHz: positive,
+  dampingRatio,
+});
+export const responseRequestSchema = z.strictObject({
+  structure: structureModeSchema,
+  tmds: z.array(tmdSchema).max(MAX_TMDS, { error: `must have at most ${MAX_TMDS} dampers` }),
+  forceAmplitudeN: positive,
+  frequenciesHz: z
+    .array(positive)
+    .min(1, { error: 'must have at least one frequency' })
+    .max(MAX_POINTS, { error: `must have at most ${MAX_POINTS} frequencies` }),
+});
+export const responsePointSchema = z.object({
+  frequencyHz: z.number(),
+  structureDisplacementM: z.number(),
+  structureAccelerationMPerS2: z.number(),
+  tmdStrokeM: z.array(z.number()),
+});
+export const responseResponseSchema = z.object({
+  points: z.array(responsePointSchema),
+  peak: z.object({ frequencyHz: z.number(), structureAccelerationMPerS2: z.number() }),
+});
+
+// ---------- free ----------
+export const freeRequestSchema = z
+  .strictObject({
+    massMatrixKg: matrix,
+    stiffnessMatrixNPerM: matrix,
+    initialDisplacementM: z.array(finite),
+    initialVelocityMPerS: z.array(finite),
+    timesS: z
+      .array(finite)
+      .min(1, { error: 'must have at least one time' })
+      .max(MAX_POINTS, { error: `must have at most ${MAX_POINTS} times` }),
+  })
+  .superRefine((value, ctx) => {
+    const n = checkMassAndStiffness(value, ctx);
+    if (n === null) return;
+    for (const field of ['initialDisplacementM', 'initialVelocityMPerS'] as const) {
+      if (value[field].length !== n) {
+        ctx.addIssue({ code: 'custom', path: [field], message: `must have ${n} entries, one per DOF (got ${value[field].length})` });
+      }
+    }
+    if (value.timesS.length * n > 4_000_000) {
+      ctx.addIssue({ code: 'custom', path: ['timesS'], message: `times × DOF must be at most 4,000,000 (got ${value.timesS.length * n})` });
+    }
+  });
+export const freeResponseSchema = z.object({ displacementsM: z.array(z.array(z.number())) });
+
+export type ModesRequest = z.infer<typeof modesRequestSchema>;
+export type ModesResponse = z.infer<typeof modesResponseSchema>;
+export type TuneRequest = z.input<typeof tuneRequestSchema>;
+export type TuneRequestParsed = z.output<typeof tuneRequestSchema>;
+export type TuneResponse = z.infer<typeof tuneResponseSchema>;
+export type ResponseRequest = z.infer<typeof responseRequestSchema>;
+export type ResponseResponse = z.infer<typeof responseResponseSchema>;
+export type FreeRequest = z.infer<typeof freeRequestSchema>;
+export type FreeResponse = z.infer<typeof freeResponseSchema>;
