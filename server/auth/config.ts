@@ -16,6 +16,9 @@ const credentialsSchema = z.object({
   password: z.string().min(1).max(200),
 });
 
+/** Auth.js errors caused by the request, not by the server: answered, not logged. */
+const expectedAuthErrors = new Set(['CredentialsSignin', 'JWTSessionError', 'MissingCSRF', 'UnknownAction']);
+
 /** The token's own claims beside `sub` (the user id). */
 const claimsSchema = z.object({ organisationId: z.string(), role: roleSchema });
 
@@ -70,8 +73,9 @@ export function createAuthConfig(options: { db: Database; secret: string }): Exp
     },
     logger: {
       error(error) {
-        // A wrong password is an answer, not a server fault.
-        if ((error as { type?: string }).type === 'CredentialsSignin') return;
+        // A wrong password, or a stale or forged session cookie, is an answer (401), not a server fault.
+        const type = (error as { type?: string }).type;
+        if (type && expectedAuthErrors.has(type)) return;
         process.stderr.write(`[auth] ${error.name}: ${error.message}\n`);
       },
       warn(code) {

@@ -28,7 +28,7 @@ export type MemberList = z.infer<typeof memberListSchema>;
 
 /** Body of POST /api/organisation/members (and POST /api/organisation/invitations): invite a person by e-mail. */
 export const createInvitationSchema = z.object({
-  email: z.email('must be an e-mail address').trim().toLowerCase(),
+  email: z.string().trim().toLowerCase().pipe(z.email('must be an e-mail address')),
   name: z.string().trim().min(1, 'is required').max(120).optional(),
   role: roleSchema,
 });

@@ -1,0 +1,110 @@
+/**
+ * Sign-in and sign-out through the real Auth.js endpoints (csrf → callback/credentials → session cookie →
+ * signout), GET /api/me, and a role change taking effect without signing in again.
+ */
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { meSchema } from '../../shared/contracts/me';
+import { createTestApp, signIn, testPassword, type TestApp } from '../support/test-app';
+
+let t: TestApp;
+
+beforeAll(async () => {
+  t = await createTestApp();
+});
+
+afterAll(async () => {
+  await t?.close();
+});
+
+describe('sign-in', () => {
+  it('signs in with e-mail and password; the session names the user, organisation and role', async () => {
+    const agent = await signIn(t.app, t.people.engineer.email);
+    const session = await agent.get('/api/auth/session').expect(200);
+    expect(session.body.user).toMatchObject({ email: 'engineer@a.test', id: t.people.engineer.id, role: 'engineer', organisationId: t.organisationA });
+    const me = meSchema.parse((await agent.get('/api/me').expect(200)).body);
+    expect(me).toEqual({
+      id: t.people.engineer.id,
+      email: 'engineer@a.test',
+      name: 'A engineer',
+      role: 'engineer',
+      organisation: { id: t.organisationA, name: 'Test organisation A' },
+    });
+  });
+
+  it('the e-mail is matched without regard to case or surrounding spaces', async () => {
+    const agent = await signIn(t.app, '  Viewer@A.test ');
+    expect((await agent.get('/api/me').expect(200)).body.role).toBe('viewer');
+  });
+
+  it('a wrong password or an unknown e-mail gets no session', async () => {
+    for (const [email, password] of [
+      [t.people.engineer.email, 'not-the-password'],
+      ['nobody@a.test', testPassword],
+    ]) {
+      const agent = request.agent(t.app);
+      const { csrfToken } = (await agent.get('/api/auth/csrf').expect(200)).body as { csrfToken: string };
+      const response = await agent.post('/api/auth/callback/credentials').type('form').send({ csrfToken, email, password });
+      expect(response.status).toBe(302);
+      expect(response.headers.location).toContain('error=CredentialsSignin');
+      await agent.get('/api/me').expect(401);
+    }
+  });
+
+  it('a sign-in without the CSRF token is refused', async () => {
+    const agent = request.agent(t.app);
+    const response = await agent.post('/api/auth/callback/credentials').type('form').send({ email: t.people.engineer.email, password: testPassword });
+    expect(response.headers.location ?? '').toContain('error=MissingCSRF');
+    await agent.get('/api/me').expect(401);
+  });
+
+  it('X-Auth-Return-Redirect gives the SPA a JSON answer instead of a redirect', async () => {
+    const agent = request.agent(t.app);
+    const { csrfToken } = (await agent.get('/api/auth/csrf').expect(200)).body as { csrfToken: string };
+    const response = await agent
+      .post('/api/auth/callback/credentials')
+      .set('X-Auth-Return-Redirect', '1')
+      .type('form')
+      .send({ csrfToken, email: t.people.owner.email, password: testPassword });
+    expect(response.status).toBe(200);
+    expect(typeof response.body.url).toBe('string');
+    expect((await agent.get('/api/me').expect(200)).body.role).toBe('owner');
+  });
+
+  it('a sign-in posted from another site gets 403', async () => {
+    const agent = request.agent(t.app);
+    const { csrfToken } = (await agent.get('/api/auth/csrf').expect(200)).body as { csrfToken: string };
+    const response = await agent
+      .post('/api/auth/callback/credentials')
+      .set('Origin', 'https://elsewhere.example')
+      .type('form')
+      .send({ csrfToken, email: t.people.owner.email, password: testPassword });
+    expect(response.status).toBe(403);
+  });
+});
+
+describe('sign-out', () => {
+  it('ends the session', async () => {
+    const agent = await signIn(t.app, t.people.fabricator.email);
+    await agent.get('/api/me').expect(200);
+    const { csrfToken } = (await agent.get('/api/auth/csrf').expect(200)).body as { csrfToken: string };
+    const response = await agent.post('/api/auth/signout').type('form').send({ csrfToken });
+    expect(response.status).toBe(302);
+    await agent.get('/api/me').expect(401);
+    const session = await agent.get('/api/auth/session').expect(200);
+    expect(session.body).toBeNull();
+  });
+});
+
+describe('roles are read on every request', () => {
+  it('a role changed by an admin applies to an open session at once', async () => {
+    const admin = await signIn(t.app, t.people.admin.email);
+    const person = await signIn(t.app, t.people.owner.email);
+    await person.post('/api/projects').send({ name: 'Before promotion', kind: 'floor' }).expect(403);
+    await admin.patch(`/api/organisation/members/${t.people.owner.id}`).send({ role: 'engineer' }).expect(200);
+    expect((await person.get('/api/me').expect(200)).body.role).toBe('engineer');
+    await person.post('/api/projects').send({ name: 'After promotion', kind: 'floor' }).expect(201);
+    await admin.patch(`/api/organisation/members/${t.people.owner.id}`).send({ role: 'owner' }).expect(200);
+    await person.post('/api/projects').send({ name: 'After demotion', kind: 'floor' }).expect(403);
+  });
+});
