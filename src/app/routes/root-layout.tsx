@@ -21,7 +21,7 @@ export function RootLayoutRoute() {
     nav.push({ to: '/projects', label: 'Projects' });
     if (me.role === 'admin') nav.push({ to: '/members', label: 'Members' });
   }
-  if (config?.devMailbox) nav.push({ to: '/dev/mail', label: 'Mailbox' });
+  if (config?.devMailbox) nav.push({ to: '/dev/mail', label: 'Dev mailbox' });
   nav.push({ to: '/about', label: 'About' });
 
   const account = me ? (

@@ -1,7 +1,7 @@
 import type { ButtonHTMLAttributes, ReactNode } from 'react';
 import { Link, type LinkProps } from 'react-router-dom';
 
-type Tone = 'primary' | 'secondary' | 'quiet' | 'danger';
+type Tone = 'primary' | 'secondary' | 'quiet' | 'danger' | 'danger-outline';
 
 const base =
   'inline-flex items-center justify-center gap-2 rounded-plate px-4 py-2 text-small font-semibold transition-colors ' +
@@ -12,6 +12,7 @@ const tones: Record<Tone, string> = {
   secondary: 'border border-tide-700 bg-paper-raised text-tide-800 hover:bg-tide-50',
   quiet: 'text-tide-800 hover:bg-tide-50 underline-offset-4 hover:underline',
   danger: 'bg-signal-error text-white hover:bg-[#861e23]',
+  'danger-outline': 'border border-signal-error/70 bg-paper-raised text-signal-error hover:bg-signal-error-bg',
 };
 
 export function buttonClass(tone: Tone = 'primary', extra = ''): string {

@@ -69,12 +69,12 @@ export function SignInForm({ config, onSignedIn }: SignInFormProps) {
             ) : null}{' '}
             Choose one to fill in the form.
           </p>
-          <ul className="mt-3 grid gap-2 sm:grid-cols-2">
+          <ul className="mt-3 grid gap-2">
             {demoAccounts.map((account) => (
               <li key={account.email}>
                 <button
                   type="button"
-                  className="flex w-full flex-col rounded-plate border border-paper-line bg-paper-raised px-3 py-2 text-left hover:border-tide-600 hover:bg-tide-50"
+                  className="flex w-full items-baseline justify-between gap-3 rounded-plate border border-paper-line bg-paper-raised px-3 py-2 text-left hover:border-tide-600 hover:bg-tide-50"
                   aria-label={`Use the demo ${formatRole(account.role).toLowerCase()} account ${account.email}`}
                   onClick={() => {
                     setValue('email', account.email, { shouldValidate: true });
@@ -82,7 +82,7 @@ export function SignInForm({ config, onSignedIn }: SignInFormProps) {
                   }}
                 >
                   <span className="text-small font-semibold text-ink">{formatRole(account.role)}</span>
-                  <span className="truncate text-caption text-ink-muted">{account.email}</span>
+                  <span className="truncate text-caption text-ink-soft">{account.email}</span>
                 </button>
               </li>
             ))}

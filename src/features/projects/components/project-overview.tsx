@@ -187,7 +187,7 @@ function DeleteProject({ project, onDeleted }: { project: Project; onDeleted: ()
           </div>
         </div>
       ) : (
-        <Button tone="secondary" onClick={() => setConfirming(true)}>
+        <Button tone="danger-outline" onClick={() => setConfirming(true)}>
           Delete project…
         </Button>
       )}
