@@ -1,0 +1,348 @@
+import { z } from 'zod';
+
+/**
+ * Requests and answers of the design compute commands `assess`, `size` and `robustness` (the same JSON through
+ * `calc` and POST /api/compute/<command>). SI units, the unit in every field name; every damping ratio is referred
+ * to the frequency of the oscillator it belongs to.
+ */
+
+const num = () => z.number({ error: 'must be a number' }).finite('must be a finite number');
+const positive = () => num().positive('must be greater than 0');
+const nonNegative = () => num().min(0, 'must be 0 or greater');
+const fraction = () => num().min(0, 'must be 0 or greater').lt(1, 'must be less than 1');
+const bandHz = () =>
+  z
+    .tuple([positive(), positive()], { error: 'must be a pair [lowHz, highHz] of numbers' })
+    .refine(([lo, hi]) => lo <= hi, 'the first frequency must not exceed the second');
+
+export const directionSchema = z.enum(['vertical', 'lateral', 'longitudinal'], {
+  error: 'must be "vertical", "lateral" or "longitudinal"',
+});
+
+export const designStructureSchema = z.strictObject({
+  modalMassKg: positive(),
+  frequencyHz: positive(),
+  dampingRatio: num().gt(0, 'must be greater than 0 (a structure without damping has an unbounded resonance)').lt(1, 'must be less than 1'),
+  direction: directionSchema.default('vertical'),
+});
+
+export const designTmdSchema = z.strictObject({
+  massKg: positive(),
+  frequencyHz: positive(),
+  dampingRatio: fraction(),
+});
+
+export const crowdGuideSchema = z.enum(['setra', 'hivoss'], { error: 'must be "setra" or "hivoss"' });
+
+const harmonicLoadSchema = z.strictObject({
+  kind: z.literal('harmonic'),
+  modalForceAmplitudeN: positive(),
+  pacingRangeHz: bandHz(),
+});
+
+const gaitFields = {
+  pacingRangeHz: bandHz().optional(),
+  bodyWeightN: positive().optional(),
+  /** |φ| where the person walks, for the unit-max mode shape (default 1, the antinode). */
+  modeShapeValue: positive().max(1, 'must be at most 1 (the mode shape is scaled to 1 at its maximum)').optional(),
+};
+const walkerLoadSchema = z.strictObject({ kind: z.literal('walker'), ...gaitFields });
+const joggerLoadSchema = z.strictObject({ kind: z.literal('jogger'), ...gaitFields });
+
+const crowdFields = {
+  guide: crowdGuideSchema,
+  densityPerM2: positive().optional(),
+  trafficClass: z.string({ error: 'must be a traffic class name' }).optional(),
+  deckAreaM2: positive(),
+  modeShapeMean: positive().max(1, 'must be at most 1 (mean of |φ| for the unit-max mode shape)').optional(),
+};
+const crowdLoadSchema = z.strictObject({ kind: z.literal('crowd'), ...crowdFields });
+const lateralLoadSchema = z.strictObject({
+  kind: z.literal('lateral'),
+  ...crowdFields,
+  lockInCoefficientNsPerM: positive().optional(),
+});
+
+const floorWalkingLoadSchema = z.strictObject({
+  kind: z.literal('floor-walking'),
+  constantForceN: positive().optional(),
+  stepFrequencyRangeHz: bandHz().optional(),
+  harmonicCount: z.number({ error: 'must be a number' }).int('must be a whole number').min(1, 'must be at least 1').max(6, 'must be at most 6').optional(),
+  effectiveWeightN: positive().optional(),
+});
+
+const movingWalkerLoadSchema = z.strictObject({
+  kind: z.literal('moving-walker'),
+  spanM: positive(),
+  gait: z.enum(['walking', 'jogging'], { error: 'must be "walking" or "jogging"' }).optional(),
+  pacingFrequencyHz: positive().optional(),
+  walkingSpeedMPerS: positive().optional(),
+  bodyWeightN: positive().optional(),
+  timeStepS: positive().optional(),
+  trailingTimeS: nonNegative().optional(),
+});
+
+const steadyLoadCases = [
+  harmonicLoadSchema,
+  walkerLoadSchema,
+  joggerLoadSchema,
+  crowdLoadSchema,
+  lateralLoadSchema,
+  floorWalkingLoadSchema,
+] as const;
+
+const loadCaseError = {
+  error: 'must have a "kind" of harmonic, walker, jogger, crowd, lateral, floor-walking or moving-walker',
+};
+export const loadCaseSchema = z.discriminatedUnion('kind', [...steadyLoadCases, movingWalkerLoadSchema], loadCaseError);
+/** Load cases with a steady-state envelope (all but the moving walker), for `size` and `robustness`. */
+export const steadyLoadCaseSchema = z.discriminatedUnion('kind', [...steadyLoadCases], {
+  error: 'must have a "kind" of harmonic, walker, jogger, crowd, lateral or floor-walking',
+});
+
+export const criteriaSchema = z.union(
+  [
+    z.strictObject({ peakAccelerationLimitMPerS2: positive() }),
+    z.discriminatedUnion('set', [
+      z.strictObject({ set: z.literal('setra'), class: z.enum(['maximum', 'mean', 'minimum'], { error: 'must be "maximum", "mean" or "minimum"' }) }),
+      z.strictObject({ set: z.literal('hivoss'), class: z.enum(['CL1', 'CL2', 'CL3'], { error: 'must be "CL1", "CL2" or "CL3"' }) }),
+      z.strictObject({ set: z.literal('en1990'), class: z.enum(['normal-use', 'crowd'], { error: 'must be "normal-use" or "crowd"' }).default('normal-use') }),
+      z.strictObject({
+        set: z.literal('dg11'),
+        class: z.enum(['office', 'shopping-mall', 'indoor-footbridge', 'outdoor-footbridge'], {
+          error: 'must be "office", "shopping-mall", "indoor-footbridge" or "outdoor-footbridge"',
+        }),
+      }),
+      z.strictObject({
+        set: z.literal('iso10137'),
+        class: z.enum(['operating-theatre', 'hospital-ward', 'residential', 'office'], {
+          error: 'must be "operating-theatre", "hospital-ward", "residential" or "office"',
+        }),
+        responseFactor: positive().optional(),
+      }),
+    ], { error: 'must have a "set" of setra, hivoss, en1990, dg11 or iso10137' }),
+  ],
+  { error: 'must be { "peakAccelerationLimitMPerS2" } or { "set", "class" }' },
+);
+
+export const hardwareOptionsSchema = z.strictObject({
+  unitCount: z.number({ error: 'must be a number' }).int('must be a whole number').min(1, 'must be at least 1').max(100, 'must be at most 100').optional(),
+  springsPerUnit: z.number({ error: 'must be a number' }).int('must be a whole number').min(1, 'must be at least 1').max(64, 'must be at most 64').optional(),
+  strokeMarginFactor: num().min(1, 'must be at least 1').max(10, 'must be at most 10').optional(),
+  strokeLimitM: positive().optional(),
+  tuningRangeRatio: num().min(0, 'must be 0 or greater').max(0.5, 'must be at most 0.5').optional(),
+});
+
+function checkLoadCaseAgainstStructure(
+  value: { structure: { direction: string }; loadCase: Record<string, unknown> & { kind: string } },
+  ctx: z.RefinementCtx,
+): void {
+  const lc = value.loadCase;
+  if (lc.kind === 'crowd' || lc.kind === 'lateral') {
+    const hasDensity = lc.densityPerM2 !== undefined;
+    const hasClass = lc.trafficClass !== undefined;
+    if (hasDensity === hasClass) {
+      ctx.addIssue({ code: 'custom', path: ['loadCase', 'densityPerM2'], message: 'give exactly one of densityPerM2 and trafficClass' });
+    }
+    if (hasClass) {
+      const classes = lc.guide === 'setra' ? ['I', 'II', 'III'] : ['TC1', 'TC2', 'TC3', 'TC4', 'TC5'];
+      if (!classes.includes(lc.trafficClass as string)) {
+        ctx.addIssue({ code: 'custom', path: ['loadCase', 'trafficClass'], message: `must be one of ${classes.join(', ')} for guide ${String(lc.guide)}` });
+      }
+    }
+  }
+  if (lc.kind === 'lateral' && value.structure.direction !== 'lateral') {
+    ctx.addIssue({ code: 'custom', path: ['structure', 'direction'], message: 'must be "lateral" for a lateral load case' });
+  }
+  if ((lc.kind === 'floor-walking' || lc.kind === 'jogger' || lc.kind === 'moving-walker') && value.structure.direction !== 'vertical') {
+    ctx.addIssue({ code: 'custom', path: ['structure', 'direction'], message: `must be "vertical" for a ${lc.kind} load case` });
+  }
+}
+
+export const assessRequestSchema = z
+  .strictObject({
+    structure: designStructureSchema,
+    tmds: z.array(designTmdSchema, { error: 'must be an array of dampers' }).max(50, 'must hold at most 50 dampers').default([]),
+    loadCase: loadCaseSchema,
+    criteria: criteriaSchema.optional(),
+    hardware: hardwareOptionsSchema.optional(),
+  })
+  .superRefine(checkLoadCaseAgainstStructure);
+export type AssessRequest = z.infer<typeof assessRequestSchema>;
+
+export const tuningMethodSchema = z.enum(['den-hartog', 'warburton-random', 'ioi-ikeda', 'hinf', 'h2'], {
+  error: 'must be "den-hartog", "warburton-random", "ioi-ikeda", "hinf" or "h2"',
+});
+
+export const sizeRequestSchema = z
+  .strictObject({
+    structure: designStructureSchema,
+    method: tuningMethodSchema,
+    loadCase: steadyLoadCaseSchema,
+    peakAccelerationLimitMPerS2: positive(),
+    structureFrequencyToleranceRatio: num().min(0, 'must be 0 or greater').max(0.5, 'must be at most 0.5').default(0),
+    maxMassRatio: num().gt(0, 'must be greater than 0').max(0.5, 'must be at most 0.5').default(0.25),
+  })
+  .superRefine(checkLoadCaseAgainstStructure);
+export type SizeRequest = z.infer<typeof sizeRequestSchema>;
+
+const factorList = (what: string) =>
+  z
+    .array(nonNegative(), { error: `must be an array of ${what}` })
+    .min(1, 'must hold at least one factor')
+    .max(501, 'must hold at most 501 factors');
+
+export const robustnessRequestSchema = z
+  .strictObject({
+    structure: designStructureSchema,
+    tmds: z.array(designTmdSchema, { error: 'must be an array of dampers' }).min(1, 'must hold one damper').max(50, 'must hold at most 50 dampers'),
+    loadCase: steadyLoadCaseSchema,
+    structureFrequencyFactors: factorList('structure frequency factors').refine((a) => a.every((v) => v > 0), 'every factor must be greater than 0'),
+    tmdDampingFactors: factorList('damper damping factors'),
+  })
+  .superRefine(checkLoadCaseAgainstStructure)
+  .superRefine((value, ctx) => {
+    value.tmds.forEach((t, j) => {
+      value.tmdDampingFactors.forEach((factor, i) => {
+        if (t.dampingRatio * factor >= 1) {
+          ctx.addIssue({ code: 'custom', path: ['tmdDampingFactors', i], message: `makes the damping ratio of tmds.${j} reach 1 or more` });
+        }
+      });
+    });
+  });
+export type RobustnessRequest = z.infer<typeof robustnessRequestSchema>;
+
+// ---- answers ----
+
+export const designWarningSchema = z.object({ code: z.string(), message: z.string() });
+
+export const criterionSchema = z.object({
+  set: z.string(),
+  class: z.string(),
+  label: z.string(),
+  source: z.string(),
+  limitMPerS2: z.number(),
+  atFrequencyHz: z.number(),
+  caution: z.string(),
+});
+
+export const hardwareEntrySchema = z.object({
+  movingMassKg: z.number(),
+  frequencyHz: z.number(),
+  dampingRatio: z.number(),
+  springRateNPerM: z.number(),
+  damperCoefficientNsPerM: z.number(),
+  staticDeflectionM: z.number(),
+  maximumStrokeM: z.number(),
+  strokeMarginFactor: z.number(),
+  designStrokeM: z.number(),
+  strokeLimitM: z.number().nullable(),
+  strokeWithinLimit: z.boolean().nullable(),
+  unitCount: z.number(),
+  springsPerUnit: z.number(),
+  perUnit: z.object({
+    movingMassKg: z.number(),
+    springRateNPerM: z.number(),
+    springRatePerSpringNPerM: z.number(),
+    damperCoefficientNsPerM: z.number(),
+  }),
+  tuningRange: z.object({
+    ratio: z.number(),
+    minFrequencyHz: z.number(),
+    maxFrequencyHz: z.number(),
+    minSpringRateNPerM: z.number(),
+    maxSpringRateNPerM: z.number(),
+    minMovingMassKg: z.number(),
+    maxMovingMassKg: z.number(),
+  }),
+});
+
+export const assessResponseSchema = z.object({
+  peakAccelerationMPerS2: z.number(),
+  atFrequencyHz: z.number(),
+  bareStructurePeakAccelerationMPerS2: z.number(),
+  bareStructureAtFrequencyHz: z.number(),
+  tmdStrokeM: z.array(z.number()),
+  tmdStrokeAtFrequencyHz: z.array(z.number()),
+  /** Modal force amplitude at the frequency of the peak, N. */
+  modalForceAmplitudeN: z.number(),
+  equivalentPedestrians: z.number().optional(),
+  pedestrianCount: z.number().optional(),
+  massRatio: z.number(),
+  verdict: z.enum(['pass', 'fail']).optional(),
+  utilisation: z.number().optional(),
+  bareStructureVerdict: z.enum(['pass', 'fail']).optional(),
+  bareStructureUtilisation: z.number().optional(),
+  criterion: criterionSchema.optional(),
+  comfortClass: z.string().optional(),
+  bareStructureComfortClass: z.string().optional(),
+  loadModel: z.object({
+    kind: z.string(),
+    source: z.string(),
+    bandsHz: z.array(z.tuple([z.number(), z.number()])),
+    structureFrequencyRangeHz: z.tuple([z.number(), z.number()]),
+  }),
+  lockIn: z
+    .object({
+      coefficientNsPerM: z.number(),
+      expectedPedestrians: z.number(),
+      criticalPedestrians: z.number(),
+      bareStructureCriticalPedestrians: z.number(),
+      lockInExpected: z.boolean(),
+      source: z.string(),
+    })
+    .optional(),
+  dg11: z
+    .object({
+      effectiveWeightN: z.number(),
+      constantForceN: z.number(),
+      formulaPeakAccelerationMPerS2: z.number(),
+    })
+    .optional(),
+  timeHistory: z
+    .object({
+      timeStepS: z.number(),
+      timesS: z.array(z.number()),
+      structureAccelerationMPerS2: z.array(z.number()),
+      runningRms1sMPerS2: z.array(z.number()),
+      peakAccelerationMPerS2: z.number(),
+      maxRunningRms1sMPerS2: z.number(),
+      bareStructurePeakAccelerationMPerS2: z.number(),
+      bareStructureMaxRunningRms1sMPerS2: z.number(),
+      steadyStatePeakAccelerationMPerS2: z.number(),
+      pacingFrequencyHz: z.number(),
+      walkingSpeedMPerS: z.number(),
+      crossingTimeS: z.number(),
+    })
+    .optional(),
+  hardware: z.array(hardwareEntrySchema),
+  warnings: z.array(designWarningSchema),
+  caution: z.string(),
+});
+export type AssessResponse = z.infer<typeof assessResponseSchema>;
+
+export const sizeResponseSchema = z.object({
+  massRatio: z.number(),
+  tmd: z.object({ massKg: z.number(), frequencyHz: z.number(), dampingRatio: z.number() }).nullable(),
+  worstPeakAccelerationMPerS2: z.number(),
+  worstAtStructureFrequencyHz: z.number(),
+  bareStructureWorstPeakAccelerationMPerS2: z.number(),
+  structureFrequencyRangeHz: z.tuple([z.number(), z.number()]),
+  peakAccelerationLimitMPerS2: z.number(),
+  method: tuningMethodSchema,
+  evaluations: z.number(),
+  warnings: z.array(designWarningSchema),
+  caution: z.string(),
+});
+export type SizeResponse = z.infer<typeof sizeResponseSchema>;
+
+export const robustnessResponseSchema = z.object({
+  structureFrequencyFactors: z.array(z.number()),
+  tmdDampingFactors: z.array(z.number()),
+  /** Row per structure-frequency factor, column per damper-damping factor. */
+  peakAccelerationMPerS2: z.array(z.array(z.number())),
+  /** Peak of the bare structure per structure-frequency factor. */
+  bareStructurePeakAccelerationMPerS2: z.array(z.number()),
+  warnings: z.array(designWarningSchema),
+});
+export type RobustnessResponse = z.infer<typeof robustnessResponseSchema>;

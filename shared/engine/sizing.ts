@@ -1,0 +1,261 @@
+/**
+ * `size`: the smallest mass ratio μ whose tuned damper keeps the worst peak acceleration within the limit for every
+ * structure frequency in f0 (1 ± r). The damper is tuned once, to the nominal f0 (and ζ_s) by the chosen method of
+ * the engine, and stays put while the structure's frequency moves (detuning by crowds, temperature, as-built
+ * stiffness). worst(μ) = max over f_s in the tolerance band of the continuous peak over the load envelope.
+ * The root of ln(worst(μ) / limit) in ln μ is bracketed and found by the Illinois variant of regula falsi (a
+ * bisection that converges superlinearly), stopped when the bracket is within 0.2 % in μ; the answer is the
+ * feasible end of the bracket, so it meets the limit and is exact to well within 1 % in mass ratio.
+ */
+
+import type { TuningMethod } from './types';
+import { tuneDenHartog, tuneH2, tuneHInfinity, tuneIoiIkeda, tuneWarburtonRandom, type TuningRatios } from './tuning';
+import { buildLoadEnvelope, LoadCaseError, type SteadyLoadCase } from './loads/load-envelope';
+import {
+  coupledNaturalFrequenciesHz,
+  createModeTmdKernel,
+  findEnvelopePeak,
+  maximiseContinuous,
+  type ForceBand,
+  type ModeTmdKernel,
+} from './loads/response-envelope';
+import { designCaution, frequencyRangeWarnings, massRatioWarnings, type DesignStructure, type DesignWarning } from './design';
+
+export interface SizeInput {
+  structure: DesignStructure;
+  method: TuningMethod;
+  loadCase: SteadyLoadCase;
+  peakAccelerationLimitMPerS2: number;
+  structureFrequencyToleranceRatio?: number;
+  /** Upper end of the search (default 0.25). */
+  maxMassRatio?: number;
+}
+
+export interface SizeResult {
+  massRatio: number;
+  tmd: { massKg: number; frequencyHz: number; dampingRatio: number } | null;
+  worstPeakAccelerationMPerS2: number;
+  worstAtStructureFrequencyHz: number;
+  bareStructureWorstPeakAccelerationMPerS2: number;
+  structureFrequencyRangeHz: [number, number];
+  peakAccelerationLimitMPerS2: number;
+  method: TuningMethod;
+  evaluations: number;
+  warnings: DesignWarning[];
+  caution: string;
+}
+
+/** Tuning ratios of one damper by a method of the engine (adapter over shared/engine/tuning). */
+export function tuningRatios(method: TuningMethod, massRatio: number, structureDampingRatio: number): TuningRatios {
+  switch (method) {
+    case 'den-hartog':
+      return tuneDenHartog(massRatio);
+    case 'warburton-random':
+      return tuneWarburtonRandom(massRatio);
+    case 'ioi-ikeda':
+      return tuneIoiIkeda(massRatio, structureDampingRatio);
+    case 'hinf':
+      return tuneHInfinity(massRatio, structureDampingRatio);
+    case 'h2':
+      return tuneH2(massRatio, structureDampingRatio);
+  }
+}
+
+/** Sets the structure frequency of a kernel in place (modal mass and damping ratio unchanged). */
+export function setStructureFrequency(kernel: ModeTmdKernel, frequencyHz: number, dampingRatio: number): void {
+  const w = 2 * Math.PI * frequencyHz;
+  kernel.structureStiffnessNPerM = kernel.structureMassKg * w * w;
+  kernel.structureDampingNsPerM = 2 * dampingRatio * kernel.structureMassKg * w;
+}
+
+/** Worst (largest) envelope peak over structure frequencies in [lo, hi], the kernel's dampers fixed. */
+export function worstPeakOverStructureFrequencies(
+  kernel: ModeTmdKernel,
+  bands: readonly ForceBand[],
+  structureDampingRatio: number,
+  rangeHz: readonly [number, number],
+): { value: number; structureFrequencyHz: number } {
+  const peakAt = (fs: number) => {
+    setStructureFrequency(kernel, fs, structureDampingRatio);
+    return findEnvelopePeak(kernel, bands, 'structureAcceleration', { hintsHz: coupledNaturalFrequenciesHz(kernel) }).value;
+  };
+  if (rangeHz[1] <= rangeHz[0]) return { value: peakAt(rangeHz[0]), structureFrequencyHz: rangeHz[0] };
+  const worst = maximiseContinuous(peakAt, rangeHz[0], rangeHz[1], { samples: 16, relativeTolerance: 1e-5 });
+  return { value: worst.value, structureFrequencyHz: worst.frequencyHz };
+}
+
+interface Trial {
+  mu: number;
+  tmd: { massKg: number; frequencyHz: number; dampingRatio: number };
+  value: number;
+  structureFrequencyHz: number;
+}
+
+/** Closed-form tunings that stand in for the numerical ones while the answer is being located. */
+const proxyMethods: Partial<Record<TuningMethod, TuningMethod>> = { hinf: 'ioi-ikeda', h2: 'warburton-random' };
+
+const bracketTolerance = Math.log(1.002);
+
+/**
+ * Illinois regula falsi on h(x) = ln(worst / limit), x = ln μ, between an infeasible `lo` (h > 0) and a feasible
+ * `hi` (h ≤ 0); returns the feasible end once the bracket is within 0.2 % in μ.
+ */
+function illinois(worstFor: (mu: number) => Trial, limit: number, lo: Trial, hi: Trial): Trial {
+  let xLo = Math.log(lo.mu);
+  let xHi = Math.log(hi.mu);
+  let hLo = Math.log(lo.value / limit);
+  let hHi = Math.log(hi.value / limit);
+  let best = hi;
+  let side = 0;
+  for (let iteration = 0; iteration < 100 && xHi - xLo > bracketTolerance; iteration++) {
+    let x = (xLo * hHi - xHi * hLo) / (hHi - hLo);
+    x = Math.min(Math.max(x, xLo + 0.25 * bracketTolerance), xHi - 0.25 * bracketTolerance);
+    if (!(x > xLo && x < xHi)) x = 0.5 * (xLo + xHi);
+    const trial = worstFor(Math.exp(x));
+    const h = Math.log(trial.value / limit);
+    if (h > 0) {
+      xLo = x;
+      hLo = h;
+      if (side === -1) hHi /= 2;
+      side = -1;
+    } else {
+      xHi = x;
+      hHi = h;
+      best = trial;
+      if (side === 1) hLo /= 2;
+      side = 1;
+    }
+  }
+  return best;
+}
+
+function findMassRatio(worstFor: (mu: number) => Trial, limit: number, minMassRatio: number, feasibleTop: Trial): Trial {
+  const bottom = worstFor(minMassRatio);
+  if (bottom.value <= limit) return bottom;
+  return illinois(worstFor, limit, bottom, feasibleTop);
+}
+
+/** Brackets the answer around a guess by widening steps of 2 %, 4 %, 8 % …, then polishes it. */
+function refineNear(
+  worstFor: (mu: number) => Trial,
+  limit: number,
+  guessMu: number,
+  minMassRatio: number,
+  maxMassRatio: number,
+  feasibleTop: Trial,
+): Trial {
+  const first = worstFor(Math.min(Math.max(guessMu, minMassRatio), maxMassRatio));
+  let lo: Trial | null = null;
+  let hi: Trial | null = null;
+  if (first.value <= limit) hi = first;
+  else lo = first;
+  let step = 0.02;
+  while (!lo || !hi) {
+    if (hi && !lo) {
+      const mu = hi.mu / (1 + step);
+      if (mu <= minMassRatio) {
+        const bottom = worstFor(minMassRatio);
+        if (bottom.value <= limit) return bottom;
+        lo = bottom;
+        break;
+      }
+      const t = worstFor(mu);
+      if (t.value <= limit) hi = t;
+      else lo = t;
+    } else if (lo && !hi) {
+      const mu = lo.mu * (1 + step);
+      if (mu >= maxMassRatio) {
+        hi = feasibleTop;
+        break;
+      }
+      const t = worstFor(mu);
+      if (t.value <= limit) hi = t;
+      else lo = t;
+    }
+    step *= 2;
+  }
+  return illinois(worstFor, limit, lo as Trial, hi as Trial);
+}
+
+export function sizeDamper(input: SizeInput): SizeResult {
+  const { structure, method, loadCase } = input;
+  const limit = input.peakAccelerationLimitMPerS2;
+  const r = input.structureFrequencyToleranceRatio ?? 0;
+  const maxMassRatio = input.maxMassRatio ?? 0.25;
+  const minMassRatio = 1e-4;
+  if (!(limit > 0)) throw new LoadCaseError('peakAccelerationLimitMPerS2', 'peakAccelerationLimitMPerS2 must be greater than 0');
+  if (!(r >= 0 && r < 1)) throw new LoadCaseError('structureFrequencyToleranceRatio', 'structureFrequencyToleranceRatio must be in [0, 1)');
+  const envelope = buildLoadEnvelope(structure, loadCase);
+  const f0 = structure.frequencyHz;
+  const range: [number, number] = [f0 * (1 - r), f0 * (1 + r)];
+  const M = structure.modalMassKg;
+  const zs = structure.dampingRatio;
+  const warnings: DesignWarning[] = [];
+  warnings.push(...frequencyRangeWarnings(f0, envelope));
+  if (r > 0 && (range[0] < envelope.structureFrequencyRangeHz[0] || range[1] > envelope.structureFrequencyRangeHz[1])) {
+    warnings.push({
+      code: 'tolerance-outside-load-model',
+      message: `part of the structure-frequency band ${range[0].toPrecision(4)}–${range[1].toPrecision(4)} Hz lies outside the ${envelope.kind} load model's ${envelope.structureFrequencyRangeHz[0]}–${envelope.structureFrequencyRangeHz[1]} Hz`,
+    });
+  }
+  let evaluations = 0;
+  const bareKernel = createModeTmdKernel(structure, []);
+  const bare = worstPeakOverStructureFrequencies(bareKernel, envelope.bands, zs, range);
+  const kernel = createModeTmdKernel(structure, [{ massKg: M * 0.01, frequencyHz: f0, dampingRatio: 0.05 }]);
+  const worstWith = (tuning: TuningMethod) => (mu: number): Trial => {
+    evaluations++;
+    const ratios = tuningRatios(tuning, mu, zs);
+    const tmd = { massKg: mu * M, frequencyHz: ratios.frequencyRatio * f0, dampingRatio: ratios.tmdDampingRatio };
+    const w = 2 * Math.PI * tmd.frequencyHz;
+    kernel.tmdMassKg[0] = tmd.massKg;
+    kernel.tmdStiffnessNPerM[0] = tmd.massKg * w * w;
+    kernel.tmdDampingNsPerM[0] = 2 * tmd.dampingRatio * tmd.massKg * w;
+    return { mu, tmd, ...worstPeakOverStructureFrequencies(kernel, envelope.bands, zs, range) };
+  };
+  const base = {
+    structureFrequencyRangeHz: range,
+    peakAccelerationLimitMPerS2: limit,
+    method,
+    bareStructureWorstPeakAccelerationMPerS2: bare.value,
+    caution: designCaution,
+  };
+  if (bare.value <= limit) {
+    warnings.push({ code: 'no-damper-needed', message: 'the bare structure already meets the limit over the whole structure-frequency band' });
+    return {
+      ...base, massRatio: 0, tmd: null, worstPeakAccelerationMPerS2: bare.value, worstAtStructureFrequencyHz: bare.structureFrequencyHz,
+      evaluations, warnings,
+    };
+  }
+  const worstFor = worstWith(method);
+  const top = worstFor(maxMassRatio);
+  if (top.value > limit) {
+    throw new LoadCaseError(
+      'peakAccelerationLimitMPerS2',
+      `no damper up to a mass ratio of ${(100 * maxMassRatio).toFixed(1)} % keeps the worst peak (${top.value.toPrecision(4)} m/s² at that mass ratio) within ${limit} m/s²`,
+    );
+  }
+  let found: Trial;
+  const proxy = proxyMethods[method];
+  if (proxy) {
+    // The numerical optimum costs a search per trial: locate the answer with the closed-form tuning that is its
+    // close relative, then bracket and polish with the method itself.
+    const worstProxy = worstWith(proxy);
+    const proxyTop = worstProxy(maxMassRatio);
+    const guess = proxyTop.value > limit ? top : findMassRatio(worstProxy, limit, minMassRatio, proxyTop);
+    found = refineNear(worstFor, limit, guess.mu, minMassRatio, maxMassRatio, top);
+  } else {
+    found = findMassRatio(worstFor, limit, minMassRatio, top);
+  }
+  const hiMu = found.mu;
+  const hiResult = found;
+  warnings.push(...massRatioWarnings(hiMu));
+  return {
+    ...base,
+    massRatio: hiMu,
+    tmd: hiResult.tmd,
+    worstPeakAccelerationMPerS2: hiResult.value,
+    worstAtStructureFrequencyHz: hiResult.structureFrequencyHz,
+    evaluations,
+    warnings,
+  };
+}
