@@ -45,8 +45,8 @@ function listen(server: SMTPServer, port: number, host: string): Promise<void> {
 export async function startFakeSmtp(options: { host?: string; port?: number; log?: (line: string) => void } = {}): Promise<FakeSmtp> {
   const host = options.host ?? '127.0.0.1';
   const mails: DevMail[] = [];
-  const create = () =>
-    new SMTPServer({
+  const create = () => {
+    const created = new SMTPServer({
       authOptional: true,
       disabledCommands: ['STARTTLS', 'AUTH'],
       logger: false,
@@ -70,17 +70,20 @@ export async function startFakeSmtp(options: { host?: string; port?: number; log
           .catch((error: Error) => callback(error));
       },
     });
+    // A failed listen is reported through listen() below; SMTPServer re-emits it as 'error' too.
+    created.on('error', () => undefined);
+    return created;
+  };
   let server = create();
-  server.on('error', (error) => options.log?.(`fake SMTP error: ${error.message}`));
   try {
     await listen(server, options.port ?? 0, host);
   } catch (error) {
     if ((error as NodeJS.ErrnoException).code !== 'EADDRINUSE' || !options.port) throw error;
     server = create();
-    server.on('error', (e) => options.log?.(`fake SMTP error: ${e.message}`));
     await listen(server, 0, host);
     options.log?.(`port ${options.port} is taken; the fake SMTP server uses ${(server.server.address() as AddressInfo).port} instead`);
   }
+  server.on('error', (error) => options.log?.(`fake SMTP error: ${error.message}`));
   const port = (server.server.address() as AddressInfo).port;
   return {
     host,
