@@ -114,12 +114,12 @@ describe('organisation and project team in the browser', () => {
     await page.getByText(inviteeEmail).waitFor();
 
     await page.getByLabel('Your name').fill('Hana Liddell');
-    await page.getByLabel('Choose a password').fill('short');
+    await page.getByLabel('Password').fill('short');
     await page.getByRole('button', { name: 'Join and sign in' }).click();
-    await page.getByText('Choose a password must be at least 10 characters').waitFor();
+    await page.getByText('Password must be at least 10 characters').waitFor();
     await browser.shot('team-06-invitation');
 
-    await page.getByLabel('Choose a password').fill('a-long-invented-passphrase');
+    await page.getByLabel('Password').fill('a-long-invented-passphrase');
     await page.getByRole('button', { name: 'Join and sign in' }).click();
     await page.getByRole('heading', { level: 1, name: 'Projects' }).waitFor();
     const banner = page.getByRole('banner');

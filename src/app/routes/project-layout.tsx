@@ -23,7 +23,7 @@ export function useProjectContext(): ProjectOutletContext {
 
 const sectionLinkClass = (available: boolean) =>
   ({ isActive }: { isActive: boolean }) =>
-    `flex items-center justify-between gap-2 rounded-plate px-3 py-2 text-small transition-colors ${
+    `flex items-center justify-between gap-2 rounded-plate px-3 py-2 text-small ${
       isActive
         ? 'bg-tide-700 font-semibold text-white'
         : available
@@ -91,7 +91,7 @@ export function ProjectLayoutRoute() {
                 >
                   {section.label}
                   {section.available ? null : (
-                    <span className="text-[0.7rem] font-medium uppercase tracking-[0.08em] opacity-80">
+                    <span className="text-[0.7rem] font-medium uppercase tracking-[0.08em]">
                       <span className="sr-only">(</span>soon<span className="sr-only">: not yet available)</span>
                     </span>
                   )}

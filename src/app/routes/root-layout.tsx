@@ -1,5 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
-import { Link, Outlet, useNavigate } from 'react-router-dom';
+import { Link, Outlet, useLocation, useNavigate, useNavigation } from 'react-router-dom';
 import { canEditProjects } from '../../../shared/contracts';
 import { AppShell, type NavItem } from '../../components/layouts/app-shell';
 import { BrandMark } from '../../components/layouts/brand-mark';
@@ -15,6 +15,8 @@ export function RootLayoutRoute() {
   const { data: config } = useQuery(appConfigQueryOptions());
   const signOut = useSignOut();
   const navigate = useNavigate();
+  const location = useLocation();
+  const navigation = useNavigation();
 
   const nav: NavItem[] = [];
   if (me) {
@@ -26,10 +28,12 @@ export function RootLayoutRoute() {
 
   const account = me ? (
     <>
-      <div className="flex flex-col items-end leading-tight">
-        <span className="text-small font-semibold text-ink">{me.name}</span>
-        <span className="flex items-center gap-1.5 text-caption text-ink-muted">
+      <div className="flex min-w-0 flex-col items-end gap-0.5 leading-tight">
+        <span className="flex items-center gap-2 text-small font-semibold text-ink">
+          {me.name}
           <Badge tone={canEditProjects(me.role) ? 'tide' : 'neutral'}>{formatRole(me.role)}</Badge>
+        </span>
+        <span className="max-w-[24rem] truncate text-caption text-ink-muted" title={me.organisation.name}>
           {me.organisation.name}
         </span>
       </div>
@@ -41,7 +45,7 @@ export function RootLayoutRoute() {
         Sign out
       </Button>
     </>
-  ) : (
+  ) : location.pathname === '/sign-in' ? null : (
     <Link to="/sign-in" className={buttonClass('secondary')}>
       Sign in
     </Link>
@@ -49,6 +53,11 @@ export function RootLayoutRoute() {
 
   return (
     <AppShell nav={nav} account={account}>
+      {navigation.state !== 'idle' ? (
+        <div role="progressbar" aria-label="Loading the next page" className="fixed inset-x-0 top-0 z-40 h-1.5 overflow-hidden">
+          <div className="h-full w-1/3 animate-pulse bg-ember-500" />
+        </div>
+      ) : null}
       {signOut.isError ? <p role="alert" className="mb-4 text-small text-signal-error">Sign-out failed. Try again.</p> : null}
       <Outlet />
     </AppShell>

@@ -2,6 +2,7 @@ import { useQuery } from '@tanstack/react-query';
 import { Navigate, useNavigate, useSearchParams } from 'react-router-dom';
 import { appConfigQueryOptions, meQueryOptions } from '../../features/auth/api/session';
 import { SignInForm } from '../../features/auth/components/sign-in-form';
+import { describeRole, formatRole } from '../../lib/format';
 import { safeNextPath } from '../session';
 
 export function SignInRoute() {
@@ -22,6 +23,14 @@ export function SignInRoute() {
           Stillspan is where a design team sizes a tuned mass damper: model the mode, check comfort under pedestrian
           load cases, compare tuning variants and hand the fabricator a sheet that can be built and re-tuned on site.
         </p>
+        <dl className="mt-4 grid max-w-prose gap-3 border-l-4 border-tide-200 pl-5">
+          {(['engineer', 'owner', 'fabricator'] as const).map((role) => (
+            <div key={role}>
+              <dt className="text-small font-semibold text-ink">{formatRole(role)}</dt>
+              <dd className="text-small text-ink-soft">{describeRole(role)}</dd>
+            </div>
+          ))}
+        </dl>
       </div>
       <section aria-labelledby="sign-in-title" className="rounded-plate border border-paper-line bg-paper-raised p-6 shadow-sm sm:p-8">
         <h2 id="sign-in-title" className="mb-6 text-title font-semibold text-ink">

@@ -16,8 +16,8 @@ interface AppShellProps {
 }
 
 const navLinkClass = ({ isActive }: { isActive: boolean }) =>
-  `relative rounded-plate px-3 py-2 text-small font-semibold transition-colors ${
-    isActive ? 'bg-tide-700 text-white' : 'text-ink-soft hover:bg-paper-sunk hover:text-ink'
+  `-mb-px inline-flex items-center border-b-[3px] px-3 py-2.5 text-small font-semibold ${
+    isActive ? 'border-ember-500 text-ink' : 'border-transparent text-ink-soft hover:border-paper-line hover:text-ink'
   }`;
 
 export function AppShell({ nav, account, children }: AppShellProps) {
@@ -31,23 +31,21 @@ export function AppShell({ nav, account, children }: AppShellProps) {
       </a>
       <div className="h-1.5 bg-gradient-to-r from-tide-700 via-tide-500 to-ember-500" aria-hidden="true" />
       <header className="border-b border-paper-line bg-paper-raised">
-        <div className="mx-auto flex max-w-sheet flex-wrap items-center gap-x-8 gap-y-3 px-5 py-3 sm:px-8">
+        <div className="mx-auto flex max-w-sheet flex-wrap items-center justify-between gap-x-8 gap-y-3 px-5 pt-3 sm:px-8">
           <Link to="/" className="flex items-center gap-2 text-tide-800" aria-label="Stillspan, home">
             <BrandMark />
             <span className="text-lead font-bold tracking-[-0.02em]">Stillspan</span>
           </Link>
-          {nav.length ? (
-            <nav aria-label="Main" className="flex flex-1 flex-wrap items-center gap-1">
-              {nav.map((item) => (
-                <NavLink key={item.to} to={item.to} className={navLinkClass}>
-                  {item.label}
-                </NavLink>
-              ))}
-            </nav>
-          ) : (
-            <div className="flex-1" />
-          )}
-          <div className="flex items-center gap-3">{account}</div>
+          <div className="flex min-w-0 items-center gap-3">{account}</div>
+        </div>
+        <div className="mx-auto max-w-sheet px-2 sm:px-5">
+          <nav aria-label="Main" className="flex flex-wrap items-center gap-1 pt-1">
+            {nav.map((item) => (
+              <NavLink key={item.to} to={item.to} className={navLinkClass}>
+                {item.label}
+              </NavLink>
+            ))}
+          </nav>
         </div>
       </header>
       <main id="main" className="mx-auto w-full max-w-sheet flex-1 px-5 py-8 sm:px-8 sm:py-10">

@@ -58,10 +58,10 @@ export function AcceptInvitationForm({ token, invitation, onAccepted }: AcceptIn
       ) : null}
       <TextField label="Your name" autoComplete="name" error={errors.name?.message} {...register('name')} />
       <TextField
-        label="Choose a password"
+        label="Password"
         type="password"
         autoComplete="new-password"
-        hint="At least 10 characters."
+        hint="Choose one of at least 10 characters; you sign in with it and this e-mail address."
         error={errors.password?.message}
         {...register('password')}
       />
