@@ -14,7 +14,7 @@ export const MAX_TMDS = 50;
 /** Relative tolerance of the symmetry check, against the largest entry of the matrix. */
 export const MATRIX_SYMMETRY_TOLERANCE = 1e-9;
 
-const finite = z.number({ error: 'must be a number' });
+const finite = z.number({ error: 'must be a finite number' });
 const positive = finite.gt(0, { error: 'must be greater than 0' });
 const dampingRatio = finite
   .min(0, { error: 'must be a damping ratio in [0, 1): at least 0' })

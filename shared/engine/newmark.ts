@@ -1,7 +1,7 @@
 /**
  * Newmark time integration, average-acceleration variant (γ = 1/2, β = 1/4: unconditionally stable, no numerical
- * damping), of M ẍ + C ẋ + K x = f(t) (Newmark, J. Eng. Mech. Div. ASCE 85, 1959; the incremental form of
- * Chopra, Dynamics of Structures, §15.3). The effective stiffness K̂ = K + γ/(βΔt) C + 1/(βΔt²) M is factored once;
+ * damping), of M ẍ + C ẋ + K x = f(t) (N. M. Newmark, J. Eng. Mech. Div. ASCE 85, 1959; the effective-stiffness form as
+ * in Chopra, Dynamics of Structures). The effective stiffness K̂ = K + γ/(βΔt) C + 1/(βΔt²) M is factored once;
  * each step costs one force evaluation and one pair of triangular solves.
  */
 import { EngineInputError, luFactor, luSolve } from './linalg';

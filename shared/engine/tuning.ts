@@ -37,7 +37,7 @@ function checkStructureDamping(structureDampingRatio: number): void {
   }
 }
 
-/** Den Hartog (Mechanical Vibrations, 4th ed. 1956, §3.3): harmonic force, undamped primary. */
+/** Den Hartog (Mechanical Vibrations, 4th ed. 1956): harmonic force, undamped primary. */
 export function tuneDenHartog(massRatio: number): TuningRatios {
   checkMassRatio(massRatio);
   const mu = massRatio;
