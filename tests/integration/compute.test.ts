@@ -44,6 +44,32 @@ describe('POST /api/compute/:command', () => {
     expect(response.body.error.issues.length).toBeGreaterThan(0);
   });
 
+  it.runIf(names.includes('tune'))('runs a command and returns its JSON answer (Den Hartog tuning)', async () => {
+    const massRatio = 0.02;
+    const response = await viewer.post('/api/compute/tune').send({ method: 'den-hartog', massRatio, structureFrequencyHz: 1.85 });
+    expect(response.status).toBe(200);
+    // Den Hartog, Mechanical Vibrations (1956): f = 1/(1+μ), ζ_a = √(3μ / (8(1+μ))) referred to the damper's own frequency.
+    expect(response.body.frequencyRatio).toBeCloseTo(1 / (1 + massRatio), 6);
+    expect(response.body.tmdFrequencyHz).toBeCloseTo(1.85 / (1 + massRatio), 6);
+    expect(response.body.tmdDampingRatio).toBeCloseTo(Math.sqrt((3 * massRatio) / (8 * (1 + massRatio))), 6);
+  });
+
+  it.runIf(names.includes('modes'))('a request the mathematics refuses (mass matrix not positive definite) is 400 with issues', async () => {
+    const response = await viewer.post('/api/compute/modes').send({
+      massMatrixKg: [
+        [1000, 0],
+        [0, -50],
+      ],
+      stiffnessMatrixNPerM: [
+        [2e5, -1e5],
+        [-1e5, 1e5],
+      ],
+    });
+    expect(response.status).toBe(400);
+    expect(response.body.error.code).toBe('invalid_request');
+    expect(response.body.error.issues.length).toBeGreaterThan(0);
+  });
+
   it('GET /api/compute lists the registered commands', async () => {
     const response = await viewer.get('/api/compute').expect(200);
     expect(response.body.commands.map((c: { name: string }) => c.name).sort()).toEqual(names.sort());

@@ -23,11 +23,8 @@ export function runComputeCommand(name: string, body: unknown): unknown {
   try {
     return command.run(request.data);
   } catch (error) {
+    // The commands turn the engine's input checks into ComputeInputError; anything else is a fault (500), as in `calc`.
     if (error instanceof ComputeInputError) throw new HttpError(400, errorCodes.invalidRequest, error.message, error.issues);
-    if (error instanceof RangeError || error instanceof TypeError) {
-      // The engine checks its inputs and names the rule in the message.
-      throw new HttpError(400, errorCodes.invalidRequest, error.message, [{ path: '', message: error.message }]);
-    }
     throw error;
   }
 }
