@@ -6,17 +6,20 @@ import { z } from 'zod';
  * to the frequency of the oscillator it belongs to.
  */
 
-const num = () => z.number({ error: 'must be a number' }).finite('must be a finite number');
+/** The message of a type error: "is required" when the field is missing, else the expected kind. */
+const typeError = (expected: string) => (issue: { input?: unknown }) => (issue.input === undefined ? 'is required' : expected);
+const num = () => z.number({ error: typeError('must be a number') }).finite('must be a finite number');
+const int = () => z.number({ error: typeError('must be a number') }).int('must be a whole number');
 const positive = () => num().positive('must be greater than 0');
 const nonNegative = () => num().min(0, 'must be 0 or greater');
 const fraction = () => num().min(0, 'must be 0 or greater').lt(1, 'must be less than 1');
 const bandHz = () =>
   z
-    .tuple([positive(), positive()], { error: 'must be a pair [lowHz, highHz] of numbers' })
+    .tuple([positive(), positive()], { error: typeError('must be a pair [lowHz, highHz] of numbers') })
     .refine(([lo, hi]) => lo <= hi, 'the first frequency must not exceed the second');
 
 export const directionSchema = z.enum(['vertical', 'lateral', 'longitudinal'], {
-  error: 'must be "vertical", "lateral" or "longitudinal"',
+  error: typeError('must be "vertical", "lateral" or "longitudinal"'),
 });
 
 export const designStructureSchema = z.strictObject({
@@ -32,7 +35,7 @@ export const designTmdSchema = z.strictObject({
   dampingRatio: fraction(),
 });
 
-export const crowdGuideSchema = z.enum(['setra', 'hivoss'], { error: 'must be "setra" or "hivoss"' });
+export const crowdGuideSchema = z.enum(['setra', 'hivoss'], { error: typeError('must be "setra" or "hivoss"') });
 
 const harmonicLoadSchema = z.strictObject({
   kind: z.literal('harmonic'),
@@ -52,7 +55,7 @@ const joggerLoadSchema = z.strictObject({ kind: z.literal('jogger'), ...gaitFiel
 const crowdFields = {
   guide: crowdGuideSchema,
   densityPerM2: positive().optional(),
-  trafficClass: z.string({ error: 'must be a traffic class name' }).optional(),
+  trafficClass: z.string({ error: typeError('must be a traffic class name') }).optional(),
   deckAreaM2: positive(),
   modeShapeMean: positive().max(1, 'must be at most 1 (mean of |φ| for the unit-max mode shape)').optional(),
 };
@@ -67,14 +70,14 @@ const floorWalkingLoadSchema = z.strictObject({
   kind: z.literal('floor-walking'),
   constantForceN: positive().optional(),
   stepFrequencyRangeHz: bandHz().optional(),
-  harmonicCount: z.number({ error: 'must be a number' }).int('must be a whole number').min(1, 'must be at least 1').max(6, 'must be at most 6').optional(),
+  harmonicCount: int().min(1, 'must be at least 1').max(6, 'must be at most 6').optional(),
   effectiveWeightN: positive().optional(),
 });
 
 const movingWalkerLoadSchema = z.strictObject({
   kind: z.literal('moving-walker'),
   spanM: positive(),
-  gait: z.enum(['walking', 'jogging'], { error: 'must be "walking" or "jogging"' }).optional(),
+  gait: z.enum(['walking', 'jogging'], { error: typeError('must be "walking" or "jogging"') }).optional(),
   pacingFrequencyHz: positive().optional(),
   walkingSpeedMPerS: positive().optional(),
   bodyWeightN: positive().optional(),
@@ -92,42 +95,52 @@ const steadyLoadCases = [
 ] as const;
 
 const loadCaseError = {
-  error: 'must have a "kind" of harmonic, walker, jogger, crowd, lateral, floor-walking or moving-walker',
+  error: typeError('must have a "kind" of harmonic, walker, jogger, crowd, lateral, floor-walking or moving-walker'),
 };
 export const loadCaseSchema = z.discriminatedUnion('kind', [...steadyLoadCases, movingWalkerLoadSchema], loadCaseError);
 /** Load cases with a steady-state envelope (all but the moving walker), for `size` and `robustness`. */
 export const steadyLoadCaseSchema = z.discriminatedUnion('kind', [...steadyLoadCases], {
-  error: 'must have a "kind" of harmonic, walker, jogger, crowd, lateral or floor-walking',
+  error: typeError('must have a "kind" of harmonic, walker, jogger, crowd, lateral or floor-walking'),
 });
 
-export const criteriaSchema = z.union(
+const criteriaSetsSchema = z.discriminatedUnion(
+  'set',
   [
-    z.strictObject({ peakAccelerationLimitMPerS2: positive() }),
-    z.discriminatedUnion('set', [
-      z.strictObject({ set: z.literal('setra'), class: z.enum(['maximum', 'mean', 'minimum'], { error: 'must be "maximum", "mean" or "minimum"' }) }),
-      z.strictObject({ set: z.literal('hivoss'), class: z.enum(['CL1', 'CL2', 'CL3'], { error: 'must be "CL1", "CL2" or "CL3"' }) }),
-      z.strictObject({ set: z.literal('en1990'), class: z.enum(['normal-use', 'crowd'], { error: 'must be "normal-use" or "crowd"' }).default('normal-use') }),
-      z.strictObject({
-        set: z.literal('dg11'),
-        class: z.enum(['office', 'shopping-mall', 'indoor-footbridge', 'outdoor-footbridge'], {
-          error: 'must be "office", "shopping-mall", "indoor-footbridge" or "outdoor-footbridge"',
-        }),
+    z.strictObject({ set: z.literal('custom'), peakAccelerationLimitMPerS2: positive() }),
+    z.strictObject({ set: z.literal('setra'), class: z.enum(['maximum', 'mean', 'minimum'], { error: typeError('must be "maximum", "mean" or "minimum"') }) }),
+    z.strictObject({ set: z.literal('hivoss'), class: z.enum(['CL1', 'CL2', 'CL3'], { error: typeError('must be "CL1", "CL2" or "CL3"') }) }),
+    z.strictObject({ set: z.literal('en1990'), class: z.enum(['normal-use', 'crowd'], { error: typeError('must be "normal-use" or "crowd"') }).default('normal-use') }),
+    z.strictObject({
+      set: z.literal('dg11'),
+      class: z.enum(['office', 'shopping-mall', 'indoor-footbridge', 'outdoor-footbridge'], {
+        error: typeError('must be "office", "shopping-mall", "indoor-footbridge" or "outdoor-footbridge"'),
       }),
-      z.strictObject({
-        set: z.literal('iso10137'),
-        class: z.enum(['operating-theatre', 'hospital-ward', 'residential', 'office'], {
-          error: 'must be "operating-theatre", "hospital-ward", "residential" or "office"',
-        }),
-        responseFactor: positive().optional(),
+    }),
+    z.strictObject({
+      set: z.literal('iso10137'),
+      class: z.enum(['operating-theatre', 'hospital-ward', 'residential', 'office'], {
+        error: typeError('must be "operating-theatre", "hospital-ward", "residential" or "office"'),
       }),
-    ], { error: 'must have a "set" of setra, hivoss, en1990, dg11 or iso10137' }),
+      responseFactor: positive().optional(),
+    }),
   ],
-  { error: 'must be { "peakAccelerationLimitMPerS2" } or { "set", "class" }' },
+  { error: typeError('must be { "peakAccelerationLimitMPerS2" } or have a "set" of setra, hivoss, en1990, dg11, iso10137 or custom') },
+);
+
+/**
+ * Comfort criteria: `{ "peakAccelerationLimitMPerS2" }` (custom numbers, read as set "custom") or `{ "set", "class" }`.
+ */
+export const criteriaSchema = z.preprocess(
+  (value) =>
+    value !== null && typeof value === 'object' && !Array.isArray(value) && !('set' in value) && 'peakAccelerationLimitMPerS2' in value
+      ? { set: 'custom', ...value }
+      : value,
+  criteriaSetsSchema,
 );
 
 export const hardwareOptionsSchema = z.strictObject({
-  unitCount: z.number({ error: 'must be a number' }).int('must be a whole number').min(1, 'must be at least 1').max(100, 'must be at most 100').optional(),
-  springsPerUnit: z.number({ error: 'must be a number' }).int('must be a whole number').min(1, 'must be at least 1').max(64, 'must be at most 64').optional(),
+  unitCount: int().min(1, 'must be at least 1').max(100, 'must be at most 100').optional(),
+  springsPerUnit: int().min(1, 'must be at least 1').max(64, 'must be at most 64').optional(),
   strokeMarginFactor: num().min(1, 'must be at least 1').max(10, 'must be at most 10').optional(),
   strokeLimitM: positive().optional(),
   tuningRangeRatio: num().min(0, 'must be 0 or greater').max(0.5, 'must be at most 0.5').optional(),
@@ -162,7 +175,7 @@ function checkLoadCaseAgainstStructure(
 export const assessRequestSchema = z
   .strictObject({
     structure: designStructureSchema,
-    tmds: z.array(designTmdSchema, { error: 'must be an array of dampers' }).max(50, 'must hold at most 50 dampers').default([]),
+    tmds: z.array(designTmdSchema, { error: typeError('must be an array of dampers') }).max(50, 'must hold at most 50 dampers').default([]),
     loadCase: loadCaseSchema,
     criteria: criteriaSchema.optional(),
     hardware: hardwareOptionsSchema.optional(),
@@ -171,7 +184,7 @@ export const assessRequestSchema = z
 export type AssessRequest = z.infer<typeof assessRequestSchema>;
 
 export const tuningMethodSchema = z.enum(['den-hartog', 'warburton-random', 'ioi-ikeda', 'hinf', 'h2'], {
-  error: 'must be "den-hartog", "warburton-random", "ioi-ikeda", "hinf" or "h2"',
+  error: typeError('must be "den-hartog", "warburton-random", "ioi-ikeda", "hinf" or "h2"'),
 });
 
 export const sizeRequestSchema = z
@@ -188,14 +201,14 @@ export type SizeRequest = z.infer<typeof sizeRequestSchema>;
 
 const factorList = (what: string) =>
   z
-    .array(nonNegative(), { error: `must be an array of ${what}` })
+    .array(nonNegative(), { error: typeError(`must be an array of ${what}`) })
     .min(1, 'must hold at least one factor')
     .max(501, 'must hold at most 501 factors');
 
 export const robustnessRequestSchema = z
   .strictObject({
     structure: designStructureSchema,
-    tmds: z.array(designTmdSchema, { error: 'must be an array of dampers' }).min(1, 'must hold one damper').max(50, 'must hold at most 50 dampers'),
+    tmds: z.array(designTmdSchema, { error: typeError('must be an array of dampers') }).min(1, 'must hold one damper').max(50, 'must hold at most 50 dampers'),
     loadCase: steadyLoadCaseSchema,
     structureFrequencyFactors: factorList('structure frequency factors').refine((a) => a.every((v) => v > 0), 'every factor must be greater than 0'),
     tmdDampingFactors: factorList('damper damping factors'),

@@ -96,7 +96,7 @@ export function iso10137BaseCurveRmsMPerS2(frequencyHz: number, axis: 'vertical'
 const isHorizontal = (direction: LoadDirection) => direction !== 'vertical';
 
 export type CriteriaInput =
-  | { peakAccelerationLimitMPerS2: number }
+  | { set?: 'custom'; peakAccelerationLimitMPerS2: number }
   | { set: 'setra'; class: 'maximum' | 'mean' | 'minimum' }
   | { set: 'hivoss'; class: 'CL1' | 'CL2' | 'CL3' }
   | { set: 'en1990'; class: 'normal-use' | 'crowd' }

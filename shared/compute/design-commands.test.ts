@@ -1,0 +1,77 @@
+import { describe, expect, it } from 'vitest';
+import { z } from 'zod';
+import { designCommands } from './design-commands';
+import { ComputeInputError } from './types';
+import { toApiIssues } from '../contracts/errors';
+
+const structure = { modalMassKg: 40000, frequencyHz: 2.0, dampingRatio: 0.005, direction: 'vertical' };
+const tmds = [{ massKg: 800, frequencyHz: 1.96, dampingRatio: 0.08 }];
+const crowd = { kind: 'crowd', guide: 'setra', densityPerM2: 0.5, deckAreaM2: 150 };
+
+function issuesOf(command: string, body: unknown): { path: string; message: string }[] {
+  const parsed = designCommands[command].request.safeParse(body);
+  if (parsed.success) {
+    try {
+      designCommands[command].run(parsed.data);
+    } catch (error) {
+      if (error instanceof ComputeInputError) return error.issues;
+      throw error;
+    }
+    return [];
+  }
+  return toApiIssues(parsed.error as z.ZodError);
+}
+
+describe('design commands', () => {
+  it('registers assess, size and robustness and their answers match their schemas', () => {
+    const a = designCommands.assess.run(designCommands.assess.request.parse({ structure, tmds, loadCase: crowd, criteria: { set: 'en1990', class: 'normal-use' } }));
+    expect(designCommands.assess.response.safeParse(a).success).toBe(true);
+    const s = designCommands.size.run(designCommands.size.request.parse({ structure, method: 'den-hartog', loadCase: crowd, peakAccelerationLimitMPerS2: 0.7, structureFrequencyToleranceRatio: 0.05 }));
+    expect(designCommands.size.response.safeParse(s).success).toBe(true);
+    const r = designCommands.robustness.run(designCommands.robustness.request.parse({ structure, tmds, loadCase: crowd, structureFrequencyFactors: [0.9, 1, 1.1], tmdDampingFactors: [0.5, 1] }));
+    expect(designCommands.robustness.response.safeParse(r).success).toBe(true);
+    expect(r.peakAccelerationMPerS2).toHaveLength(3);
+    expect(r.peakAccelerationMPerS2[0]).toHaveLength(2);
+  });
+
+  it('defaults: direction vertical, no dampers, size tolerance 0', () => {
+    const parsed = designCommands.assess.request.parse({ structure: { modalMassKg: 1, frequencyHz: 2, dampingRatio: 0.01 }, loadCase: crowd });
+    expect(parsed.structure.direction).toBe('vertical');
+    expect(parsed.tmds).toEqual([]);
+    expect(designCommands.size.request.parse({ structure, method: 'hinf', loadCase: crowd, peakAccelerationLimitMPerS2: 1 }).structureFrequencyToleranceRatio).toBe(0);
+  });
+
+  const bad: Array<[string, string, unknown, string, RegExp]> = [
+    ['string for a number', 'assess', { structure: { ...structure, modalMassKg: '40000' }, tmds, loadCase: crowd }, 'structure.modalMassKg', /must be a number/],
+    ['missing field', 'assess', { structure, tmds, loadCase: { kind: 'crowd', guide: 'setra', densityPerM2: 0.5 } }, 'loadCase.deckAreaM2', /is required/],
+    ['zero damping of the structure', 'assess', { structure: { ...structure, dampingRatio: 0 }, tmds, loadCase: crowd }, 'structure.dampingRatio', /greater than 0/],
+    ['damper damping ratio of 1', 'assess', { structure, tmds: [{ ...tmds[0], dampingRatio: 1 }], loadCase: crowd }, 'tmds.0.dampingRatio', /less than 1/],
+    ['negative damper mass', 'assess', { structure, tmds: [{ ...tmds[0], massKg: -5 }], loadCase: crowd }, 'tmds.0.massKg', /greater than 0/],
+    ['unknown load kind', 'assess', { structure, tmds, loadCase: { kind: 'stampede' } }, 'loadCase.kind', /must have a "kind"/],
+    ['unknown guide', 'assess', { structure, tmds, loadCase: { ...crowd, guide: 'other' } }, 'loadCase.guide', /"setra" or "hivoss"/],
+    ['density and class both given', 'assess', { structure, tmds, loadCase: { ...crowd, trafficClass: 'II' } }, 'loadCase.densityPerM2', /exactly one/],
+    ['traffic class of the other guide', 'assess', { structure, tmds, loadCase: { kind: 'crowd', guide: 'setra', trafficClass: 'TC2', deckAreaM2: 100 } }, 'loadCase.trafficClass', /I, II, III/],
+    ['reversed pacing range', 'assess', { structure, tmds, loadCase: { kind: 'harmonic', modalForceAmplitudeN: 100, pacingRangeHz: [2.4, 1.6] } }, 'loadCase.pacingRangeHz', /must not exceed/],
+    ['lateral case on a vertical mode', 'assess', { structure, tmds, loadCase: { ...crowd, kind: 'lateral' } }, 'structure.direction', /"lateral"/],
+    ['jogger sideways', 'assess', { structure: { ...structure, direction: 'lateral' }, tmds, loadCase: { kind: 'jogger' } }, 'structure.direction', /"vertical"/],
+    ['unknown criteria class', 'assess', { structure, tmds, loadCase: crowd, criteria: { set: 'hivoss', class: 'CL9' } }, 'criteria.class', /CL1/],
+    ['DG11 limits on a lateral mode', 'assess', { structure: { ...structure, direction: 'lateral', frequencyHz: 0.9 }, tmds, loadCase: { ...crowd, kind: 'crowd' }, criteria: { set: 'dg11', class: 'office' } }, 'criteria.set', /vertical modes only/],
+    ['misspelt field', 'assess', { structure, tmds, loadCase: { ...crowd, deckArea: 3 } }, 'loadCase', /Unrecognized key/],
+    ['unknown tuning method', 'size', { structure, method: 'guess', loadCase: crowd, peakAccelerationLimitMPerS2: 0.5 }, 'method', /den-hartog/],
+    ['moving walker in size', 'size', { structure, method: 'hinf', loadCase: { kind: 'moving-walker', spanM: 30 }, peakAccelerationLimitMPerS2: 0.5 }, 'loadCase.kind', /must have a "kind"/],
+    ['unreachable limit', 'size', { structure, method: 'den-hartog', loadCase: crowd, peakAccelerationLimitMPerS2: 1e-5 }, 'peakAccelerationLimitMPerS2', /no damper up to/],
+    ['tolerance too wide', 'size', { structure, method: 'den-hartog', loadCase: crowd, peakAccelerationLimitMPerS2: 0.5, structureFrequencyToleranceRatio: 0.9 }, 'structureFrequencyToleranceRatio', /at most 0.5/],
+    ['no damper in robustness', 'robustness', { structure, tmds: [], loadCase: crowd, structureFrequencyFactors: [1], tmdDampingFactors: [1] }, 'tmds', /one damper/],
+    ['zero structure factor', 'robustness', { structure, tmds, loadCase: crowd, structureFrequencyFactors: [0, 1], tmdDampingFactors: [1] }, 'structureFrequencyFactors', /greater than 0/],
+    ['damping factor reaching ζ = 1', 'robustness', { structure, tmds, loadCase: crowd, structureFrequencyFactors: [1], tmdDampingFactors: [1, 20] }, 'tmdDampingFactors.1', /reach 1/],
+    ['moving walker too long to integrate', 'assess', { structure, tmds, loadCase: { kind: 'moving-walker', spanM: 1e6 } }, 'loadCase.spanM', /time steps/],
+  ];
+  for (const [what, command, body, path, message] of bad) {
+    it(`refuses ${what}, naming ${path}`, () => {
+      const issues = issuesOf(command, body);
+      const hit = issues.find((i) => i.path === path);
+      expect(hit, JSON.stringify(issues)).toBeDefined();
+      expect(hit!.message).toMatch(message);
+    });
+  }
+});

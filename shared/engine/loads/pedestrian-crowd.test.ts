@@ -1,0 +1,60 @@
+import { describe, expect, it } from 'vitest';
+import {
+  crowdModalForceN,
+  crowdPsi,
+  equivalentPedestrianCount,
+  evaluatePsi,
+  findTrafficClass,
+  halfSineModeShapeMean,
+  psiCurves,
+} from './pedestrian-crowd';
+
+describe('reduction coefficient ψ', () => {
+  it('is continuous, within [0, 1] and trapezoidal for every guide and direction', () => {
+    for (const guide of ['setra', 'hivoss'] as const) {
+      for (const direction of ['vertical', 'lateral', 'longitudinal'] as const) {
+        const c = psiCurves[guide][direction];
+        let previous = evaluatePsi(c, 0);
+        for (let f = 0; f <= 4; f += 0.001) {
+          const v = crowdPsi(guide, direction, f);
+          expect(v).toBeGreaterThanOrEqual(0);
+          expect(v).toBeLessThanOrEqual(1);
+          expect(Math.abs(v - previous)).toBeLessThan(0.01);
+          previous = v;
+        }
+        expect(evaluatePsi(c, (c.oneFromHz + c.oneToHz) / 2)).toBe(1);
+        expect(evaluatePsi(c, (c.zeroBelowHz + c.oneFromHz) / 2)).toBeCloseTo(0.5, 12);
+      }
+    }
+  });
+
+  it('keeps the two guides apart (their vertical curves differ)', () => {
+    expect(crowdPsi('setra', 'vertical', 1.2)).toBeGreaterThan(0);
+    expect(crowdPsi('hivoss', 'vertical', 1.2)).toBe(0);
+    expect(crowdPsi('setra', 'vertical', 2.4)).toBeGreaterThan(0);
+    expect(crowdPsi('hivoss', 'vertical', 2.4)).toBe(0);
+  });
+
+  it('refuses a non-finite frequency', () => {
+    expect(() => crowdPsi('setra', 'vertical', Number.NaN)).toThrow(RangeError);
+  });
+});
+
+describe('equivalent number of pedestrians', () => {
+  it('switches formula at 1 person/m²', () => {
+    expect(equivalentPedestrianCount(100, 0.99, 0.01)).toBeCloseTo(10.8, 12);
+    expect(equivalentPedestrianCount(100, 1.0, 0.01)).toBeCloseTo(18.5, 12);
+  });
+  it('refuses negative counts and damping ratios outside [0, 1)', () => {
+    expect(() => equivalentPedestrianCount(-1, 0.5, 0.01)).toThrow(/pedestrianCount/);
+    expect(() => equivalentPedestrianCount(10, 0.5, 1)).toThrow(/dampingRatio/);
+  });
+  it('builds the modal force P ψ n\' mean|φ|', () => {
+    expect(crowdModalForceN('hivoss', 'vertical', 10, halfSineModeShapeMean, 1.9)).toBeCloseTo((280 * 10 * 2) / Math.PI, 9);
+    expect(crowdModalForceN('setra', 'lateral', 10, 1, 0.8)).toBeCloseTo(350, 12);
+  });
+  it('finds traffic classes by guide', () => {
+    expect(findTrafficClass('hivoss', 'TC3')?.densityPerM2).toBe(0.5);
+    expect(findTrafficClass('setra', 'TC3')).toBeUndefined();
+  });
+});

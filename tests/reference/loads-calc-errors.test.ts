@@ -1,0 +1,54 @@
+/**
+ * The `calc` command for the design commands: the same JSON as the compute API, exit 2 with a JSON error naming
+ * the field on bad input (the contract of the calc command). The expected figures are those of the closed-form
+ * crowd resonance (Sétra 2006 n' with ψ = 1), evaluated by hand.
+ */
+import { describe, expect, it } from 'vitest';
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+
+const dir = mkdtempSync(join(tmpdir(), 'stillspan-calc-'));
+function calc(command: string, body: unknown) {
+  const file = join(dir, `${command}-${Math.random().toString(36).slice(2)}.json`);
+  writeFileSync(file, JSON.stringify(body));
+  return spawnSync(process.execPath, ['server/cli/calc.mjs', command, file], { encoding: 'utf8' });
+}
+
+const structure = { modalMassKg: 60000, frequencyHz: 1.9, dampingRatio: 0.006, direction: 'vertical' };
+const crowd = { kind: 'crowd', guide: 'setra', densityPerM2: 0.5, deckAreaM2: 300 };
+
+describe('calc assess / size / robustness', () => {
+  it('assess answers the closed-form crowd resonance', () => {
+    const run = calc('assess', { structure, tmds: [], loadCase: crowd, criteria: { set: 'en1990', class: 'normal-use' } });
+    expect(run.status).toBe(0);
+    const answer = JSON.parse(run.stdout);
+    const closed = (280 * 10.8 * Math.sqrt(0.006 * 150) * (2 / Math.PI)) / (2 * 0.006 * 60000);
+    expect(answer.peakAccelerationMPerS2 / closed).toBeCloseTo(1, 4);
+    expect(answer.criterion.set).toBe('en1990');
+    expect(answer.criterion.limitMPerS2).toBe(0.7);
+    expect(answer.verdict).toBe('fail');
+  }, 30_000);
+
+  it('size and robustness answer', () => {
+    const size = calc('size', { structure, method: 'den-hartog', loadCase: crowd, peakAccelerationLimitMPerS2: 0.7, structureFrequencyToleranceRatio: 0.05 });
+    expect(size.status).toBe(0);
+    expect(JSON.parse(size.stdout).worstPeakAccelerationMPerS2).toBeLessThanOrEqual(0.7);
+    const map = calc('robustness', { structure, tmds: [{ massKg: 1200, frequencyHz: 1.86, dampingRatio: 0.08 }], loadCase: crowd, structureFrequencyFactors: [0.9, 1, 1.1], tmdDampingFactors: [1] });
+    expect(map.status).toBe(0);
+    expect(JSON.parse(map.stdout).peakAccelerationMPerS2).toHaveLength(3);
+  }, 30_000);
+
+  it('exits 2 with a JSON error naming the field (schema rule and a rule only the maths finds)', () => {
+    const bad = calc('assess', { structure: { ...structure, frequencyHz: 'fast' }, tmds: [], loadCase: crowd });
+    expect(bad.status).toBe(2);
+    const last = bad.stderr.trim().split('\n').at(-1) as string;
+    const error = JSON.parse(last).error;
+    expect(error.issues[0].path).toBe('structure.frequencyHz');
+    const impossible = calc('size', { structure, method: 'den-hartog', loadCase: crowd, peakAccelerationLimitMPerS2: 1e-5 });
+    expect(impossible.status).toBe(2);
+    const issues = JSON.parse(impossible.stderr.trim().split('\n').at(-1) as string).error.issues;
+    expect(issues[0].path).toBe('peakAccelerationLimitMPerS2');
+  }, 30_000);
+});

@@ -1,0 +1,94 @@
+/**
+ * Crowd load models of the Sétra (2006) and HiVoSS (2008) footbridge guides.
+ *  - Sétra/AFGC, "Footbridges: assessment of vibrational behaviour of footbridges under pedestrian loading",
+ *    technical guide, October 2006 — traffic classes III (0.5 P/m²) and II (0.8 P/m²), n' = 10.8 √(ξ n), and the
+ *    first-harmonic ψ breakpoints 1.0 / 1.7 / 2.1 / 2.6 Hz vertical and 0.3 / 0.5 / 1.1 / 1.3 Hz lateral were read
+ *    in an excerpt of the guide; class I (1.0 P/m²) with n' = 1.85 √n is from memory.
+ *  - HiVoSS, "Design of footbridges — Guideline" (RFS2-CT-2007-00033, 2008) — traffic classes TC2–TC5
+ *    (0.2 / 0.5 / 1.0 / 1.5 P/m²) seen in a published summary; TC1 (15 persons), the ψ breakpoints
+ *    1.25 / 1.7 / 2.1 / 2.3 Hz (vertical, longitudinal) and 0.5 / 0.7 / 1.0 / 1.2 Hz (lateral) are from memory.
+ *  - Per-person first-harmonic amplitudes 280 N vertical, 140 N longitudinal, 35 N lateral: from memory of both guides.
+ * The expected numbers below are evaluated by hand from those published formulas.
+ */
+import { describe, expect, it } from 'vitest';
+import { crowdPsi, equivalentPedestrianCount, findTrafficClass, pedestrianForceAmplitudeN } from '../../shared/engine/loads/pedestrian-crowd';
+import { assessDesign } from '../../shared/engine/design';
+
+describe('Sétra 2006 ψ (first harmonic)', () => {
+  it('vertical: 0 up to 1.0 Hz, rising to 1 at 1.7 Hz, 1 to 2.1 Hz, 0 from 2.6 Hz', () => {
+    expect(crowdPsi('setra', 'vertical', 0.9)).toBe(0);
+    expect(crowdPsi('setra', 'vertical', 1.0)).toBe(0);
+    expect(crowdPsi('setra', 'vertical', 1.35)).toBeCloseTo(0.5, 12);
+    expect(crowdPsi('setra', 'vertical', 1.7)).toBe(1);
+    expect(crowdPsi('setra', 'vertical', 2.1)).toBe(1);
+    expect(crowdPsi('setra', 'vertical', 2.35)).toBeCloseTo(0.5, 12);
+    expect(crowdPsi('setra', 'vertical', 2.6)).toBe(0);
+  });
+  it('lateral: 0 up to 0.3 Hz, 1 from 0.5 to 1.1 Hz, 0 from 1.3 Hz', () => {
+    expect(crowdPsi('setra', 'lateral', 0.3)).toBe(0);
+    expect(crowdPsi('setra', 'lateral', 0.4)).toBeCloseTo(0.5, 12);
+    expect(crowdPsi('setra', 'lateral', 0.5)).toBe(1);
+    expect(crowdPsi('setra', 'lateral', 1.1)).toBe(1);
+    expect(crowdPsi('setra', 'lateral', 1.2)).toBeCloseTo(0.5, 12);
+    expect(crowdPsi('setra', 'lateral', 1.3)).toBe(0);
+  });
+});
+
+describe('HiVoSS 2008 ψ (from memory)', () => {
+  it('vertical: 1.25 / 1.7 / 2.1 / 2.3 Hz', () => {
+    expect(crowdPsi('hivoss', 'vertical', 1.25)).toBe(0);
+    expect(crowdPsi('hivoss', 'vertical', 1.475)).toBeCloseTo(0.5, 12);
+    expect(crowdPsi('hivoss', 'vertical', 1.9)).toBe(1);
+    expect(crowdPsi('hivoss', 'vertical', 2.2)).toBeCloseTo(0.5, 12);
+    expect(crowdPsi('hivoss', 'vertical', 2.3)).toBe(0);
+    expect(crowdPsi('hivoss', 'longitudinal', 2.2)).toBeCloseTo(0.5, 12);
+  });
+  it('lateral: 0.5 / 0.7 / 1.0 / 1.2 Hz', () => {
+    expect(crowdPsi('hivoss', 'lateral', 0.6)).toBeCloseTo(0.5, 12);
+    expect(crowdPsi('hivoss', 'lateral', 0.85)).toBe(1);
+    expect(crowdPsi('hivoss', 'lateral', 1.1)).toBeCloseTo(0.5, 12);
+  });
+});
+
+describe('density classes and n\'', () => {
+  it('class densities', () => {
+    expect(findTrafficClass('setra', 'III')?.densityPerM2).toBe(0.5);
+    expect(findTrafficClass('setra', 'II')?.densityPerM2).toBe(0.8);
+    expect(findTrafficClass('setra', 'I')?.densityPerM2).toBe(1.0);
+    expect(findTrafficClass('hivoss', 'TC1')?.personCount).toBe(15);
+    expect([2, 3, 4, 5].map((i) => findTrafficClass('hivoss', `TC${i}`)?.densityPerM2)).toEqual([0.2, 0.5, 1.0, 1.5]);
+  });
+  it('n\' = 10.8 √(ζ n) below 1 P/m² and 1.85 √n from 1 P/m² (hand-evaluated)', () => {
+    // 0.8 P/m² on 250 m²: n = 200, ζ = 0.5 %: 10.8 √1 = 10.8.
+    expect(equivalentPedestrianCount(200, 0.8, 0.005)).toBeCloseTo(10.8, 12);
+    // 1.0 P/m² on 400 m²: n = 400: 1.85 × 20 = 37.
+    expect(equivalentPedestrianCount(400, 1.0, 0.005)).toBeCloseTo(37, 12);
+  });
+  it('per-person amplitudes', () => {
+    expect(pedestrianForceAmplitudeN).toEqual({ vertical: 280, longitudinal: 140, lateral: 35 });
+  });
+});
+
+describe('closed-form resonance of a simply supported span under a crowd', () => {
+  // peak = P n' (2/π) / (2 ζ M) with ψ = 1 at f_s (steady resonance of a single-DOF mode: a = F / (2 ζ M)).
+  // Invented span: 1.9 Hz (ψ = 1 for both guides), M = 60 t, ζ = 0.6 %.
+  const structure = { modalMassKg: 60000, frequencyHz: 1.9, dampingRatio: 0.006, direction: 'vertical' as const };
+  for (const guide of ['setra', 'hivoss'] as const) {
+    it(`${guide}: 0.5 P/m² on 300 m²`, () => {
+      const a = assessDesign({ structure, tmds: [], loadCase: { kind: 'crowd', guide, densityPerM2: 0.5, deckAreaM2: 300 } });
+      const nEq = 10.8 * Math.sqrt(0.006 * 150);
+      const closed = (280 * nEq * (2 / Math.PI)) / (2 * 0.006 * 60000);
+      // The continuous maximum of |a(f)| sits a hair above f_s (factor 1/√(1−ζ²) for acceleration).
+      expect(a.peakAccelerationMPerS2 / closed).toBeCloseTo(1 / Math.sqrt(1 - 0.006 ** 2), 6);
+      expect(a.equivalentPedestrians).toBeCloseTo(nEq, 12);
+      expect(a.modalForceAmplitudeN).toBeCloseTo(280 * nEq * (2 / Math.PI), 6);
+      expect(a.atFrequencyHz).toBeCloseTo(1.9, 3);
+    });
+  }
+  it('lateral mode: 35 N per person', () => {
+    const lateral = { modalMassKg: 80000, frequencyHz: 0.8, dampingRatio: 0.008, direction: 'lateral' as const };
+    const a = assessDesign({ structure: lateral, tmds: [], loadCase: { kind: 'crowd', guide: 'setra', densityPerM2: 1.0, deckAreaM2: 324 } });
+    const closed = (35 * 1.85 * 18 * (2 / Math.PI)) / (2 * 0.008 * 80000);
+    expect(a.peakAccelerationMPerS2 / closed).toBeCloseTo(1, 4);
+  });
+});
