@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { solveFreeVibration } from './free-vibration';
-import { randomChain, seededRandom } from './test-helpers';
+import { randomChain, seededRandom } from './test-fixtures';
 
 function energy(massKg: number[][], stiffnessNPerM: number[][], x: ArrayLike<number>, v: ArrayLike<number>): number {
   const n = massKg.length;

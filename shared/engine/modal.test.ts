@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { eigs, sqrtm, inv, multiply } from 'mathjs';
 import { solveModes } from './modal';
-import { randomChain, randomSpdMatrix, seededRandom } from './test-helpers';
+import { randomChain, randomSpdMatrix, seededRandom } from './test-fixtures';
 
 function matVec(a: number[][], x: number[]): number[] {
   return a.map((row) => row.reduce((s, v, j) => s + v * x[j], 0));

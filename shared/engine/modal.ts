@@ -35,17 +35,22 @@ export function solveModes(massKg: SquareMatrixInput, stiffnessNPerM: SquareMatr
   const { n, mass, stiffness } = prepareMassAndStiffness(massKg, stiffnessNPerM, dofCount);
   const l = choleskyLower(mass, n);
   if (!l) throw new EngineInputError('massKg', 'massKg: must be positive definite (its Cholesky factorisation failed)');
-  // W = L⁻¹ K (forward substitution on each column), then A = W L⁻ᵀ = L⁻¹ (L⁻¹ K)ᵀ as K is symmetric.
-  const w = new Float64Array(n * n);
+  // W = L⁻¹ K, then A = L⁻¹ Wᵀ = L⁻¹ K L⁻ᵀ (K symmetric). Row-oriented substitutions: contiguous inner loops.
   const forward = (source: Float64Array, target: Float64Array) => {
-    for (let col = 0; col < n; col++) {
-      for (let i = 0; i < n; i++) {
-        let s = source[i * n + col];
-        for (let k = 0; k < i; k++) s -= l[i * n + k] * target[k * n + col];
-        target[i * n + col] = s / l[i * n + i];
+    for (let i = 0; i < n; i++) {
+      const row = i * n;
+      for (let col = 0; col < n; col++) target[row + col] = source[row + col];
+      for (let k = 0; k < i; k++) {
+        const factor = l[row + k];
+        if (factor === 0) continue;
+        const other = k * n;
+        for (let col = 0; col < n; col++) target[row + col] -= factor * target[other + col];
       }
+      const diagonal = l[row + i];
+      for (let col = 0; col < n; col++) target[row + col] /= diagonal;
     }
   };
+  const w = new Float64Array(n * n);
   forward(stiffness, w);
   const wt = new Float64Array(n * n);
   for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) wt[i * n + j] = w[j * n + i];
@@ -58,26 +63,47 @@ export function solveModes(massKg: SquareMatrixInput, stiffnessNPerM: SquareMatr
     rows[i] = row;
   }
   let values: number[];
-  let vectors: Matrix;
+  let vectors: number[][];
   if (n === 1) {
     values = [rows[0][0]];
-    vectors = new Matrix([[1]]);
+    vectors = [[1]];
   } else {
     const decomposition = new EigenvalueDecomposition(new Matrix(rows), { assumeSymmetric: true });
     values = decomposition.realEigenvalues;
-    vectors = decomposition.eigenvectorMatrix;
+    vectors = decomposition.eigenvectorMatrix.to2DArray();
   }
   let largest = 0;
   for (const value of values) largest = Math.max(largest, Math.abs(value));
   const order = values.map((_, i) => i).sort((p, q) => values[p] - values[q]);
+  // Y (columns = eigenvectors, in frequency order, each scaled to unit length so that φᵀ M φ = yᵀ y = 1).
+  const y = new Float64Array(n * n);
+  for (let r = 0; r < n; r++) {
+    const mode = order[r];
+    let norm = 0;
+    for (let i = 0; i < n; i++) norm += vectors[i][mode] * vectors[i][mode];
+    norm = Math.sqrt(norm);
+    for (let i = 0; i < n; i++) y[i * n + r] = vectors[i][mode] / norm;
+  }
+  // Φ = L⁻ᵀ Y: back substitution with Lᵀ, all modes at once.
+  const phi = new Float64Array(n * n);
+  for (let i = n - 1; i >= 0; i--) {
+    const row = i * n;
+    for (let col = 0; col < n; col++) phi[row + col] = y[row + col];
+    for (let k = i + 1; k < n; k++) {
+      const factor = l[k * n + i];
+      if (factor === 0) continue;
+      const other = k * n;
+      for (let col = 0; col < n; col++) phi[row + col] -= factor * phi[other + col];
+    }
+    const diagonal = l[row + i];
+    for (let col = 0; col < n; col++) phi[row + col] /= diagonal;
+  }
   const eigenvaluesRad2PerS2 = new Float64Array(n);
   const angularFrequencyRadPerS = new Float64Array(n);
   const frequencyHz = new Float64Array(n);
   const shapes: number[][] = new Array(n);
-  const y = new Float64Array(n);
   for (let r = 0; r < n; r++) {
-    const mode = order[r];
-    let lambda = values[mode];
+    let lambda = values[order[r]];
     if (Math.abs(lambda) <= RIGID_BODY_TOLERANCE * largest) lambda = 0;
     if (lambda < 0) {
       throw new EngineInputError(
@@ -88,32 +114,20 @@ export function solveModes(massKg: SquareMatrixInput, stiffnessNPerM: SquareMatr
     eigenvaluesRad2PerS2[r] = lambda;
     angularFrequencyRadPerS[r] = Math.sqrt(lambda);
     frequencyHz[r] = angularFrequencyRadPerS[r] / (2 * Math.PI);
-    for (let i = 0; i < n; i++) y[i] = vectors.get(i, mode);
-    // φ = L⁻ᵀ y (back substitution with Lᵀ).
-    const phi = new Array<number>(n);
-    for (let i = n - 1; i >= 0; i--) {
-      let s = y[i];
-      for (let k = i + 1; k < n; k++) s -= l[k * n + i] * phi[k];
-      phi[i] = s / l[i * n + i];
-    }
-    // Normalise φᵀ M φ = 1 (y is unit length up to rounding) and sign: the largest-magnitude entry positive.
-    let modalMass = 0;
-    for (let i = 0; i < n; i++) {
-      let s = 0;
-      for (let k = 0; k < n; k++) s += mass[i * n + k] * phi[k];
-      modalMass += phi[i] * s;
-    }
+    // Sign: the entry of largest magnitude positive (the first such entry when several tie to 1e-9).
     let pivot = 0;
     let pivotMagnitude = -1;
     for (let i = 0; i < n; i++) {
-      if (Math.abs(phi[i]) > pivotMagnitude * (1 + 1e-9)) {
-        pivotMagnitude = Math.abs(phi[i]);
+      const magnitude = Math.abs(phi[i * n + r]);
+      if (magnitude > pivotMagnitude * (1 + 1e-9)) {
+        pivotMagnitude = magnitude;
         pivot = i;
       }
     }
-    const scale = (phi[pivot] < 0 ? -1 : 1) / Math.sqrt(modalMass);
-    for (let i = 0; i < n; i++) phi[i] *= scale;
-    shapes[r] = phi;
+    const sign = phi[pivot * n + r] < 0 ? -1 : 1;
+    const shape = new Array<number>(n);
+    for (let i = 0; i < n; i++) shape[i] = sign * phi[i * n + r];
+    shapes[r] = shape;
   }
   return { dofCount: n, eigenvaluesRad2PerS2, angularFrequencyRadPerS, frequencyHz, shapes };
 }

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { integrateNewmark } from './newmark';
 import { solveFreeVibration } from './free-vibration';
-import { randomChain, seededRandom } from './test-helpers';
+import { randomChain, seededRandom } from './test-fixtures';
 
 const flat = (a: number[][]) => Float64Array.from(a.flat());
 

@@ -3,7 +3,7 @@ import { createModeTmdPoint, createModeTmdSystem, evaluateModeTmdSystem, evaluat
 import { buildModeTmdMatrices } from './matrices';
 import { solveHarmonicResponse } from './harmonic';
 import { solveModes } from './modal';
-import { randomSpdMatrix, seededRandom } from './test-helpers';
+import { randomSpdMatrix, seededRandom } from './test-fixtures';
 
 describe('single structure mode (no damper)', () => {
   const structure = { modalMassKg: 42000, frequencyHz: 2.07, dampingRatio: 0.007 };

@@ -1,4 +1,4 @@
-/** Helpers for the engine's tests: a seeded generator and random symmetric test matrices (no clock, no Math.random). */
+/** Fixtures for the engine's tests: a seeded generator and random symmetric test matrices (no clock, no Math.random). */
 
 /** Mulberry32: a small seeded 32-bit generator, uniform on [0, 1). */
 export function seededRandom(seed: number): () => number {

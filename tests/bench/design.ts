@@ -1,0 +1,2 @@
+/** Benchmarks of the design engine (loads, criteria, assess, size, robustness). */
+export function runDesignBenchmarks(): void {}
