@@ -5,6 +5,9 @@ import { ApiError } from './api-client';
  * The browser side of the Auth.js Credentials flow on /api/auth: fetch a CSRF token (which also sets its cookie),
  * post the form, and read the JSON `{ url }` answer that the `X-Auth-Return-Redirect` header asks for.
  */
+/** Query key of the signed-in person (null when signed out); a 401 anywhere clears it, which leads to sign-in. */
+export const sessionQueryKey = ['me'] as const;
+
 const csrfSchema = z.object({ csrfToken: z.string().min(1) });
 const redirectSchema = z.object({ url: z.string() });
 

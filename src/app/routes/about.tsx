@@ -4,10 +4,12 @@ import { PageHeader } from '../../components/ui/page-header';
 import { Panel } from '../../components/ui/panel';
 import { Table, Td, Th } from '../../components/ui/table';
 import { describeRole, formatRole } from '../../lib/format';
+import { PageTitle } from '../../components/ui/page-title';
 
 export function AboutRoute() {
   return (
     <div className="flex flex-col gap-8">
+      <PageTitle title="About" />
       <PageHeader
         eyebrow="About"
         title="Stillspan"

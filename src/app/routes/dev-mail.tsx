@@ -2,6 +2,7 @@ import { useQuery } from '@tanstack/react-query';
 import { Loading } from '../../components/ui/loading';
 import { Notice } from '../../components/ui/notice';
 import { PageHeader } from '../../components/ui/page-header';
+import { PageTitle } from '../../components/ui/page-title';
 import { QueryError } from '../../components/ui/query-error';
 import { appConfigQueryOptions } from '../../features/auth/api/session';
 import { devMailQueryOptions } from '../../features/dev-mail/api/dev-mail';
@@ -18,6 +19,7 @@ export function DevMailRoute() {
 
   return (
     <div className="flex flex-col gap-8">
+      <PageTitle title="Dev mailbox" />
       <PageHeader
         eyebrow={`${config?.mode ?? 'development'} server`}
         title="Mailbox"

@@ -8,6 +8,7 @@ import { meQueryOptions } from '../../features/auth/api/session';
 import { invitationQueryOptions } from '../../features/invitations/api/invitations';
 import { AcceptInvitationForm } from '../../features/invitations/components/accept-invitation-form';
 import { isApiError } from '../../lib/api-client';
+import { PageTitle } from '../../components/ui/page-title';
 
 export function InvitationRoute() {
   const { token = '' } = useParams();
@@ -58,6 +59,7 @@ export function InvitationRoute() {
 
   return (
     <div className="mx-auto w-full max-w-lg">
+      <PageTitle title="Join" />
       <section aria-labelledby="invitation-title" className="rounded-plate border border-paper-line bg-paper-raised p-6 shadow-sm sm:p-8">
         <h1 id="invitation-title" className="mb-4 text-title font-semibold text-ink">
           Join Stillspan

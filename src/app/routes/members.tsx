@@ -9,6 +9,7 @@ import { InvitationsTable } from '../../features/members/components/invitations-
 import { InviteForm } from '../../features/members/components/invite-form';
 import { MembersTable } from '../../features/members/components/members-table';
 import { useCurrentUser } from '../session';
+import { PageTitle } from '../../components/ui/page-title';
 
 export function MembersRoute() {
   const me = useCurrentUser();
@@ -17,6 +18,7 @@ export function MembersRoute() {
 
   return (
     <div className="flex flex-col gap-8">
+      <PageTitle title="Members" />
       <PageHeader eyebrow={me.organisation.name} title="Members" lead="The organisation's people, their roles and the invitations still open." />
       {!isAdmin ? (
         <Notice tone="caution" title="Administrators only">

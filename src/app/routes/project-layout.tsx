@@ -4,6 +4,7 @@ import { canEditProjects, type Project } from '../../../shared/contracts';
 import { Badge } from '../../components/ui/badge';
 import { buttonClass } from '../../components/ui/button';
 import { Loading } from '../../components/ui/loading';
+import { PageTitle } from '../../components/ui/page-title';
 import { QueryError } from '../../components/ui/query-error';
 import { projectQueryOptions } from '../../features/projects/api/projects';
 import { projectSections } from '../../features/projects/components/project-sections';
@@ -62,6 +63,7 @@ export function ProjectLayoutRoute() {
 
   return (
     <div className="flex flex-col gap-8">
+      <PageTitle title={project.data.name} />
       <header className="flex flex-col gap-2 border-b border-paper-line pb-6">
         <nav aria-label="Breadcrumb" className="text-small">
           <Link to="/projects" className="font-medium text-tide-800 underline-offset-4 hover:underline">

@@ -12,6 +12,7 @@ import { projectsQueryOptions } from '../../features/projects/api/projects';
 import { CreateProjectForm } from '../../features/projects/components/create-project-form';
 import { ProjectList } from '../../features/projects/components/project-list';
 import { useCurrentUser } from '../session';
+import { PageTitle } from '../../components/ui/page-title';
 
 export function ProjectsRoute() {
   const me = useCurrentUser();
@@ -22,6 +23,7 @@ export function ProjectsRoute() {
 
   return (
     <div className="flex flex-col gap-8">
+      <PageTitle title="Projects" />
       <PageHeader
         eyebrow={me.organisation.name}
         title="Projects"

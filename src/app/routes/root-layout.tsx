@@ -33,7 +33,7 @@ export function RootLayoutRoute() {
           {me.name}
           <Badge tone={canEditProjects(me.role) ? 'tide' : 'neutral'}>{formatRole(me.role)}</Badge>
         </span>
-        <span className="max-w-[24rem] truncate text-caption text-ink-muted" title={me.organisation.name}>
+        <span className="max-w-[min(24rem,100%)] truncate text-caption text-ink-muted" title={me.organisation.name}>
           {me.organisation.name}
         </span>
       </div>

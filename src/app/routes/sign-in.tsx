@@ -4,6 +4,7 @@ import { appConfigQueryOptions, meQueryOptions } from '../../features/auth/api/s
 import { SignInForm } from '../../features/auth/components/sign-in-form';
 import { describeRole, formatRole } from '../../lib/format';
 import { safeNextPath } from '../session';
+import { PageTitle } from '../../components/ui/page-title';
 
 export function SignInRoute() {
   const { data: me } = useQuery(meQueryOptions());
@@ -16,6 +17,7 @@ export function SignInRoute() {
 
   return (
     <div className="grid gap-10 md:grid-cols-[1fr_minmax(0,28rem)] md:items-start">
+      <PageTitle title="Sign in" />
       <div className="flex flex-col gap-4 pt-2">
         <p className="text-caption font-semibold uppercase tracking-[0.12em] text-ember-600">Footbridges and long-span floors</p>
         <h1 className="text-display font-semibold text-ink">Keep lively structures calm.</h1>

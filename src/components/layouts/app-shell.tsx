@@ -36,7 +36,7 @@ export function AppShell({ nav, account, children }: AppShellProps) {
             <BrandMark />
             <span className="text-lead font-bold tracking-[-0.02em]">Stillspan</span>
           </Link>
-          <div className="flex min-w-0 items-center gap-3">{account}</div>
+          <div className="flex min-w-0 max-w-full items-center gap-3">{account}</div>
         </div>
         <div className="mx-auto max-w-sheet px-2 sm:px-5">
           <nav aria-label="Main" className="flex flex-wrap items-center gap-1 pt-1">

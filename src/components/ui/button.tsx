@@ -4,7 +4,7 @@ import { Link, type LinkProps } from 'react-router-dom';
 type Tone = 'primary' | 'secondary' | 'quiet' | 'danger' | 'danger-outline';
 
 const base =
-  'inline-flex items-center justify-center gap-2 rounded-plate px-4 py-2 text-small font-semibold transition-colors ' +
+  'inline-flex items-center justify-center gap-2 whitespace-nowrap rounded-plate px-4 py-2 text-small font-semibold transition-colors ' +
   'disabled:cursor-not-allowed disabled:opacity-60';
 
 const tones: Record<Tone, string> = {

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import { appConfigSchema, meSchema, type Me } from '../../../../shared/contracts';
 import { apiRequest, isApiError } from '../../../lib/api-client';
-import { signInWithCredentials, signOut } from '../../../lib/auth';
+import { sessionQueryKey, signInWithCredentials, signOut } from '../../../lib/auth';
 
 /**
  * The signed-in person, or null when nobody is signed in. Auth.js's session endpoint answers 200 either way, so a
@@ -10,7 +10,7 @@ import { signInWithCredentials, signOut } from '../../../lib/auth';
  */
 export const meQueryOptions = () =>
   queryOptions({
-    queryKey: ['me'],
+    queryKey: sessionQueryKey,
     queryFn: async ({ signal }): Promise<Me | null> => {
       if (!(await hasSession(signal))) return null;
       try {
