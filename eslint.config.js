@@ -20,6 +20,13 @@ export default tseslint.config(
     rules: { ...reactHooks.configs.recommended.rules },
   },
   {
+    // A client feature never imports another feature: routes (src/app) compose them.
+    files: ['src/features/*/*/**/*.{ts,tsx}'],
+    rules: {
+      'no-restricted-imports': ['error', { patterns: [{ group: ['../../*/**', '!../../../**'], message: 'A feature never imports another feature; compose them in a route.' }] }],
+    },
+  },
+  {
     // The numerical core and the contracts stay pure: no node:, no DOM frameworks, no database.
     files: ['shared/**/*.ts'],
     rules: {
