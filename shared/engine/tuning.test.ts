@@ -56,5 +56,7 @@ describe('closed-form tunings (formulas as published; see tests/reference for th
     expect(() => tuneTmd('hinf', 0.02, 2, 1.2)).toThrow(/structureDampingRatio: must be a damping ratio in \[0, 1\)/);
     expect(() => tuneTmd('hinf', 0.02, -2)).toThrow(/structureFrequencyHz/);
     expect(() => tuneTmd('other' as never, 0.02, 2)).toThrow(/method: must be one of/);
+    expect(() => tuneTmd('hinf', 0.02, 2, 0.75)).toThrow(/structureDampingRatio: must be below 1\/√2/);
+    expect(() => tuneTmd('ioi-ikeda', 0.02, 2, 0.9)).toThrow(/structureDampingRatio: the Ioi–Ikeda fit gives no usable tuning/);
   });
 });

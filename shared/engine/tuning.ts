@@ -152,6 +152,14 @@ function optimise(objective: (frequencyRatio: number, tmdDampingRatio: number) =
 export function tuneHInfinity(massRatio: number, structureDampingRatio: number): TuningRatios {
   checkMassRatio(massRatio);
   checkStructureDamping(structureDampingRatio);
+  if (structureDampingRatio >= Math.SQRT1_2) {
+    // |X_s| K / F of the structure alone then never exceeds its static value 1: there is no resonant peak to
+    // lower, and many tunings share the minimum, so no optimum is defined.
+    throw new EngineInputError(
+      'structureDampingRatio',
+      `structureDampingRatio: must be below 1/√2 ≈ 0.7071 for hinf tuning (got ${structureDampingRatio}); above it the structure has no resonant peak and the H∞ optimum is not defined`,
+    );
+  }
   return optimise((f, z) => peakAmplification(massRatio, f, z, structureDampingRatio), massRatio, tuneDenHartog(massRatio));
 }
 
