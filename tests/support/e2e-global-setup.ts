@@ -37,8 +37,9 @@ function freePort(): Promise<number> {
   });
 }
 
+/** Builds the client as it ships: vitest runs with NODE_ENV=test, which would otherwise give React's development build. */
 function buildClient(): void {
-  const result = spawnSync('npx', ['vite', 'build'], { cwd: repoRoot, encoding: 'utf8' });
+  const result = spawnSync('npx', ['vite', 'build'], { cwd: repoRoot, encoding: 'utf8', env: { ...process.env, NODE_ENV: 'production' } });
   if (result.status !== 0) {
     throw new Error(`vite build failed (exit ${result.status}):\n${result.stdout}\n${result.stderr}`);
   }
