@@ -34,6 +34,29 @@ describe('design commands', () => {
     expect(r.peakAccelerationMPerS2[0]).toHaveLength(2);
   });
 
+  it('every load case kind answers through assess with a schema-valid answer', () => {
+    const lateral = { modalMassKg: 90000, frequencyHz: 0.95, dampingRatio: 0.008, direction: 'lateral' };
+    const cases: Array<[Record<string, unknown>, Record<string, unknown>]> = [
+      [structure, { kind: 'harmonic', modalForceAmplitudeN: 400, pacingRangeHz: [1.6, 2.4] }],
+      [structure, { kind: 'walker' }],
+      [structure, { kind: 'jogger', pacingRangeHz: [2.0, 3.0] }],
+      [structure, { kind: 'crowd', guide: 'hivoss', trafficClass: 'TC1', deckAreaM2: 120 }],
+      [lateral, { kind: 'lateral', guide: 'setra', trafficClass: 'II', deckAreaM2: 400 }],
+      [{ ...structure, frequencyHz: 5.5, dampingRatio: 0.025 }, { kind: 'floor-walking', effectiveWeightN: 600000 }],
+      [structure, { kind: 'moving-walker', spanM: 35 }],
+    ];
+    for (const [s, loadCase] of cases) {
+      const request = designCommands.assess.request.parse({ structure: s, tmds, loadCase, criteria: { set: 'en1990', class: 'crowd' }, hardware: { unitCount: 2 } });
+      const answer = designCommands.assess.run(request);
+      const check = designCommands.assess.response.safeParse(answer);
+      expect(check.success, `${String(loadCase.kind)}: ${check.success ? '' : check.error.message}`).toBe(true);
+      expect(answer.peakAccelerationMPerS2).toBeGreaterThan(0);
+      expect(answer.modalForceAmplitudeN).toBeGreaterThan(0);
+      expect(answer.hardware[0].unitCount).toBe(2);
+      expect(answer.criterion.set).toBe('en1990');
+    }
+  });
+
   it('defaults: direction vertical, no dampers, size tolerance 0', () => {
     const parsed = designCommands.assess.request.parse({ structure: { modalMassKg: 1, frequencyHz: 2, dampingRatio: 0.01 }, loadCase: crowd });
     expect(parsed.structure.direction).toBe('vertical');

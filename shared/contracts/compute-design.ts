@@ -323,6 +323,8 @@ export const assessResponseSchema = z.object({
       bareStructurePeakAccelerationMPerS2: z.number(),
       bareStructureMaxRunningRms1sMPerS2: z.number(),
       steadyStatePeakAccelerationMPerS2: z.number(),
+      governingHarmonicForceN: z.number(),
+      maxTmdStrokeM: z.array(z.number()),
       pacingFrequencyHz: z.number(),
       walkingSpeedMPerS: z.number(),
       crossingTimeS: z.number(),

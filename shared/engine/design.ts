@@ -201,7 +201,7 @@ export function assessDesign(input: AssessInput): AssessResult {
       bareStructureAtFrequencyHz: fp,
       tmdStrokeM: history.maxTmdStrokeM,
       tmdStrokeAtFrequencyHz: tmds.map(() => fp),
-      modalForceAmplitudeN: 0,
+      modalForceAmplitudeN: history.governingHarmonicForceN,
       massRatio,
       loadModel: {
         kind: 'moving-walker',

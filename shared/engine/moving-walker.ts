@@ -36,6 +36,8 @@ export interface MovingWalkerHistory {
   /** Largest |x_j − x_s| of each damper over the history, m. */
   maxTmdStrokeM: number[];
   steadyStatePeakAccelerationMPerS2: number;
+  /** Force amplitude α_h G of the harmonic that governs the steady state, N. */
+  governingHarmonicForceN: number;
   pacingFrequencyHz: number;
   walkingSpeedMPerS: number;
   crossingTimeS: number;
@@ -121,9 +123,14 @@ export function simulateMovingWalker(structure: StructureMode, tmds: readonly Tm
     }
   }
   let steady = 0;
+  let governingForce = 0;
   for (const h of harmonics) {
     const f = h.frequencyMultiple * fp;
-    steady = Math.max(steady, structureAccelerationPerN(kernel, f) * h.dynamicLoadFactor * weight);
+    const a = structureAccelerationPerN(kernel, f) * h.dynamicLoadFactor * weight;
+    if (a > steady) {
+      steady = a;
+      governingForce = h.dynamicLoadFactor * weight;
+    }
   }
   return {
     timeStepS: dt,
@@ -134,6 +141,7 @@ export function simulateMovingWalker(structure: StructureMode, tmds: readonly Tm
     maxRunningRms1sMPerS2: maxRms,
     maxTmdStrokeM: maxStroke,
     steadyStatePeakAccelerationMPerS2: steady,
+    governingHarmonicForceN: governingForce,
     pacingFrequencyHz: fp,
     walkingSpeedMPerS: v,
     crossingTimeS: crossing,
