@@ -1,14 +1,6 @@
 import { createBrowserRouter, Navigate, RouterProvider } from 'react-router-dom';
 import { projectSections } from '../features/projects/components/project-sections';
-import { AboutRoute } from './routes/about';
-import { DevMailRoute } from './routes/dev-mail';
-import { InvitationRoute } from './routes/invitation';
-import { MembersRoute } from './routes/members';
 import { NotFoundRoute } from './routes/not-found';
-import { ProjectLayoutRoute } from './routes/project-layout';
-import { ProjectMembersRoute } from './routes/project-members';
-import { ProjectOverviewRoute } from './routes/project-overview';
-import { ProjectSectionRoute } from './routes/project-section';
 import { ProjectsRoute } from './routes/projects';
 import { RequireSessionRoute } from './routes/require-session';
 import { RootErrorRoute, RouteError } from './routes/route-error';
@@ -17,6 +9,17 @@ import { SignInRoute } from './routes/sign-in';
 import { requireSessionLoader, rootLoader } from './session';
 
 const section = <RouteError />;
+
+// Pages off the first path (sign-in → projects) load on demand, each in its own chunk.
+const about = () => import('./routes/about').then((module) => ({ Component: module.AboutRoute }));
+const devMail = () => import('./routes/dev-mail').then((module) => ({ Component: module.DevMailRoute }));
+const invitation = () => import('./routes/invitation').then((module) => ({ Component: module.InvitationRoute }));
+const members = () => import('./routes/members').then((module) => ({ Component: module.MembersRoute }));
+const projectLayout = () => import('./routes/project-layout').then((module) => ({ Component: module.ProjectLayoutRoute }));
+const projectOverview = () => import('./routes/project-overview').then((module) => ({ Component: module.ProjectOverviewRoute }));
+const projectMembers = () => import('./routes/project-members').then((module) => ({ Component: module.ProjectMembersRoute }));
+const projectSection = (slug: string) => () =>
+  import('./routes/project-section').then((module) => ({ Component: module.projectSectionRoute(slug) }));
 
 export const router = createBrowserRouter([
   {
@@ -31,9 +34,9 @@ export const router = createBrowserRouter([
         errorElement: section,
         children: [
           { path: 'sign-in', element: <SignInRoute /> },
-          { path: 'about', element: <AboutRoute /> },
-          { path: 'invitations/:token', element: <InvitationRoute /> },
-          { path: 'dev/mail', element: <DevMailRoute /> },
+          { path: 'about', lazy: about },
+          { path: 'invitations/:token', lazy: invitation },
+          { path: 'dev/mail', lazy: devMail },
           {
             loader: requireSessionLoader,
             element: <RequireSessionRoute />,
@@ -42,22 +45,22 @@ export const router = createBrowserRouter([
               { path: 'projects', element: <ProjectsRoute />, errorElement: section },
               {
                 path: 'projects/:projectId',
-                element: <ProjectLayoutRoute />,
+                lazy: projectLayout,
                 errorElement: section,
                 children: [
                   {
                     errorElement: section,
                     children: [
-                      { index: true, element: <ProjectOverviewRoute /> },
-                      { path: 'members', element: <ProjectMembersRoute /> },
+                      { index: true, lazy: projectOverview },
+                      { path: 'members', lazy: projectMembers },
                       ...projectSections
                         .filter((entry) => !entry.available)
-                        .map((entry) => ({ path: entry.slug, element: <ProjectSectionRoute section={entry} /> })),
+                        .map((entry) => ({ path: entry.slug, lazy: projectSection(entry.slug) })),
                     ],
                   },
                 ],
               },
-              { path: 'members', element: <MembersRoute />, errorElement: section },
+              { path: 'members', lazy: members, errorElement: section },
             ],
           },
           { path: '*', element: <NotFoundRoute /> },
