@@ -47,17 +47,17 @@ export function createApp(ctx: AppContext, options: { clientDir?: string | null 
   app.use('/api', apiNotFound);
 
   // The built client (vite build → dist/client), with every other GET answered by index.html for the client router.
+  // Looked up per request, so that a build made after the server started (or during a rebuild) is picked up.
   const clientDir = options.clientDir === undefined ? clientDist : options.clientDir;
-  if (clientDir && existsSync(join(clientDir, 'index.html'))) {
-    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
-    app.get(/^(?!\/api(\/|$)).*/, (_req, res) => {
-      res.set('Cache-Control', 'no-cache').sendFile(join(clientDir, 'index.html'));
-    });
-  } else {
-    app.get(/^(?!\/api(\/|$)).*/, (_req, res) => {
-      res.status(404).type('text/plain').send('The client is not built: run `npm run build` (npm start does it), or use `npm run dev`.\n');
-    });
-  }
+  if (clientDir) app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+  app.get(/^(?!\/api(\/|$)).*/, (_req, res) => {
+    const indexFile = clientDir ? join(clientDir, 'index.html') : null;
+    if (indexFile && existsSync(indexFile)) {
+      res.set('Cache-Control', 'no-cache').sendFile(indexFile);
+      return;
+    }
+    res.status(404).type('text/plain').send('The client is not built: run `npm run build` (npm start does it), or use `npm run dev`.\n');
+  });
 
   app.use(errorHandler);
   return app;
