@@ -195,6 +195,7 @@ export const sizeRequestSchema = z
     peakAccelerationLimitMPerS2: positive(),
     structureFrequencyToleranceRatio: num().min(0, 'must be 0 or greater').max(0.5, 'must be at most 0.5').default(0),
     maxMassRatio: num().gt(0, 'must be greater than 0').max(0.5, 'must be at most 0.5').default(0.25),
+    hardware: hardwareOptionsSchema.optional(),
   })
   .superRefine(checkLoadCaseAgainstStructure);
 export type SizeRequest = z.infer<typeof sizeRequestSchema>;
@@ -345,6 +346,9 @@ export const sizeResponseSchema = z.object({
   structureFrequencyRangeHz: z.tuple([z.number(), z.number()]),
   peakAccelerationLimitMPerS2: z.number(),
   method: tuningMethodSchema,
+  /** Largest stroke of the sized damper over the load band and the structure-frequency band, m. */
+  tmdStrokeM: z.number().nullable(),
+  hardware: hardwareEntrySchema.nullable(),
   evaluations: z.number(),
   warnings: z.array(designWarningSchema),
   caution: z.string(),

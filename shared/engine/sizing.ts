@@ -19,6 +19,7 @@ import {
   type ForceBand,
   type ModeTmdKernel,
 } from './loads/response-envelope';
+import { buildHardwareEntry, type HardwareOptions, type HardwareSheetEntry } from './hardware';
 import { designCaution, frequencyRangeWarnings, massRatioWarnings, type DesignStructure, type DesignWarning } from './design';
 
 export interface SizeInput {
@@ -29,6 +30,7 @@ export interface SizeInput {
   structureFrequencyToleranceRatio?: number;
   /** Upper end of the search (default 0.25). */
   maxMassRatio?: number;
+  hardware?: HardwareOptions;
 }
 
 export interface SizeResult {
@@ -40,6 +42,8 @@ export interface SizeResult {
   structureFrequencyRangeHz: [number, number];
   peakAccelerationLimitMPerS2: number;
   method: TuningMethod;
+  tmdStrokeM: number | null;
+  hardware: HardwareSheetEntry | null;
   evaluations: number;
   warnings: DesignWarning[];
   caution: string;
@@ -223,7 +227,7 @@ export function sizeDamper(input: SizeInput): SizeResult {
     warnings.push({ code: 'no-damper-needed', message: 'the bare structure already meets the limit over the whole structure-frequency band' });
     return {
       ...base, massRatio: 0, tmd: null, worstPeakAccelerationMPerS2: bare.value, worstAtStructureFrequencyHz: bare.structureFrequencyHz,
-      evaluations, warnings,
+      tmdStrokeM: null, hardware: null, evaluations, warnings,
     };
   }
   const worstFor = worstWith(method);
@@ -249,7 +253,27 @@ export function sizeDamper(input: SizeInput): SizeResult {
   const hiMu = found.mu;
   const hiResult = found;
   warnings.push(...massRatioWarnings(hiMu));
+  // Stroke of the chosen damper: its worst over the load band and the structure-frequency band.
+  const tmd = hiResult.tmd;
+  const wa = 2 * Math.PI * tmd.frequencyHz;
+  kernel.tmdMassKg[0] = tmd.massKg;
+  kernel.tmdStiffnessNPerM[0] = tmd.massKg * wa * wa;
+  kernel.tmdDampingNsPerM[0] = 2 * tmd.dampingRatio * tmd.massKg * wa;
+  const strokeAt = (fs: number) => {
+    setStructureFrequency(kernel, fs, zs);
+    return findEnvelopePeak(kernel, envelope.bands, 'tmdStroke', { hintsHz: coupledNaturalFrequenciesHz(kernel) }).value;
+  };
+  const stroke = range[1] > range[0] ? maximiseContinuous(strokeAt, range[0], range[1], { samples: 16 }).value : strokeAt(range[0]);
+  const hardware = buildHardwareEntry(tmd, stroke, input.hardware);
+  if (hardware.strokeWithinLimit === false) {
+    warnings.push({
+      code: 'stroke-beyond-travel',
+      message: `the design stroke ${(1000 * hardware.designStrokeM).toFixed(1)} mm (×${hardware.strokeMarginFactor} margin) exceeds the hardware travel ${(1000 * (hardware.strokeLimitM as number)).toFixed(1)} mm`,
+    });
+  }
   return {
+    tmdStrokeM: stroke,
+    hardware,
     ...base,
     massRatio: hiMu,
     tmd: hiResult.tmd,
