@@ -33,6 +33,28 @@ describe('pages around the main job', () => {
     await browser.shot('pages-01-about');
   });
 
+  it('can be used from the keyboard, with a visible focus ring', async () => {
+    const { page } = browser;
+    await page.goto(`${baseUrl}/sign-in`);
+    await page.getByRole('heading', { name: 'Sign in', exact: true }).waitFor();
+    await page.keyboard.press('Tab');
+    const skip = page.getByRole('link', { name: 'Skip to content' });
+    await expect(skip.evaluate((element) => element === document.activeElement)).resolves.toBe(true);
+    await expect(skip.isVisible()).resolves.toBe(true);
+
+    await page.getByLabel('E-mail').focus();
+    await page.keyboard.press('Tab');
+    const password = page.getByLabel('Password');
+    await expect(password.evaluate((element) => element === document.activeElement)).resolves.toBe(true);
+    const outline = await password.evaluate((element) => {
+      const style = getComputedStyle(element);
+      return { style: style.outlineStyle, width: parseFloat(style.outlineWidth) };
+    });
+    expect(outline.style).toBe('solid');
+    expect(outline.width).toBeGreaterThanOrEqual(2);
+    await browser.shot('pages-02-keyboard-focus');
+  });
+
   it('answers an unknown address with the 404 page inside the site frame', async () => {
     const { page } = browser;
     await page.goto(`${baseUrl}/no/such/page`);
@@ -56,7 +78,7 @@ describe('pages around the main job', () => {
     await page.getByRole('list', { name: 'Projects' }).waitFor();
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
     expect(overflow).toBeLessThanOrEqual(0);
-    await browser.shot('pages-02-projects-narrow');
+    await browser.shot('pages-03-projects-narrow');
     await page.setViewportSize({ width: 1280, height: 860 });
     await signOut(page);
   });

@@ -63,7 +63,7 @@ export function ProjectsRoute() {
           <Link to={`/projects/${created.id}`} className="font-semibold underline underline-offset-4">
             {created.name}
           </Link>{' '}
-          is ready. Open it to add its members.
+          is ready. Open it to see its overview and members.
         </Notice>
       ) : null}
 

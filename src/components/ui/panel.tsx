@@ -5,7 +5,6 @@ interface PanelProps {
   description?: ReactNode;
   actions?: ReactNode;
   children: ReactNode;
-  labelledBy?: string;
 }
 
 /** A raised sheet holding one piece of a page, titled as a section for assistive technology. */
