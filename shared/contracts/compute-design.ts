@@ -325,6 +325,8 @@ export const assessResponseSchema = z.object({
       bareStructureMaxRunningRms1sMPerS2: z.number(),
       steadyStatePeakAccelerationMPerS2: z.number(),
       governingHarmonicForceN: z.number(),
+      governingHarmonicFrequencyHz: z.number(),
+      modelRangeHz: z.tuple([z.number(), z.number()]),
       maxTmdStrokeM: z.array(z.number()),
       pacingFrequencyHz: z.number(),
       walkingSpeedMPerS: z.number(),

@@ -191,8 +191,8 @@ export function assessDesign(input: AssessInput): AssessResult {
   if (loadCase.kind === 'moving-walker') {
     const history = simulateMovingWalker(structure, tmds, loadCase);
     const bareHistory = simulateMovingWalker(structure, [], loadCase);
-    const range: [number, number] = [1.6, 2.4 * 3];
-    const fp = history.pacingFrequencyHz;
+    const range = history.modelRangeHz;
+    const fp = history.governingHarmonicFrequencyHz;
     warnings.push(...frequencyRangeWarnings(structure.frequencyHz, { kind: 'moving walker', structureFrequencyRangeHz: range }));
     const result: AssessResult = {
       peakAccelerationMPerS2: history.peakAccelerationMPerS2,

@@ -38,6 +38,10 @@ export interface MovingWalkerHistory {
   steadyStatePeakAccelerationMPerS2: number;
   /** Force amplitude α_h G of the harmonic that governs the steady state, N. */
   governingHarmonicForceN: number;
+  /** Force frequency of that harmonic, h × f_p, Hz. */
+  governingHarmonicFrequencyHz: number;
+  /** Structure frequencies the gait's harmonics cover, Hz. */
+  modelRangeHz: [number, number];
   pacingFrequencyHz: number;
   walkingSpeedMPerS: number;
   crossingTimeS: number;
@@ -124,14 +128,18 @@ export function simulateMovingWalker(structure: StructureMode, tmds: readonly Tm
   }
   let steady = 0;
   let governingForce = 0;
+  let governingFrequency = fp;
   for (const h of harmonics) {
     const f = h.frequencyMultiple * fp;
     const a = structureAccelerationPerN(kernel, f) * h.dynamicLoadFactor * weight;
     if (a > steady) {
       steady = a;
       governingForce = h.dynamicLoadFactor * weight;
+      governingFrequency = f;
     }
   }
+  const multiples = harmonics.map((h) => h.frequencyMultiple);
+  const modelRange: [number, number] = [Math.min(...multiples) * model.pacingRangeHz[0], Math.max(...multiples) * model.pacingRangeHz[1]];
   return {
     timeStepS: dt,
     timesS: times,
@@ -142,6 +150,8 @@ export function simulateMovingWalker(structure: StructureMode, tmds: readonly Tm
     maxTmdStrokeM: maxStroke,
     steadyStatePeakAccelerationMPerS2: steady,
     governingHarmonicForceN: governingForce,
+    governingHarmonicFrequencyHz: governingFrequency,
+    modelRangeHz: modelRange,
     pacingFrequencyHz: fp,
     walkingSpeedMPerS: v,
     crossingTimeS: crossing,
