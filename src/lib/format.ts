@@ -11,7 +11,7 @@ const roleLabels: Record<Role, string> = {
 const roleDuties: Record<Role, string> = {
   admin: "Manages the organisation's people and their roles",
   engineer: 'Creates and changes projects and their designs',
-  owner: 'Reads the design and approves or returns it',
+  owner: 'Reads the comfort criteria and the design, and approves or returns them',
   fabricator: 'Reads the released hardware sheet and records as-built data',
   viewer: 'Reads everything in a project, changes nothing',
 };
