@@ -14,14 +14,17 @@ export const MAX_TMDS = 50;
 /** Relative tolerance of the symmetry check, against the largest entry of the matrix. */
 export const MATRIX_SYMMETRY_TOLERANCE = 1e-9;
 
-const finite = z.number({ error: 'must be a finite number' });
+/** The message of a wrong type, or "is required" when the field is missing. */
+const typeError = (message: string) => (issue: { input?: unknown }) => (issue.input === undefined ? 'is required' : message);
+
+const finite = z.number({ error: typeError('must be a finite number') });
 const positive = finite.gt(0, { error: 'must be greater than 0' });
 const dampingRatio = finite
   .min(0, { error: 'must be a damping ratio in [0, 1): at least 0' })
   .lt(1, { error: 'must be a damping ratio in [0, 1): less than 1' });
 
 const matrix = z
-  .array(z.array(finite, { error: 'must be an array of numbers (a matrix row)' }), { error: 'must be an array of rows (a square matrix)' })
+  .array(z.array(finite, { error: typeError('must be an array of numbers (a matrix row)') }), { error: typeError('must be an array of rows (a square matrix)') })
   .min(1, { error: 'must have at least one row' })
   .max(MAX_DOF, { error: `must have at most ${MAX_DOF} rows` });
 
@@ -90,7 +93,7 @@ export const modesResponseSchema = z.object({ modes: z.array(modeSchema) });
 
 // ---------- tune ----------
 export const tuningMethodSchema = z.enum(['den-hartog', 'warburton-random', 'ioi-ikeda', 'hinf', 'h2'], {
-  error: 'must be one of den-hartog, warburton-random, ioi-ikeda, hinf, h2',
+  error: typeError('must be one of den-hartog, warburton-random, ioi-ikeda, hinf, h2'),
 });
 export const tuneRequestSchema = z.strictObject({
   method: tuningMethodSchema,
@@ -106,22 +109,28 @@ export const tuneResponseSchema = z.object({
 });
 
 // ---------- response ----------
-export const structureModeSchema = z.strictObject({
-  modalMassKg: positive,
-  frequencyHz: positive,
-  dampingRatio,
-});
-export const tmdSchema = z.strictObject({
-  massKg: positive,
-  frequencyHz: positive,
-  dampingRatio,
-});
+export const structureModeSchema = z.strictObject(
+  {
+    modalMassKg: positive,
+    frequencyHz: positive,
+    dampingRatio,
+  },
+  { error: typeError('must be an object { modalMassKg, frequencyHz, dampingRatio }') },
+);
+export const tmdSchema = z.strictObject(
+  {
+    massKg: positive,
+    frequencyHz: positive,
+    dampingRatio,
+  },
+  { error: typeError('must be an object { massKg, frequencyHz, dampingRatio }') },
+);
 export const responseRequestSchema = z.strictObject({
   structure: structureModeSchema,
-  tmds: z.array(tmdSchema).max(MAX_TMDS, { error: `must have at most ${MAX_TMDS} dampers` }),
+  tmds: z.array(tmdSchema, { error: typeError('must be an array of dampers (it may be empty)') }).max(MAX_TMDS, { error: `must have at most ${MAX_TMDS} dampers` }),
   forceAmplitudeN: positive,
   frequenciesHz: z
-    .array(positive)
+    .array(positive, { error: typeError('must be an array of frequencies in Hz') })
     .min(1, { error: 'must have at least one frequency' })
     .max(MAX_POINTS, { error: `must have at most ${MAX_POINTS} frequencies` }),
 });
@@ -141,10 +150,10 @@ export const freeRequestSchema = z
   .strictObject({
     massMatrixKg: matrix,
     stiffnessMatrixNPerM: matrix,
-    initialDisplacementM: z.array(finite),
-    initialVelocityMPerS: z.array(finite),
+    initialDisplacementM: z.array(finite, { error: typeError('must be an array of displacements in m, one per DOF') }),
+    initialVelocityMPerS: z.array(finite, { error: typeError('must be an array of velocities in m/s, one per DOF') }),
     timesS: z
-      .array(finite)
+      .array(finite, { error: typeError('must be an array of times in s') })
       .min(1, { error: 'must have at least one time' })
       .max(MAX_POINTS, { error: `must have at most ${MAX_POINTS} times` }),
   })
