@@ -12,6 +12,7 @@ import type { LoadDirection, CrowdGuide } from './pedestrian-crowd';
 import {
   crowdModalForceN,
   equivalentPedestrianCount,
+  evaluatePsi,
   findTrafficClass,
   halfSineModeShapeMean,
   psiCurves,
@@ -137,6 +138,8 @@ export function buildLoadEnvelope(structure: EnvelopeStructure, loadCase: Steady
       const mean = loadCase.modeShapeMean ?? halfSineModeShapeMean;
       const curve = psiCurves[guide][structure.direction];
       const direction = structure.direction;
+      // P n' mean|φ|, times ψ(f) at each force frequency (crowdModalForceN, unrolled for the hot loop).
+      const amplitudeN = crowdModalForceN(guide, direction, nEq, mean, 0.5 * (curve.oneFromHz + curve.oneToHz));
       return {
         kind: loadCase.kind,
         source: crowdSources[guide],
@@ -144,7 +147,7 @@ export function buildLoadEnvelope(structure: EnvelopeStructure, loadCase: Steady
           {
             loHz: curve.zeroBelowHz,
             hiHz: curve.zeroAboveHz,
-            forceN: (f) => crowdModalForceN(guide, direction, nEq, mean, f),
+            forceN: (f) => amplitudeN * evaluatePsi(curve, f),
             kinksHz: [curve.oneFromHz, curve.oneToHz],
             label: `${guide} crowd, ${direction}`,
           },
