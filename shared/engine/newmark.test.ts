@@ -40,6 +40,37 @@ describe('integrateNewmark (average acceleration)', () => {
     expect(errors[0] / errors[1]).toBeLessThan(4.5);
   });
 
+  it('conserves the energy of an undamped free vibration exactly (average acceleration is energy-conserving)', () => {
+    // A property of the trapezoidal rule on linear undamped systems (Hughes, The Finite Element Method, 1987; from
+    // memory): ½ vᵀMv + ½ xᵀKx is constant to rounding, whatever the time step.
+    const random = seededRandom(29);
+    const { massKg, stiffnessNPerM } = randomChain(6, random);
+    const m = flat(massKg);
+    const k = flat(stiffnessNPerM);
+    const result = integrateNewmark({
+      dofCount: 6,
+      massKg: m,
+      dampingNsPerM: new Float64Array(36),
+      stiffnessNPerM: k,
+      timeStepS: 0.02, // coarse on purpose: several modes have ωΔt > 1
+      stepCount: 3000,
+      initialDisplacementM: Float64Array.from([0.01, -0.02, 0.015, 0, 0.005, -0.01]),
+      force: () => {},
+    });
+    const energy = (step: number) => {
+      let e = 0;
+      for (let i = 0; i < 6; i++) {
+        for (let j = 0; j < 6; j++) {
+          e += 0.5 * result.velocityMPerS[step * 6 + i] * m[i * 6 + j] * result.velocityMPerS[step * 6 + j];
+          e += 0.5 * result.displacementM[step * 6 + i] * k[i * 6 + j] * result.displacementM[step * 6 + j];
+        }
+      }
+      return e;
+    };
+    const e0 = energy(0);
+    for (let step = 0; step <= 3000; step += 100) expect(Math.abs(energy(step) / e0 - 1)).toBeLessThan(1e-10);
+  });
+
   it('builds up an undamped single-DOF resonance as F/(2k) (sin ωt − ωt cos ωt)', () => {
     // Closed form of the undamped oscillator driven at resonance from rest (Chopra, Dynamics of Structures, chapter 3; from memory).
     const m = 800;

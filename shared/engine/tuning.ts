@@ -130,11 +130,17 @@ function minimise(fn: (x: number) => number, a: number, b: number, relativeToler
   return { x: result.x, value: -result.value };
 }
 
-/** Two-level search: for each frequency ratio the best damping ratio (log scale), then the best frequency ratio. */
+/**
+ * Two-level search: for each frequency ratio the best damping ratio (log scale), then the best frequency ratio.
+ * The closed-form start is kept when the search does not improve on it (it can only tie at tiny mass ratios,
+ * where the optimum is extremely sharp).
+ */
 function optimise(objective: (frequencyRatio: number, tmdDampingRatio: number) => number, massRatio: number, start: TuningRatios): TuningRatios {
-  const logZetaLo = Math.log(1e-4);
+  const logZetaLo = Math.log(Math.min(1e-4, 0.05 * start.tmdDampingRatio));
   const logZetaHi = Math.log(0.95);
   const innerTolerance = 1e-8;
+  // The objective's sensitivity to the frequency ratio grows like 1/√μ: tighten the tolerance for small μ.
+  const outerTolerance = Math.max(1e-13, Math.min(1e-9, 1e-7 * massRatio));
   let bestZeta = start.tmdDampingRatio;
   const inner = (f: number) => {
     const found = minimise((u) => objective(f, Math.exp(u)), logZetaLo, logZetaHi, innerTolerance);
@@ -143,9 +149,10 @@ function optimise(objective: (frequencyRatio: number, tmdDampingRatio: number) =
   };
   const fLo = Math.max(1e-3, 0.3 * start.frequencyRatio);
   const fHi = 1.3 * Math.max(start.frequencyRatio, 1 / (1 + massRatio));
-  const outer = minimise(inner, fLo, fHi, 1e-9);
-  inner(outer.x);
-  return { frequencyRatio: outer.x, tmdDampingRatio: bestZeta };
+  const outer = minimise(inner, fLo, fHi, outerTolerance);
+  const value = inner(outer.x);
+  const found = { frequencyRatio: outer.x, tmdDampingRatio: bestZeta };
+  return value <= objective(start.frequencyRatio, start.tmdDampingRatio) ? found : start;
 }
 
 /** Numerical H∞ optimum: the tuning with the lowest peak of |X_s| K / F, for any structure damping. */
