@@ -59,6 +59,11 @@ export function updateMemberRole(db: Database, organisationId: string, userId: s
   });
 }
 
+export async function insertOrganisation(db: Database, name: string): Promise<string> {
+  const [row] = await db.insert(organisations).values({ name }).returning({ id: organisations.id });
+  return row.id;
+}
+
 export function listInvitations(db: Database, organisationId: string): Promise<InvitationRow[]> {
   return db.select().from(invitations).where(eq(invitations.organisationId, organisationId)).orderBy(desc(invitations.createdAt)).limit(200);
 }
@@ -66,7 +71,7 @@ export function listInvitations(db: Database, organisationId: string): Promise<I
 /** Stores a new invitation, replacing any invitation to the same address that is still open. */
 export function replaceInvitation(
   db: Database,
-  values: { organisationId: string; email: string; name: string | null; role: Role; tokenHash: string; invitedBy: string; expiresAt: Date },
+  values: { organisationId: string; email: string; name: string | null; role: Role; tokenHash: string; invitedBy: string | null; expiresAt: Date },
 ): Promise<InvitationRow> {
   return db.transaction(async (tx) => {
     await tx

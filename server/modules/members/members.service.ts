@@ -64,12 +64,24 @@ export async function changeMemberRole(db: Database, user: CurrentUser, userId: 
   return toMember(member);
 }
 
-/** Stores an invitation and mails its link; if the mail cannot be sent, the invitation is withdrawn again. */
-export async function invite(
+/** Who an invitation comes from. */
+interface InvitationSource {
+  organisationId: string;
+  organisationName: string;
+  inviterName: string;
+  invitedBy: string | null;
+}
+
+/**
+ * Stores an invitation and mails its link. When the mail cannot be sent and `mailRequired`, the invitation is
+ * withdrawn again (502); otherwise it is kept and the caller hands the link on itself.
+ */
+async function issueInvitation(
   deps: { db: Database; mailer: Mailer; env: Env },
-  user: CurrentUser,
+  source: InvitationSource,
   input: CreateInvitationInput,
-): Promise<Invitation> {
+  mailRequired: boolean,
+): Promise<{ invitation: Invitation; link: string; mailError: string | null }> {
   if (await emailRegistered(deps.db, input.email)) {
     throw new HttpError(409, 'already_registered', `${input.email} already has a Stillspan account`, [
       { path: 'email', message: 'email: already has an account' },
@@ -78,24 +90,54 @@ export async function invite(
   const token = randomBytes(32).toString('base64url');
   const expiresAt = new Date(Date.now() + invitationLifetimeMs);
   const row = await repository.replaceInvitation(deps.db, {
-    organisationId: user.organisationId,
+    organisationId: source.organisationId,
     email: input.email,
     name: input.name ?? null,
     role: input.role,
     tokenHash: hashInvitationToken(token),
-    invitedBy: user.id,
+    invitedBy: source.invitedBy,
     expiresAt,
   });
   const link = `${deps.env.appUrl}/invitations/${token}`;
+  let mailError: string | null = null;
   try {
     await deps.mailer.send(
-      invitationMail({ to: input.email, link, organisationName: user.organisationName, inviterName: user.name, role: input.role, expiresAt }),
+      invitationMail({ to: input.email, link, organisationName: source.organisationName, inviterName: source.inviterName, role: input.role, expiresAt }),
     );
   } catch (error) {
-    await repository.deleteInvitation(deps.db, row.id);
-    throw new HttpError(502, 'mail_failed', `The invitation mail could not be sent (${(error as Error).message}); nothing was stored, try again`);
+    mailError = (error as Error).message;
+    if (mailRequired) {
+      await repository.deleteInvitation(deps.db, row.id);
+      throw new HttpError(502, 'mail_failed', `The invitation mail could not be sent (${mailError}); nothing was stored, try again`);
+    }
   }
-  return toInvitation(row);
+  return { invitation: toInvitation(row), link, mailError };
+}
+
+/** An admin invites a person into their organisation by e-mail. */
+export async function invite(deps: { db: Database; mailer: Mailer; env: Env }, user: CurrentUser, input: CreateInvitationInput): Promise<Invitation> {
+  const source = { organisationId: user.organisationId, organisationName: user.organisationName, inviterName: user.name, invitedBy: user.id };
+  return (await issueInvitation(deps, source, input, true)).invitation;
+}
+
+/**
+ * A new organisation with an invitation for its first admin (the way in on a production database, where no demo
+ * is seeded). The link is returned as well as mailed, so that it can be handed over when no mail relay is set up.
+ */
+export async function createOrganisationWithAdmin(
+  deps: { db: Database; mailer: Mailer; env: Env },
+  input: { organisationName: string; adminEmail: string; adminName?: string },
+): Promise<{ organisationId: string; invitation: Invitation; link: string; mailError: string | null }> {
+  const adminEmail = input.adminEmail.trim().toLowerCase();
+  if (await emailRegistered(deps.db, adminEmail)) {
+    throw new HttpError(409, 'already_registered', `${input.adminEmail} already has a Stillspan account`, [
+      { path: 'adminEmail', message: 'adminEmail: already has an account' },
+    ]);
+  }
+  const organisationId = await repository.insertOrganisation(deps.db, input.organisationName);
+  const source = { organisationId, organisationName: input.organisationName, inviterName: 'Stillspan', invitedBy: null };
+  const result = await issueInvitation(deps, source, { email: adminEmail, name: input.adminName, role: 'admin' }, false);
+  return { organisationId, ...result };
 }
 
 async function openInvitation(db: Database, token: string) {
