@@ -88,7 +88,7 @@ function peakAmplificationAt(massRatio: number, frequencyRatio: number, tmdDampi
   const stiffness = system.structureStiffnessNPerM;
   const low = system.coupledFrequenciesHz[0];
   const high = system.coupledFrequenciesHz[system.coupledFrequenciesHz.length - 1];
-  const peak = findResponsePeak(system, [0.1 * Math.min(low, 1), 3 * Math.max(high, 1)], { quantity: 'structureDisplacement', samples: 16 });
+  const peak = findResponsePeak(system, [0.1 * Math.min(low, 1), 3 * Math.max(high, 1)], { quantity: 'structureDisplacement', samples: 12 });
   const value = peak.value * stiffness;
   return value > 1 ? { frequencyRatio: peak.frequencyHz, value } : { frequencyRatio: 0, value: 1 };
 }
@@ -142,8 +142,18 @@ function optimise(objective: (frequencyRatio: number, tmdDampingRatio: number) =
   // The objective's sensitivity to the frequency ratio grows like 1/√μ: tighten the tolerance for small μ.
   const outerTolerance = Math.max(1e-13, Math.min(1e-9, 1e-7 * massRatio));
   let bestZeta = start.tmdDampingRatio;
+  // The best damping ratio moves little between neighbouring frequency ratios: search a bracket of ×/÷ 1.5 around the
+  // last one first, and the whole range only when the answer lands on that bracket's edge.
+  const halfWidth = Math.log(1.5);
   const inner = (f: number) => {
-    const found = minimise((u) => objective(f, Math.exp(u)), logZetaLo, logZetaHi, innerTolerance);
+    const centre = Math.log(bestZeta);
+    const lo = Math.max(logZetaLo, centre - halfWidth);
+    const hi = Math.min(logZetaHi, centre + halfWidth);
+    let found = minimise((u) => objective(f, Math.exp(u)), lo, hi, innerTolerance);
+    const edge = 1e-3 * (hi - lo);
+    if ((found.x - lo < edge && lo > logZetaLo) || (hi - found.x < edge && hi < logZetaHi)) {
+      found = minimise((u) => objective(f, Math.exp(u)), logZetaLo, logZetaHi, innerTolerance);
+    }
     bestZeta = Math.exp(found.x);
     return found.value;
   };
