@@ -20,9 +20,13 @@ export function timeIt(run: () => unknown, repeats: number, warmUp = Math.max(3,
   return { medianMs: times[Math.floor(times.length / 2)], minMs: times[0] };
 }
 
+function formatMs(ms: number): string {
+  return ms < 0.1 ? `${(ms * 1000).toFixed(2).padStart(9)} µs` : `${ms.toFixed(3).padStart(9)} ms`;
+}
+
 export function report(label: string, result: { medianMs: number; minMs: number }, targetMs?: number): void {
   const verdict = targetMs === undefined ? '' : result.medianMs <= targetMs ? `  (target ≤ ${targetMs} ms: met)` : `  (target ≤ ${targetMs} ms: MISSED)`;
-  console.log(`${label.padEnd(58)} median ${result.medianMs.toFixed(3).padStart(9)} ms   min ${result.minMs.toFixed(3).padStart(9)} ms${verdict}`);
+  console.log(`${label.padEnd(58)} median ${formatMs(result.medianMs)}   min ${formatMs(result.minMs)}${verdict}`);
 }
 
 export function runEngineBenchmarks(): void {
