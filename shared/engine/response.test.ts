@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import Complex from 'complex.js';
 import { createModeTmdPoint, createModeTmdSystem, evaluateModeTmdSystem, evaluateStructureReceptance, findResponsePeak } from './response';
 import { buildModeTmdMatrices } from './matrices';
 import { solveHarmonicResponse } from './harmonic';
@@ -49,6 +50,33 @@ describe('structure with dampers', () => {
     const near = evaluateModeTmdSystem(system, 1.84 * (1 + 1e-9), createModeTmdPoint(system));
     expect(near.structureDisplacementMPerN).toBeLessThan(1e-12);
     expect(near.tmdStrokeMPerN[0]).toBeCloseTo(point.tmdStrokeMPerN[0], 12);
+  });
+
+  it('matches the two-DOF receptance written out with complex.js (Den Hartog 1956, structure + one damper)', () => {
+    // X_s / F = (k − ω²m + iωc) / [(K + k − ω²M + iω(C + c))(k − ω²m + iωc) − (k + iωc)²]
+    const structure = { modalMassKg: 25000, frequencyHz: 1.85, dampingRatio: 0.008 };
+    const tmd = { massKg: 500, frequencyHz: 1.8, dampingRatio: 0.09 };
+    const system = createModeTmdSystem(structure, [tmd]);
+    const point = createModeTmdPoint(system);
+    const receptance = new Float64Array(2);
+    const bigK = structure.modalMassKg * (2 * Math.PI * structure.frequencyHz) ** 2;
+    const bigC = 2 * structure.dampingRatio * structure.modalMassKg * 2 * Math.PI * structure.frequencyHz;
+    const k = tmd.massKg * (2 * Math.PI * tmd.frequencyHz) ** 2;
+    const c = 2 * tmd.dampingRatio * tmd.massKg * 2 * Math.PI * tmd.frequencyHz;
+    for (const f of [0.5, 1.6, 1.75, 1.8, 1.85, 1.95, 2.4, 6]) {
+      const w = 2 * Math.PI * f;
+      const damper = new Complex(k - w * w * tmd.massKg, w * c);
+      const coupling = new Complex(k, w * c);
+      const determinant = new Complex(bigK + k - w * w * structure.modalMassKg, w * (bigC + c)).mul(damper).sub(coupling.mul(coupling));
+      const xs = damper.div(determinant);
+      const stroke = coupling.div(damper).sub(1).mul(xs); // X_a − X_s with X_a = (k + iωc) X_s / (k − ω²m + iωc)
+      evaluateModeTmdSystem(system, f, point);
+      evaluateStructureReceptance(system, f, receptance);
+      expect(Math.abs(point.structureDisplacementMPerN / xs.abs() - 1)).toBeLessThan(1e-12);
+      expect(Math.abs(point.tmdStrokeMPerN[0] / stroke.abs() - 1)).toBeLessThan(1e-12);
+      expect(Math.abs(receptance[0] - xs.re) / xs.abs()).toBeLessThan(1e-12);
+      expect(Math.abs(receptance[1] - xs.im) / xs.abs()).toBeLessThan(1e-12);
+    }
   });
 
   it('agrees with the general complex solve of the assembled 1 + n matrices', () => {
