@@ -64,4 +64,7 @@ async function build() {
 
 if (!isFresh()) await build();
 const calc = await import(pathToFileURL(bundle).href);
-calc.main(process.argv.slice(2));
+// `npm run calc` runs from the package root and records the directory the command was typed in as INIT_CWD:
+// relative request paths are meant from there. Started any other way, the working directory counts.
+const launchedByNpm = process.env.npm_lifecycle_event === 'calc' && process.env.INIT_CWD;
+calc.main(process.argv.slice(2), launchedByNpm ? process.env.INIT_CWD : process.cwd());

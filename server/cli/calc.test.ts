@@ -61,6 +61,14 @@ describe('calc: answers', () => {
     expect(answer.modes[0].angularFrequencyRadPerS).toBeCloseTo(2 * Math.PI * answer.modes[0].frequencyHz, 12);
   });
 
+  it('reads a relative path from the directory the command was typed in, through npm', () => {
+    writeFileSync(join(scratch, 'tune.json'), JSON.stringify(tuneRequest));
+    const result = spawnSync('npm', ['--prefix', root, 'run', '--silent', 'calc', '--', 'tune', 'tune.json'], { cwd: scratch, encoding: 'utf8', timeout: 60_000 });
+    expect(result.stderr).toBe('');
+    expect(result.status).toBe(0);
+    expect(tuneResponseSchema.parse(JSON.parse(result.stdout)).frequencyRatio).toBeCloseTo(1 / 1.02, 14);
+  });
+
   it('tune, response and free from standard input', () => {
     const tune = calc(['tune', '-'], JSON.stringify(tuneRequest));
     expect(tune.status).toBe(0);

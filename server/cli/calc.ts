@@ -5,6 +5,7 @@
  * exit 1 for an internal failure. The same commands and schemas serve POST /api/compute/<command>.
  */
 import { readFileSync } from 'node:fs';
+import { resolve } from 'node:path';
 import { computeCommands, getComputeCommand } from '../../shared/compute/commands';
 import { ComputeInputError, errorCodes } from '../../shared/compute/types';
 import { toApiIssues, type ApiErrorBody, type ApiIssue } from '../../shared/contracts/errors';
@@ -16,12 +17,17 @@ export interface CalcIo {
   stderr(text: string): void;
 }
 
-export const defaultIo: CalcIo = {
-  readStdin: () => readFileSync(0, 'utf8'),
-  readFile: (path) => readFileSync(path, 'utf8'),
-  stdout: (text) => process.stdout.write(text),
-  stderr: (text) => process.stderr.write(text),
-};
+/** Standard streams and files; relative paths are resolved against `baseDirectory`. */
+export function createIo(baseDirectory: string = process.cwd()): CalcIo {
+  return {
+    readStdin: () => readFileSync(0, 'utf8'),
+    readFile: (path) => readFileSync(resolve(baseDirectory, path), 'utf8'),
+    stdout: (text) => process.stdout.write(text),
+    stderr: (text) => process.stderr.write(text),
+  };
+}
+
+export const defaultIo: CalcIo = createIo();
 
 export function usage(): string {
   const names = Object.keys(computeCommands).sort();
@@ -101,7 +107,10 @@ export function runCalc(args: readonly string[], io: CalcIo = defaultIo): number
   return 0;
 }
 
-/** Entry point used by server/cli/calc.mjs. */
-export function main(argv: readonly string[] = process.argv.slice(2)): void {
-  process.exitCode = runCalc(argv);
+/**
+ * Entry point used by server/cli/calc.mjs. `baseDirectory` is where the user typed the command (npm runs scripts
+ * from the package root, so the launcher passes npm's record of the original directory).
+ */
+export function main(argv: readonly string[] = process.argv.slice(2), baseDirectory: string = process.cwd()): void {
+  process.exitCode = runCalc(argv, createIo(baseDirectory));
 }
