@@ -2,6 +2,7 @@ import { ExpressAuth } from '@auth/express';
 import express, { type Express } from 'express';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
+import { signInThrottle } from './auth/sign-in-throttle';
 import type { AppContext } from './context';
 import { repoRoot } from './db/cluster';
 import { requireUser } from './middleware/auth';
@@ -30,6 +31,7 @@ export function createApp(ctx: AppContext, options: { clientDir?: string | null 
     next();
   });
   app.use('/api', sameOrigin(ctx.env.appUrl));
+  app.use('/api/auth/callback/credentials', ...signInThrottle());
   app.use('/api/auth', ExpressAuth(ctx.authConfig));
 
   app.use('/api', requireJsonBody, express.json({ limit: '5mb' }));

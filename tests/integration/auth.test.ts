@@ -108,3 +108,24 @@ describe('roles are read on every request', () => {
     await person.post('/api/projects').send({ name: 'After demotion', kind: 'floor' }).expect(403);
   });
 });
+
+describe('password guessing', () => {
+  it('after ten failed sign-ins for an address, even the right password gets 429 until the window passes', async () => {
+    const email = t.people.admin.email;
+    for (let i = 0; i < 10; i += 1) {
+      const agent = request.agent(t.app);
+      const { csrfToken } = (await agent.get('/api/auth/csrf').expect(200)).body as { csrfToken: string };
+      const response = await agent.post('/api/auth/callback/credentials').type('form').send({ csrfToken, email, password: `wrong-${i}` });
+      expect(response.headers.location).toContain('error=CredentialsSignin');
+    }
+    const agent = request.agent(t.app);
+    const { csrfToken } = (await agent.get('/api/auth/csrf').expect(200)).body as { csrfToken: string };
+    const refused = await agent.post('/api/auth/callback/credentials').type('form').send({ csrfToken, email: ' ADMIN@a.test', password: testPassword });
+    expect(refused.status).toBe(429);
+    expect(refused.body.error.code).toBe('too_many_sign_in_attempts');
+    expect(Number(refused.headers['retry-after'])).toBeGreaterThan(0);
+    await agent.get('/api/me').expect(401);
+    // Other people are not affected.
+    await signIn(t.app, t.people.engineer.email);
+  });
+});
