@@ -78,6 +78,16 @@ describe('numerical H∞ tuning', () => {
     }
   });
 
+  it('on an undamped primary has the exact H∞ damping ratio ¼√((8 + 9μ − 4√(4+3μ)) / (1+μ)) (Nishihara & Asami)', () => {
+    // O. Nishihara and T. Asami, "Closed-form solutions to the exact optimizations of dynamic vibration absorbers
+    // (minimizations of the maximum amplitude magnification factors)", J. Vib. Acoust. 124 (2002); formula from memory.
+    // The peak is flat in ζ_a along the equal-peak ridge, so ζ_a is looser than the peak itself.
+    for (const mu of [0.005, 0.01, 0.02, 0.05, 0.1, 0.2]) {
+      const exact = 0.25 * Math.sqrt((8 + 9 * mu - 4 * Math.sqrt(4 + 3 * mu)) / (1 + mu));
+      expect(Math.abs(tuneTmd('hinf', mu, 1, 0).tmdDampingRatio / exact - 1)).toBeLessThan(1e-4);
+    }
+  });
+
   it('is a minimum: no tuning on a fine grid around it has a lower peak (damped primary)', () => {
     const mu = 0.02;
     const zs = 0.01;
