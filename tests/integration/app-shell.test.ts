@@ -40,6 +40,17 @@ describe('serving the client', () => {
     }
   });
 
+  it('sends the security headers with pages and API answers', async () => {
+    const app = createApp(t.ctx, { clientDir });
+    for (const path of ['/', '/api/health']) {
+      const response = await request(app).get(path);
+      expect(response.headers['x-content-type-options']).toBe('nosniff');
+      expect(response.headers['x-frame-options']).toBe('DENY');
+      expect(response.headers['referrer-policy']).toBe('same-origin');
+      expect(response.headers['content-security-policy']).toContain("script-src 'self'");
+    }
+  });
+
   it('unknown /api paths get a JSON 404, never the client', async () => {
     const app = createApp(t.ctx, { clientDir });
     const response = await request(app).get('/api/nothing-here').expect(404);
