@@ -124,6 +124,15 @@ describe('calc: refusals (exit 2, error JSON as the last stderr line)', () => {
     expectRefused('modes', { ...modesRequest, massMatrixKg: 'diag' }, 'invalid_request', 'massMatrixKg', /array of rows/);
     expectRefused('free', { ...freeRequest, initialVelocityMPerS: [0] }, 'invalid_request', 'initialVelocityMPerS', /must have 2 entries, one per DOF/);
     expectRefused('response', { ...responseRequest, frequenciesHz: [] }, 'invalid_request', 'frequenciesHz', /at least one frequency/);
+    const chain = (n: number) => ({
+      massMatrixKg: Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => (i === j ? 100 : 0))),
+      stiffnessMatrixNPerM: Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => (i === j ? 2e5 : Math.abs(i - j) === 1 ? -1e5 : 0))),
+      initialDisplacementM: new Array(n).fill(0.001),
+      initialVelocityMPerS: new Array(n).fill(0),
+    });
+    const times = (count: number) => Array.from({ length: count }, (_, i) => i * 1e-3);
+    expectRefused('free', { ...chain(20), timesS: times(60000) }, 'invalid_request', 'timesS', /times × DOF must be at most 1,000,000 values/);
+    expectRefused('free', { ...chain(300), timesS: times(3000) }, 'invalid_request', 'timesS', /times × DOF² must be at most 200,000,000/);
   });
 
   it('symmetry, finiteness and strings for numbers', () => {

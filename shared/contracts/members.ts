@@ -26,6 +26,10 @@ export const memberListSchema = z.object({
 });
 export type MemberList = z.infer<typeof memberListSchema>;
 
+/** GET /api/organisation/people (every member): who is in the organisation, e.g. to pick a project's team. */
+export const peopleListSchema = z.object({ people: z.array(memberSchema) });
+export type PeopleList = z.infer<typeof peopleListSchema>;
+
 /** Body of POST /api/organisation/members (and POST /api/organisation/invitations): invite a person by e-mail. */
 export const createInvitationSchema = z.object({
   email: z.string().trim().toLowerCase().pipe(z.email('must be an e-mail address')),

@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { invitations, users } from '../../server/db/schema';
 import { devMailListSchema } from '../../shared/contracts/app-config';
-import { invitationPreviewSchema, invitationSchema, memberListSchema } from '../../shared/contracts/members';
+import { invitationPreviewSchema, invitationSchema, memberListSchema, peopleListSchema } from '../../shared/contracts/members';
 import { meSchema } from '../../shared/contracts/me';
 import { roles, type Role } from '../../shared/contracts/roles';
 import { appUrl, createTestApp, signIn, type Agent, type TestApp } from '../support/test-app';
@@ -123,6 +123,14 @@ describe('organisation members: admins only', () => {
     await agent.post('/api/organisation/invitations').send({ email: `from-${role}@example.test`, role: 'viewer' }).expect(403);
     await agent.patch(`/api/organisation/members/${t.people.viewer.id}`).send({ role: 'admin' }).expect(403);
     expect((await agent.get('/api/me').expect(200)).body.role).toBe(role);
+  });
+
+  it.each(roles)('%s reads the organisation’s people (no invitations) through /api/organisation/people', async (role) => {
+    const agent = await signIn(t.app, t.people[role].email);
+    const body = peopleListSchema.parse((await agent.get('/api/organisation/people').expect(200)).body);
+    expect(body.people.map((p) => p.email)).toEqual(expect.arrayContaining(roles.map((r) => `${r}@a.test`)));
+    expect(body.people.map((p) => p.email)).not.toContain(t.outsider.email);
+    expect(body).not.toHaveProperty('invitations');
   });
 
   it('the admin lists only their own organisation’s people', async () => {

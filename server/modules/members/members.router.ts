@@ -11,9 +11,17 @@ import {
 } from '../../../shared/contracts/members';
 import * as service from './members.service';
 
-/** /api/organisation: the organisation's people and invitations, admins only (requireUser runs before). */
+/**
+ * /api/organisation: the organisation's people and invitations, admins only (requireUser runs before) — except
+ * GET /people, the read-only list of members that everyone in the organisation may see.
+ */
 export function organisationRouter(ctx: AppContext): Router {
   const router = Router();
+
+  router.get('/people', async (req, res) => {
+    res.json(await service.listPeople(ctx.db, currentUser(req)));
+  });
+
   router.use(requireRole('admin'));
 
   router.get('/members', async (req, res) => {

@@ -14,6 +14,7 @@ import type {
   InvitationPreview,
   Member,
   MemberList,
+  PeopleList,
 } from '../../../shared/contracts/members';
 import type { Role } from '../../../shared/contracts/roles';
 import { emailRegistered } from '../users/users.repository';
@@ -49,6 +50,11 @@ function toInvitation(row: repository.InvitationRow): Invitation {
 export async function listMembers(db: Database, user: CurrentUser): Promise<MemberList> {
   const [members, invitations] = await Promise.all([repository.listMembers(db, user.organisationId), repository.listInvitations(db, user.organisationId)]);
   return { members: members.map(toMember), invitations: invitations.map(toInvitation) };
+}
+
+/** The organisation's people without the invitations: readable by every member. */
+export async function listPeople(db: Database, user: CurrentUser): Promise<PeopleList> {
+  return { people: (await repository.listMembers(db, user.organisationId)).map(toMember) };
 }
 
 export async function changeMemberRole(db: Database, user: CurrentUser, userId: string, role: Role): Promise<Member> {
