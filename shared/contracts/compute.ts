@@ -9,6 +9,10 @@ import { z } from 'zod';
 export const MAX_DOF = 400;
 /** Largest number of frequencies in one `response` request, and of times in one `free` request. */
 export const MAX_POINTS = 100_000;
+/** Largest times × DOF² of one `free` request (the cost of the modal sum). */
+export const MAX_FREE_WORK = 200_000_000;
+/** Largest times × DOF of one `free` request (the number of values in the answer). */
+export const MAX_FREE_VALUES = 1_000_000;
 /** Largest number of dampers on one mode in a `response` request. */
 export const MAX_TMDS = 50;
 /** Relative tolerance of the symmetry check, against the largest entry of the matrix. */
@@ -165,8 +169,19 @@ export const freeRequestSchema = z
         ctx.addIssue({ code: 'custom', path: [field], message: `must have ${n} entries, one per DOF (got ${value[field].length})` });
       }
     }
-    if (value.timesS.length * n > 4_000_000) {
-      ctx.addIssue({ code: 'custom', path: ['timesS'], message: `times × DOF must be at most 4,000,000 (got ${value.timesS.length * n})` });
+    if (value.timesS.length * n > MAX_FREE_VALUES) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['timesS'],
+        message: `times × DOF must be at most ${MAX_FREE_VALUES.toLocaleString('en-GB')} values (got ${(value.timesS.length * n).toLocaleString('en-GB')}); split the times into several requests`,
+      });
+    } else if (value.timesS.length * n * n > MAX_FREE_WORK) {
+      // The modal sum costs times × DOF² operations: keep one request to a fraction of a second.
+      ctx.addIssue({
+        code: 'custom',
+        path: ['timesS'],
+        message: `times × DOF² must be at most ${MAX_FREE_WORK.toLocaleString('en-GB')} (got ${(value.timesS.length * n * n).toLocaleString('en-GB')}); split the times into several requests`,
+      });
     }
   });
 export const freeResponseSchema = z.object({ displacementsM: z.array(z.array(z.number())) });
