@@ -4,7 +4,7 @@
  * for bad input (unknown command, unreadable file, invalid JSON, a request the schema or the mathematics refuses);
  * exit 1 for an internal failure. The same commands and schemas serve POST /api/compute/<command>.
  */
-import { readFileSync } from 'node:fs';
+import { readFileSync, readSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { computeCommands, getComputeCommand } from '../../shared/compute/commands';
 import { ComputeInputError, errorCodes } from '../../shared/compute/types';
@@ -17,10 +17,37 @@ export interface CalcIo {
   stderr(text: string): void;
 }
 
+/**
+ * All of standard input, synchronously. `readFileSync(0)` fails with EAGAIN when a large request arrives through a
+ * non-blocking pipe, so read in chunks and wait briefly whenever the pipe is momentarily empty.
+ */
+export function readStandardInput(): string {
+  const chunks: Buffer[] = [];
+  const buffer = Buffer.alloc(1 << 16);
+  const pause = new Int32Array(new SharedArrayBuffer(4));
+  for (;;) {
+    let count: number;
+    try {
+      count = readSync(0, buffer, 0, buffer.length, null);
+    } catch (error) {
+      const code = (error as NodeJS.ErrnoException).code;
+      if (code === 'EAGAIN') {
+        Atomics.wait(pause, 0, 0, 5);
+        continue;
+      }
+      if (code === 'EOF') break;
+      throw error;
+    }
+    if (count === 0) break;
+    chunks.push(Buffer.from(buffer.subarray(0, count)));
+  }
+  return Buffer.concat(chunks).toString('utf8');
+}
+
 /** Standard streams and files; relative paths are resolved against `baseDirectory`. */
 export function createIo(baseDirectory: string = process.cwd()): CalcIo {
   return {
-    readStdin: () => readFileSync(0, 'utf8'),
+    readStdin: readStandardInput,
     readFile: (path) => readFileSync(resolve(baseDirectory, path), 'utf8'),
     stdout: (text) => process.stdout.write(text),
     stderr: (text) => process.stderr.write(text),
@@ -112,5 +139,10 @@ export function runCalc(args: readonly string[], io: CalcIo = defaultIo): number
  * from the package root, so the launcher passes npm's record of the original directory).
  */
 export function main(argv: readonly string[] = process.argv.slice(2), baseDirectory: string = process.cwd()): void {
+  // A reader that stops early (`calc … | head`) is not an error of the command.
+  process.stdout.on('error', (error: NodeJS.ErrnoException) => {
+    if (error.code === 'EPIPE') process.exit(process.exitCode ?? 0);
+    throw error;
+  });
   process.exitCode = runCalc(argv, createIo(baseDirectory));
 }
