@@ -66,6 +66,7 @@ export const updateMemberRoleSchema = z.object({ role: roleSchema });
 export type UpdateMemberRoleInput = z.infer<typeof updateMemberRoleSchema>;
 
 export const userIdParamsSchema = z.object({ userId: z.uuid('must be a user id (UUID)') });
+export const invitationIdParamsSchema = z.object({ id: z.uuid('must be an invitation id (UUID)') });
 export const invitationTokenParamsSchema = z.object({ token: z.string().min(20, 'must be an invitation token') });
 
 /** The people working on one project (GET/POST /api/projects/:id/members). Their role is their organisation role. */

@@ -113,6 +113,38 @@ describe('invitation flow', () => {
   });
 });
 
+describe('removing people and withdrawing invitations', () => {
+  it('an admin withdraws an open invitation: its link stops working', async () => {
+    const created = invitationSchema.parse(
+      (await admin.post('/api/organisation/invitations').send({ email: 'withdrawn@example.test', role: 'viewer' }).expect(201)).body,
+    );
+    const token = await tokenFromMail('withdrawn@example.test');
+    await admin.delete(`/api/organisation/invitations/${created.id}`).expect(204);
+    await request(t.app).get(`/api/invitations/${token}`).expect(404);
+    await admin.delete(`/api/organisation/invitations/${created.id}`).expect(404);
+  });
+
+  it('an admin removes a person: their open session stops working and the address can be invited again', async () => {
+    await admin.post('/api/organisation/invitations').send({ email: 'leaver@example.test', role: 'engineer' }).expect(201);
+    const token = await tokenFromMail('leaver@example.test');
+    const accepted = await request(t.app).post(`/api/invitations/${token}/accept`).send({ name: 'Leaver', password: 'leaver-password-1' }).expect(201);
+    const leaver = await signIn(t.app, 'leaver@example.test', 'leaver-password-1');
+    await leaver.get('/api/me').expect(200);
+    await admin.delete(`/api/organisation/members/${accepted.body.userId}`).expect(204);
+    await leaver.get('/api/me').expect(401);
+    await leaver.post('/api/projects').send({ name: 'After leaving', kind: 'floor' }).expect(401);
+    await admin.post('/api/organisation/invitations').send({ email: 'leaver@example.test', role: 'viewer' }).expect(201);
+  });
+
+  it('an admin cannot remove themselves or another organisation’s person; others cannot remove anyone', async () => {
+    expect((await admin.delete(`/api/organisation/members/${t.people.admin.id}`).expect(409)).body.error.code).toBe('cannot_remove_self');
+    await admin.delete(`/api/organisation/members/${t.outsider.id}`).expect(404);
+    const engineer = await signIn(t.app, t.people.engineer.email);
+    await engineer.delete(`/api/organisation/members/${t.people.viewer.id}`).expect(403);
+    await engineer.get('/api/me').expect(200);
+  });
+});
+
 describe('organisation members: admins only', () => {
   const nonAdmins: Role[] = roles.filter((role) => role !== 'admin');
 

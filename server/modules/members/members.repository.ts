@@ -64,6 +64,41 @@ export async function insertOrganisation(db: Database, name: string): Promise<st
   return row.id;
 }
 
+/**
+ * Removes a person from the organisation: their account goes with their membership (a person belongs to one
+ * organisation), so the address can be invited again. Refuses to remove the last admin.
+ */
+export function removeMember(db: Database, organisationId: string, userId: string): Promise<'removed' | 'not_found' | 'last_admin'> {
+  return db.transaction(async (tx) => {
+    const admins = await tx
+      .select({ userId: memberships.userId })
+      .from(memberships)
+      .where(and(eq(memberships.organisationId, organisationId), eq(memberships.role, 'admin')))
+      .for('update');
+    const [current] = await tx
+      .select({ role: memberships.role })
+      .from(memberships)
+      .where(and(eq(memberships.organisationId, organisationId), eq(memberships.userId, userId)))
+      .for('update');
+    if (!current) return 'not_found';
+    if (current.role === 'admin' && admins.length <= 1) return 'last_admin';
+    await tx.delete(users).where(eq(users.id, userId));
+    return 'removed';
+  });
+}
+
+/** Withdraws an invitation that has not been used. */
+export async function withdrawInvitation(db: Database, organisationId: string, id: string): Promise<'withdrawn' | 'not_found' | 'used'> {
+  const [row] = await db
+    .select({ acceptedAt: invitations.acceptedAt })
+    .from(invitations)
+    .where(and(eq(invitations.organisationId, organisationId), eq(invitations.id, id)));
+  if (!row) return 'not_found';
+  if (row.acceptedAt) return 'used';
+  await db.delete(invitations).where(and(eq(invitations.organisationId, organisationId), eq(invitations.id, id)));
+  return 'withdrawn';
+}
+
 export function listInvitations(db: Database, organisationId: string): Promise<InvitationRow[]> {
   return db.select().from(invitations).where(eq(invitations.organisationId, organisationId)).orderBy(desc(invitations.createdAt)).limit(200);
 }

@@ -5,6 +5,7 @@ import { parsed, validate } from '../../middleware/validate';
 import {
   acceptInvitationSchema,
   createInvitationSchema,
+  invitationIdParamsSchema,
   invitationTokenParamsSchema,
   updateMemberRoleSchema,
   userIdParamsSchema,
@@ -36,6 +37,16 @@ export function organisationRouter(ctx: AppContext): Router {
 
   router.patch('/members/:userId', validate({ params: userIdParamsSchema, body: updateMemberRoleSchema }), async (req, res) => {
     res.json(await service.changeMemberRole(ctx.db, currentUser(req), parsed(userIdParamsSchema, req.params).userId, req.body.role));
+  });
+
+  router.delete('/members/:userId', validate({ params: userIdParamsSchema }), async (req, res) => {
+    await service.removeMember(ctx.db, currentUser(req), parsed(userIdParamsSchema, req.params).userId);
+    res.status(204).end();
+  });
+
+  router.delete('/invitations/:id', validate({ params: invitationIdParamsSchema }), async (req, res) => {
+    await service.withdrawInvitation(ctx.db, currentUser(req), parsed(invitationIdParamsSchema, req.params).id);
+    res.status(204).end();
   });
 
   return router;

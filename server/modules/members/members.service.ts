@@ -70,6 +70,23 @@ export async function changeMemberRole(db: Database, user: CurrentUser, userId: 
   return toMember(member);
 }
 
+export async function removeMember(db: Database, user: CurrentUser, userId: string): Promise<void> {
+  if (userId === user.id) {
+    throw new HttpError(409, 'cannot_remove_self', 'You cannot remove yourself: ask another admin', [
+      { path: 'userId', message: 'userId: is your own account' },
+    ]);
+  }
+  const outcome = await repository.removeMember(db, user.organisationId, userId);
+  if (outcome === 'not_found') throw notFound('The member', 'member_not_found');
+  if (outcome === 'last_admin') throw new HttpError(409, 'last_admin', 'The organisation needs at least one admin');
+}
+
+export async function withdrawInvitation(db: Database, user: CurrentUser, id: string): Promise<void> {
+  const outcome = await repository.withdrawInvitation(db, user.organisationId, id);
+  if (outcome === 'not_found') throw notFound('The invitation', 'invitation_not_found');
+  if (outcome === 'used') throw new HttpError(409, 'invitation_used', 'This invitation has been accepted already; remove the member instead');
+}
+
 /** Who an invitation comes from. */
 interface InvitationSource {
   organisationId: string;
