@@ -138,6 +138,20 @@ describe('changing a project', () => {
     expect(after).toMatchObject({ name: 'First writer', version: 2 });
   });
 
+  it('of two simultaneous changes at the same version exactly one wins; the other gets 409', async () => {
+    const created = projectSchema.parse((await agents.engineer.post('/api/projects').send({ name: 'Race', kind: 'floor' }).expect(201)).body);
+    const attempts = await Promise.all(
+      ['Writer A', 'Writer B', 'Writer C', 'Writer D'].map((name, i) =>
+        (i % 2 === 0 ? agents.engineer : agents.admin).patch(`/api/projects/${created.id}`).send({ version: 1, name }),
+      ),
+    );
+    const statuses = attempts.map((r) => r.status).sort();
+    expect(statuses).toEqual([200, 409, 409, 409]);
+    const winner = attempts.find((r) => r.status === 200)!.body as Project;
+    const [row] = await t.ctx.db.select().from(projects).where(eq(projects.id, created.id));
+    expect(row).toMatchObject({ name: winner.name, version: 2 });
+  });
+
   it('DELETE removes the project (204) and then it is gone (404)', async () => {
     const created = projectSchema.parse((await agents.admin.post('/api/projects').send({ name: 'Short-lived', kind: 'floor' }).expect(201)).body);
     await agents.engineer.delete(`/api/projects/${created.id}`).expect(204);
