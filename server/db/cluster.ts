@@ -198,12 +198,12 @@ export interface RunningCluster {
  * The project's own cluster for `npm start` and `npm run dev`: initdb the first time, start it unless it already
  * runs, create the `stillspan` database. Data is kept between starts.
  */
-export async function startProjectCluster(port: number): Promise<RunningCluster> {
+export async function startProjectCluster(port: number, root = repoRoot): Promise<RunningCluster> {
   await ensurePostgresInstalled();
   await ensurePostgresUser();
-  const paths = projectClusterPaths();
+  const paths = projectClusterPaths(root);
   if (!paths.inRepository) {
-    log(`the postgres user cannot enter ${repoRoot}; keeping the database in ${paths.dataDir} instead`);
+    log(`the postgres user cannot enter ${root}; keeping the database in ${paths.dataDir} instead`);
   }
   if (isRoot) {
     mkdirSync(dirname(paths.dataDir), { recursive: true, mode: 0o755 });
