@@ -196,6 +196,12 @@ describe('bad input', () => {
     expectError(response.body, 'invalid_json');
   });
 
+  it('a body over the size limit gets 413, not 500', async () => {
+    const response = await agents.engineer.post('/api/projects').send({ name: 'Huge', kind: 'floor', description: 'x'.repeat(6 * 1024 * 1024) });
+    expect(response.status).toBe(413);
+    expectError(response.body, 'payload_too_large');
+  });
+
   it('a body that is not JSON gets 415', async () => {
     const response = await agents.engineer.post('/api/projects').set('Content-Type', 'text/plain').send('name=x');
     expect(response.status).toBe(415);
