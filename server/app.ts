@@ -59,7 +59,7 @@ export function createApp(ctx: AppContext, options: { clientDir?: string | null 
   if (!ctx.env.isProduction && ctx.fakeSmtp) app.use('/api/dev/mail', devMailRouter(ctx.fakeSmtp));
 
   const signedIn = requireUser(ctx.db, ctx.authConfig);
-  app.use('/api/me', signedIn, meRouter());
+  app.use('/api/me', signedIn, meRouter(ctx.db));
   app.use('/api/projects/:id/members', signedIn, projectMembersRouter(ctx));
   app.use('/api/projects', signedIn, projectsRouter(ctx));
   app.use('/api/organisation', signedIn, organisationRouter(ctx));

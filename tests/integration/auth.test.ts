@@ -109,6 +109,24 @@ describe('roles are read on every request', () => {
   });
 });
 
+describe('changing one’s password', () => {
+  it('needs the current password; afterwards only the new one signs in', async () => {
+    const agent = await signIn(t.app, t.people.fabricator.email);
+    const wrong = await agent.put('/api/me/password').send({ currentPassword: 'not-it', newPassword: 'a-brand-new-password' }).expect(400);
+    expect(wrong.body.error.issues.map((i: { path: string }) => i.path)).toEqual(['currentPassword']);
+    const short = await agent.put('/api/me/password').send({ currentPassword: testPassword, newPassword: 'short' }).expect(400);
+    expect(short.body.error.issues.map((i: { path: string }) => i.path)).toEqual(['newPassword']);
+    await request(t.app).put('/api/me/password').send({ currentPassword: testPassword, newPassword: 'a-brand-new-password' }).expect(401);
+    await agent.put('/api/me/password').send({ currentPassword: testPassword, newPassword: 'a-brand-new-password' }).expect(204);
+    await signIn(t.app, t.people.fabricator.email, 'a-brand-new-password');
+    const old = request.agent(t.app);
+    const { csrfToken } = (await old.get('/api/auth/csrf').expect(200)).body as { csrfToken: string };
+    const response = await old.post('/api/auth/callback/credentials').type('form').send({ csrfToken, email: t.people.fabricator.email, password: testPassword });
+    expect(response.headers.location).toContain('error=CredentialsSignin');
+    await agent.put('/api/me/password').send({ currentPassword: 'a-brand-new-password', newPassword: testPassword }).expect(204);
+  });
+});
+
 describe('password guessing', () => {
   it('after ten failed sign-ins for an address, even the right password gets 429 until the window passes', async () => {
     const email = t.people.admin.email;

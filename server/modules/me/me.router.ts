@@ -1,9 +1,12 @@
 import { Router } from 'express';
 import { currentUser } from '../../middleware/auth';
-import type { Me } from '../../../shared/contracts/me';
+import { changePasswordSchema, type Me } from '../../../shared/contracts/me';
+import type { Database } from '../../db/client';
+import { validate } from '../../middleware/validate';
+import { changePassword } from './me.service';
 
-/** GET /api/me: the signed-in person, with their current role and organisation. */
-export function meRouter(): Router {
+/** GET /api/me: the signed-in person, with their current role and organisation; PUT /api/me/password. */
+export function meRouter(db: Database): Router {
   const router = Router();
   router.get('/', (req, res) => {
     const user = currentUser(req);
@@ -15,6 +18,10 @@ export function meRouter(): Router {
       organisation: { id: user.organisationId, name: user.organisationName },
     };
     res.json(body);
+  });
+  router.put('/password', validate({ body: changePasswordSchema }), async (req, res) => {
+    await changePassword(db, currentUser(req), req.body);
+    res.status(204).end();
   });
   return router;
 }
