@@ -2,7 +2,7 @@
 // Launcher of the `calc` command. Node 20 cannot run TypeScript, and a TypeScript loader costs a few hundred
 // milliseconds at every start, so calc.ts and what it imports are bundled once by esbuild into
 // .cache/calc/calc.mjs and that bundle is imported directly. The bundle is rebuilt when it is missing or when any
-// of the source files esbuild recorded in its metafile is newer than it (or gone). See docs/decisions/calc-launcher.md.
+// of the source files esbuild recorded in its metafile is newer than it (or gone). See docs/decisions/0008-calc-launcher.md.
 import { statSync, readFileSync, mkdirSync, renameSync, writeFileSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';

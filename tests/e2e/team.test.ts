@@ -1,6 +1,6 @@
 /**
  * The team around a project, end to end in Debian's Chromium: the demo administrator invites a person, changes a
- * role and adds someone to a project; a save over someone else's change is refused with a reload offer (409);
+ * role and adds someone to a project (as does the engineer); a save over someone else's change is refused with a reload offer (409);
  * the invited person follows the link caught by the development mailbox, sets a password and lands in the
  * organisation with the role given. Names and addresses are invented.
  */
@@ -129,6 +129,22 @@ describe('organisation and project team in the browser', () => {
 
     await signOut(page);
     await signIn(page, baseUrl, inviteeEmail, 'a-long-invented-passphrase');
+  });
+
+  it('lets the engineer add an organisation member to a project too', async () => {
+    const { page } = browser;
+    await signOut(page);
+    await signIn(page, baseUrl, 'engineer@demo.stillspan.test');
+    await page.getByRole('list', { name: 'Projects' }).getByRole('link', { name: 'Caskett Yard offices, level 3 floor' }).click();
+    await page.getByRole('heading', { level: 1, name: 'Caskett Yard offices, level 3 floor' }).waitFor();
+    await page.getByRole('navigation', { name: 'Project sections' }).getByRole('link', { name: 'Members' }).click();
+    const table = page.getByRole('table', { name: 'Project members' });
+    await table.getByRole('cell', { name: 'Tomas Rennick', exact: true }).waitFor();
+    await page.getByLabel('Person').selectOption({ label: 'Ruth Okonjo — Viewer (viewer@demo.stillspan.test)' });
+    await page.getByRole('button', { name: 'Add to project' }).click();
+    await table.getByRole('cell', { name: 'Ruth Okonjo', exact: true }).waitFor();
+    await browser.shot('team-07-project-members-engineer');
+    await signOut(page);
   });
 
   it('logged no console errors', () => {

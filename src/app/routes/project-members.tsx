@@ -1,29 +1,24 @@
 import { useQuery } from '@tanstack/react-query';
 import { Loading } from '../../components/ui/loading';
 import { QueryError } from '../../components/ui/query-error';
-import { organisationMembersQueryOptions } from '../../features/members/api/members';
+import { organisationPeopleQueryOptions } from '../../features/members/api/members';
 import { projectMembersQueryOptions } from '../../features/projects/api/projects';
 import { ProjectMembersPanel, type MemberCandidate } from '../../features/projects/components/project-members-panel';
-import { useCurrentUser } from '../session';
 import { useProjectContext } from './project-layout';
 
-/**
- * The project's people; editors add people of the organisation. The organisation's list is readable by
- * administrators only, so only they get the list to choose from.
- */
+/** The project's people; editors (admins and engineers) add people of the organisation from its people list. */
 export function ProjectMembersRoute() {
   const { project, canEdit } = useProjectContext();
-  const me = useCurrentUser();
-  const canListOrganisation = canEdit && me.role === 'admin';
+  const canListOrganisation = canEdit;
   const members = useQuery(projectMembersQueryOptions(project.id));
-  const organisation = useQuery({ ...organisationMembersQueryOptions(), enabled: canListOrganisation });
+  const organisation = useQuery({ ...organisationPeopleQueryOptions(), enabled: canListOrganisation });
 
   if (members.isPending) return <Loading label="Loading the project's members…" />;
   if (members.isError) return <QueryError error={members.error} retry={() => void members.refetch()} what="the project's members" />;
 
   let candidates: MemberCandidate[] | null = null;
   if (organisation.data) {
-    candidates = organisation.data.members.map(({ userId, name, email, role }) => ({ userId, name, email, role }));
+    candidates = organisation.data.people.map(({ userId, name, email, role }) => ({ userId, name, email, role }));
   }
   if (canListOrganisation && organisation.isPending) return <Loading label="Loading the organisation's people…" />;
 

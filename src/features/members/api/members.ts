@@ -1,14 +1,24 @@
 import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import {
   memberListSchema,
+  peopleListSchema,
   type CreateInvitationInput,
   type UpdateMemberRoleInput,
 } from '../../../../shared/contracts';
 import { apiRequest } from '../../../lib/api-client';
 
 export const memberKeys = {
+  organisation: ['organisation'] as const,
   all: ['organisation', 'members'] as const,
+  people: ['organisation', 'people'] as const,
 };
+
+/** The organisation's people without invitations: readable by every member (used to add people to a project). */
+export const organisationPeopleQueryOptions = () =>
+  queryOptions({
+    queryKey: memberKeys.people,
+    queryFn: ({ signal }) => apiRequest('/api/organisation/people', { schema: peopleListSchema, signal }),
+  });
 
 /** The organisation's people and its invitations (administrators only). */
 export const organisationMembersQueryOptions = () =>
@@ -21,7 +31,7 @@ export function useInviteMember() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: CreateInvitationInput) => apiRequest('/api/organisation/members', { method: 'POST', body: input }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: memberKeys.all }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: memberKeys.organisation }),
   });
 }
 
@@ -30,6 +40,6 @@ export function useChangeMemberRole() {
   return useMutation({
     mutationFn: ({ userId, ...input }: UpdateMemberRoleInput & { userId: string }) =>
       apiRequest(`/api/organisation/members/${encodeURIComponent(userId)}`, { method: 'PATCH', body: input }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: memberKeys.all }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: memberKeys.organisation }),
   });
 }

@@ -22,7 +22,7 @@ interface ProjectMembersPanelProps {
   projectId: string;
   members: ProjectMember[];
   canEdit: boolean;
-  /** The organisation's people, or null when this person may not list them. */
+  /** The organisation's people, or null when the list could not be loaded. */
   candidates: MemberCandidate[] | null;
 }
 
@@ -92,8 +92,8 @@ function AddProjectMember({ projectId, members, candidates }: { projectId: strin
     return (
       <Panel title="Add a member">
         <p className="text-small text-ink-muted">
-          Only an administrator can see the organisation&apos;s full list of people, so an administrator adds new members
-          to this project. You can remove members here.
+          The organisation&apos;s list of people could not be loaded, so nobody can be added just now. Reload the page to
+          try again; you can still remove members here.
         </p>
       </Panel>
     );
