@@ -162,7 +162,7 @@ describe('calc: refusals (exit 2, error JSON as the last stderr line)', () => {
     expectRefused('tune', { ...tuneRequest, structureDampingRatio: -0.01 }, 'invalid_request', 'structureDampingRatio', /damping ratio in \[0, 1\)/);
     expectRefused('response', { ...responseRequest, tmds: [{ massKg: 700, frequencyHz: 2, dampingRatio: 1.5 }] }, 'invalid_request', 'tmds.0.dampingRatio', /damping ratio in \[0, 1\)/);
     expectRefused('tune', { ...tuneRequest, method: 'optimal' }, 'invalid_request', 'method', /must be one of den-hartog, warburton-random, ioi-ikeda, hinf, h2/);
-    expectRefused('tune', { ...tuneRequest, structureDampingRation: 0.01 }, 'invalid_request', '', /structureDampingRation/);
+    expectRefused('tune', { ...tuneRequest, structureDampingRation: 0.01 }, 'invalid_request', 'structureDampingRation', /structureDampingRation: is not a known field/);
     expectRefused('tune', { method: 'hinf', structureFrequencyHz: 2 }, 'invalid_request', 'massRatio', /massRatio: is required/);
     expectRefused('tune', { ...tuneRequest, method: 'hinf', structureDampingRatio: 0.8 }, 'invalid_request', 'structureDampingRatio', /must be below 1\/√2/);
   });

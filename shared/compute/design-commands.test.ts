@@ -79,7 +79,7 @@ describe('design commands', () => {
     ['jogger sideways', 'assess', { structure: { ...structure, direction: 'lateral' }, tmds, loadCase: { kind: 'jogger' } }, 'structure.direction', /"vertical"/],
     ['unknown criteria class', 'assess', { structure, tmds, loadCase: crowd, criteria: { set: 'hivoss', class: 'CL9' } }, 'criteria.class', /CL1/],
     ['DG11 limits on a lateral mode', 'assess', { structure: { ...structure, direction: 'lateral', frequencyHz: 0.9 }, tmds, loadCase: { ...crowd, kind: 'crowd' }, criteria: { set: 'dg11', class: 'office' } }, 'criteria.set', /vertical modes only/],
-    ['misspelt field', 'assess', { structure, tmds, loadCase: { ...crowd, deckArea: 3 } }, 'loadCase', /Unrecognized key/],
+    ['misspelt field', 'assess', { structure, tmds, loadCase: { ...crowd, deckArea: 3 } }, 'loadCase.deckArea', /is not a known field/],
     ['unknown tuning method', 'size', { structure, method: 'guess', loadCase: crowd, peakAccelerationLimitMPerS2: 0.5 }, 'method', /den-hartog/],
     ['moving walker in size', 'size', { structure, method: 'hinf', loadCase: { kind: 'moving-walker', spanM: 30 }, peakAccelerationLimitMPerS2: 0.5 }, 'loadCase.kind', /must have a "kind"/],
     ['unreachable limit', 'size', { structure, method: 'den-hartog', loadCase: crowd, peakAccelerationLimitMPerS2: 1e-5 }, 'peakAccelerationLimitMPerS2', /no damper up to/],

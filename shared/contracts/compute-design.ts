@@ -7,7 +7,16 @@ import { z } from 'zod';
  */
 
 /** The message of a type error: "is required" when the field is missing, else the expected kind. */
-const typeError = (expected: string) => (issue: { input?: unknown }) => (issue.input === undefined ? 'is required' : expected);
+/**
+ * The message of a wrong type, or "is required" when the field is missing. Other issues of the same schema (an
+ * unknown key of a strict object, say) keep their own message.
+ */
+const typeError = (expected: string) => (issue: { code?: string; input?: unknown }) =>
+  issue.code === undefined || issue.code === 'invalid_type' || issue.code === 'invalid_value' || issue.code === 'invalid_union'
+    ? issue.input === undefined
+      ? 'is required'
+      : expected
+    : undefined;
 const num = () => z.number({ error: typeError('must be a number') }).finite('must be a finite number');
 const int = () => z.number({ error: typeError('must be a number') }).int('must be a whole number');
 const positive = () => num().positive('must be greater than 0');

@@ -18,8 +18,16 @@ export const MAX_TMDS = 50;
 /** Relative tolerance of the symmetry check, against the largest entry of the matrix. */
 export const MATRIX_SYMMETRY_TOLERANCE = 1e-9;
 
-/** The message of a wrong type, or "is required" when the field is missing. */
-const typeError = (message: string) => (issue: { input?: unknown }) => (issue.input === undefined ? 'is required' : message);
+/**
+ * The message of a wrong type, or "is required" when the field is missing. Other issues of the same schema (an
+ * unknown key of a strict object, say) keep their own message.
+ */
+const typeError = (message: string) => (issue: { code?: string; input?: unknown }) =>
+  issue.code === undefined || issue.code === 'invalid_type' || issue.code === 'invalid_value' || issue.code === 'invalid_union'
+    ? issue.input === undefined
+      ? 'is required'
+      : message
+    : undefined;
 
 const finite = z.number({ error: typeError('must be a finite number') });
 const positive = finite.gt(0, { error: 'must be greater than 0' });
@@ -118,6 +126,8 @@ export const structureModeSchema = z.strictObject(
     modalMassKg: positive,
     frequencyHz: positive,
     dampingRatio,
+    /** Accepted so that one structure object serves every command; the response does not depend on it. */
+    direction: z.enum(['vertical', 'lateral', 'longitudinal', 'torsional'], { error: 'must be "vertical", "lateral", "longitudinal" or "torsional"' }).optional(),
   },
   { error: typeError('must be an object { modalMassKg, frequencyHz, dampingRatio }') },
 );
