@@ -64,10 +64,72 @@ describe('design commands', () => {
     expect(designCommands.size.request.parse({ structure, method: 'hinf', loadCase: crowd, peakAccelerationLimitMPerS2: 1 }).structureFrequencyToleranceRatio).toBe(0);
   });
 
+  describe('structure damping ratio 0', () => {
+    const undamped = { ...structure, dampingRatio: 0 };
+    const harmonic = { kind: 'harmonic', modalForceAmplitudeN: 300, pacingRangeHz: [1.6, 2.4] };
+    /** Runs a command and returns its answer as the JSON text the API and `calc` send, parsed back. */
+    const throughJson = (command: string, body: unknown) => {
+      const answer = designCommands[command].run(designCommands[command].request.parse(body));
+      const json = JSON.parse(JSON.stringify(answer)) as Record<string, unknown>;
+      const check = designCommands[command].response.safeParse(json);
+      expect(check.success, check.success ? '' : check.error.message).toBe(true);
+      return json;
+    };
+
+    it('assess: the unbounded bare peak is null in the JSON, at the structure frequency, with a warning and a failing bare verdict', () => {
+      const json = throughJson('assess', { structure: undamped, tmds, loadCase: harmonic, criteria: { set: 'en1990', class: 'normal-use' } });
+      expect(json.bareStructurePeakAccelerationMPerS2).toBeNull();
+      expect(json.bareStructureAtFrequencyHz).toBe(2.0);
+      expect(json.bareStructureVerdict).toBe('fail');
+      expect(json.bareStructureUtilisation).toBeNull();
+      expect(typeof json.peakAccelerationMPerS2).toBe('number');
+      const warning = (json.warnings as Array<{ code: string; message: string }>).find((w) => w.code === 'bare-structure-unbounded');
+      expect(warning?.message).toMatch(/damping ratio of 0.*2\.000 Hz lies in the loaded band.*null/);
+    });
+
+    it('assess: the crowd is accepted from 1 person/m² (n\' = 1.85 √n, Sétra 2006 class I)', () => {
+      const json = throughJson('assess', { structure: undamped, tmds, loadCase: { kind: 'crowd', guide: 'setra', trafficClass: 'I', deckAreaM2: 150 } });
+      expect(json.equivalentPedestrians).toBeCloseTo(1.85 * Math.sqrt(150), 12);
+      expect(json.bareStructurePeakAccelerationMPerS2).toBeNull();
+    });
+
+    it('size and robustness: null bare entries in the JSON, numbers elsewhere', () => {
+      const s = throughJson('size', { structure: undamped, method: 'den-hartog', loadCase: harmonic, peakAccelerationLimitMPerS2: 0.5, structureFrequencyToleranceRatio: 0.05 });
+      expect(s.bareStructureWorstPeakAccelerationMPerS2).toBeNull();
+      expect(typeof s.massRatio).toBe('number');
+      expect((s.massRatio as number) > 0).toBe(true);
+      const r = throughJson('robustness', { structure: undamped, tmds, loadCase: harmonic, structureFrequencyFactors: [0.7, 1, 1.25], tmdDampingFactors: [0.5, 1] });
+      // 0.7 × 2 = 1.4 Hz lies below the band and 1.25 × 2 = 2.5 Hz above it: finite; 2.0 Hz lies in it: null.
+      expect(r.bareStructurePeakAccelerationMPerS2).toEqual([expect.any(Number), null, expect.any(Number)]);
+      expect((r.peakAccelerationMPerS2 as number[][]).flat().every(Number.isFinite)).toBe(true);
+    });
+
+    it('assess, floor walking: the DG11 formula value is null; moving walker: the steady state is null', () => {
+      const floor = throughJson('assess', { structure: { ...undamped, frequencyHz: 5.5 }, tmds: [{ massKg: 800, frequencyHz: 5.3, dampingRatio: 0.08 }], loadCase: { kind: 'floor-walking' } });
+      expect((floor.dg11 as Record<string, unknown>).formulaPeakAccelerationMPerS2).toBeNull();
+      const walker = throughJson('assess', { structure: undamped, loadCase: { kind: 'moving-walker', spanM: 30 } });
+      expect((walker.timeHistory as Record<string, unknown>).steadyStatePeakAccelerationMPerS2).toBeNull();
+      expect(typeof walker.bareStructurePeakAccelerationMPerS2).toBe('number');
+    });
+  });
+
   const bad: Array<[string, string, unknown, string, RegExp]> = [
     ['string for a number', 'assess', { structure: { ...structure, modalMassKg: '40000' }, tmds, loadCase: crowd }, 'structure.modalMassKg', /must be a number/],
     ['missing field', 'assess', { structure, tmds, loadCase: { kind: 'crowd', guide: 'setra', densityPerM2: 0.5 } }, 'loadCase.deckAreaM2', /is required/],
-    ['zero damping of the structure', 'assess', { structure: { ...structure, dampingRatio: 0 }, tmds, loadCase: crowd }, 'structure.dampingRatio', /greater than 0/],
+    // Structure damping ratio: [0, 1) like the engine's commands; 0 is refused only where it makes the load meaningless.
+    ['a negative structure damping ratio', 'assess', { structure: { ...structure, dampingRatio: -0.01 }, tmds, loadCase: crowd }, 'structure.dampingRatio', /0 or greater/],
+    ['a structure damping ratio of 1', 'size', { structure: { ...structure, dampingRatio: 1 }, method: 'hinf', loadCase: crowd, peakAccelerationLimitMPerS2: 0.5 }, 'structure.dampingRatio', /less than 1/],
+    // Sétra 2006 / HiVoSS 2008: below 1 person/m² n' = 10.8 √(ζ n) needs the structure's own damping.
+    ['zero damping of the structure under a crowd below 1 P/m² (Sétra)', 'assess', { structure: { ...structure, dampingRatio: 0 }, tmds, loadCase: crowd }, 'structure.dampingRatio', /n' = 10\.8 √\(ζ n\).*needs the structure's own damping.*1\.85 √n does not/],
+    ['zero damping of the structure under HiVoSS TC1 (15 people)', 'assess', { structure: { ...structure, dampingRatio: 0 }, tmds, loadCase: { kind: 'crowd', guide: 'hivoss', trafficClass: 'TC1', deckAreaM2: 120 } }, 'structure.dampingRatio', /10\.8 √\(ζ n\)/],
+    ['zero damping of the structure, lateral crowd of Sétra class II', 'assess', { structure: { modalMassKg: 90000, frequencyHz: 0.95, dampingRatio: 0, direction: 'lateral' }, tmds, loadCase: { kind: 'lateral', guide: 'setra', trafficClass: 'II', deckAreaM2: 400 } }, 'structure.dampingRatio', /10\.8 √\(ζ n\)/],
+    ['zero damping of the structure under a crowd in size', 'size', { structure: { ...structure, dampingRatio: 0 }, method: 'den-hartog', loadCase: crowd, peakAccelerationLimitMPerS2: 0.5 }, 'structure.dampingRatio', /10\.8 √\(ζ n\)/],
+    ['zero damping of the structure under a crowd in robustness', 'robustness', { structure: { ...structure, dampingRatio: 0 }, tmds, loadCase: crowd, structureFrequencyFactors: [1], tmdDampingFactors: [1] }, 'structure.dampingRatio', /10\.8 √\(ζ n\)/],
+    // No damping anywhere and a resonance in the band: the steady state is unbounded.
+    ['an undamped structure without dampers at resonance', 'assess', { structure: { ...structure, dampingRatio: 0 }, loadCase: { kind: 'harmonic', modalForceAmplitudeN: 100, pacingRangeHz: [1.6, 2.4] } }, 'structure.dampingRatio', /no damper is attached.*unbounded/],
+    ['an undamped structure with an undamped damper', 'assess', { structure: { ...structure, dampingRatio: 0 }, tmds: [{ ...tmds[0], dampingRatio: 0 }], loadCase: { kind: 'harmonic', modalForceAmplitudeN: 100, pacingRangeHz: [1.6, 2.4] } }, 'tmds.0.dampingRatio', /coupled natural frequency .* Hz lies in the loaded band 1\.6–2\.4 Hz.*unbounded/],
+    ['a damping factor of 0 on an undamped structure', 'robustness', { structure: { ...structure, dampingRatio: 0 }, tmds, loadCase: { kind: 'harmonic', modalForceAmplitudeN: 100, pacingRangeHz: [1.6, 2.4] }, structureFrequencyFactors: [1], tmdDampingFactors: [1, 0] }, 'tmdDampingFactors.1', /unbounded/],
+    ['an undamped damper in robustness on an undamped structure', 'robustness', { structure: { ...structure, dampingRatio: 0 }, tmds: [{ ...tmds[0], dampingRatio: 0 }], loadCase: { kind: 'harmonic', modalForceAmplitudeN: 100, pacingRangeHz: [1.6, 2.4] }, structureFrequencyFactors: [1], tmdDampingFactors: [1] }, 'tmds.0.dampingRatio', /unbounded/],
     ['damper damping ratio of 1', 'assess', { structure, tmds: [{ ...tmds[0], dampingRatio: 1 }], loadCase: crowd }, 'tmds.0.dampingRatio', /less than 1/],
     ['negative damper mass', 'assess', { structure, tmds: [{ ...tmds[0], massKg: -5 }], loadCase: crowd }, 'tmds.0.massKg', /greater than 0/],
     ['unknown load kind', 'assess', { structure, tmds, loadCase: { kind: 'stampede' } }, 'loadCase.kind', /must have a "kind"/],

@@ -34,7 +34,8 @@ export const directionSchema = z.enum(['vertical', 'lateral', 'longitudinal'], {
 export const designStructureSchema = z.strictObject({
   modalMassKg: positive(),
   frequencyHz: positive(),
-  dampingRatio: num().gt(0, 'must be greater than 0 (a structure without damping has an unbounded resonance)').lt(1, 'must be less than 1'),
+  /** [0, 1) like the engine's commands; 0 is refused only where a load model needs the structure's damping. */
+  dampingRatio: fraction(),
   direction: directionSchema.default('vertical'),
 });
 
@@ -283,7 +284,8 @@ export const hardwareEntrySchema = z.object({
 export const assessResponseSchema = z.object({
   peakAccelerationMPerS2: z.number(),
   atFrequencyHz: z.number(),
-  bareStructurePeakAccelerationMPerS2: z.number(),
+  /** null when unbounded: structure damping ratio 0 and its frequency in the loaded band (warning bare-structure-unbounded). */
+  bareStructurePeakAccelerationMPerS2: z.number().nullable(),
   bareStructureAtFrequencyHz: z.number(),
   tmdStrokeM: z.array(z.number()),
   tmdStrokeAtFrequencyHz: z.array(z.number()),
@@ -295,7 +297,8 @@ export const assessResponseSchema = z.object({
   verdict: z.enum(['pass', 'fail']).optional(),
   utilisation: z.number().optional(),
   bareStructureVerdict: z.enum(['pass', 'fail']).optional(),
-  bareStructureUtilisation: z.number().optional(),
+  /** null when the bare peak is null (unbounded). */
+  bareStructureUtilisation: z.number().nullable().optional(),
   criterion: criterionSchema.optional(),
   comfortClass: z.string().optional(),
   bareStructureComfortClass: z.string().optional(),
@@ -319,7 +322,8 @@ export const assessResponseSchema = z.object({
     .object({
       effectiveWeightN: z.number(),
       constantForceN: z.number(),
-      formulaPeakAccelerationMPerS2: z.number(),
+      /** null for a damping ratio of 0 (the formula divides by it). */
+      formulaPeakAccelerationMPerS2: z.number().nullable(),
     })
     .optional(),
   timeHistory: z
@@ -332,7 +336,8 @@ export const assessResponseSchema = z.object({
       maxRunningRms1sMPerS2: z.number(),
       bareStructurePeakAccelerationMPerS2: z.number(),
       bareStructureMaxRunningRms1sMPerS2: z.number(),
-      steadyStatePeakAccelerationMPerS2: z.number(),
+      /** null when unbounded: no damping anywhere and the governing harmonic at a natural frequency. */
+      steadyStatePeakAccelerationMPerS2: z.number().nullable(),
       governingHarmonicForceN: z.number(),
       governingHarmonicFrequencyHz: z.number(),
       modelRangeHz: z.tuple([z.number(), z.number()]),
@@ -353,7 +358,8 @@ export const sizeResponseSchema = z.object({
   tmd: z.object({ massKg: z.number(), frequencyHz: z.number(), dampingRatio: z.number() }).nullable(),
   worstPeakAccelerationMPerS2: z.number(),
   worstAtStructureFrequencyHz: z.number(),
-  bareStructureWorstPeakAccelerationMPerS2: z.number(),
+  /** null when unbounded: structure damping ratio 0 with a structure frequency of the band in the loaded band. */
+  bareStructureWorstPeakAccelerationMPerS2: z.number().nullable(),
   structureFrequencyRangeHz: z.tuple([z.number(), z.number()]),
   peakAccelerationLimitMPerS2: z.number(),
   method: tuningMethodSchema,
@@ -371,8 +377,8 @@ export const robustnessResponseSchema = z.object({
   tmdDampingFactors: z.array(z.number()),
   /** Row per structure-frequency factor, column per damper-damping factor. */
   peakAccelerationMPerS2: z.array(z.array(z.number())),
-  /** Peak of the bare structure per structure-frequency factor. */
-  bareStructurePeakAccelerationMPerS2: z.array(z.number()),
+  /** Peak of the bare structure per structure-frequency factor; null where unbounded (damping ratio 0, frequency in the loaded band). */
+  bareStructurePeakAccelerationMPerS2: z.array(z.number().nullable()),
   warnings: z.array(designWarningSchema),
 });
 export type RobustnessResponse = z.infer<typeof robustnessResponseSchema>;

@@ -8,7 +8,14 @@
 import type { StructureMode, TmdParameters } from './types';
 import type { LoadDirection } from './loads/pedestrian-crowd';
 import { buildLoadEnvelope, LoadCaseError, type LoadEnvelope, type SteadyLoadCase } from './loads/load-envelope';
-import { createModeTmdKernel, findEnvelopePeak, type ModeTmdKernel } from './loads/response-envelope';
+import {
+  createModeTmdKernel,
+  findEnvelopePeak,
+  unboundedBareFrequencyHz,
+  unboundedResonanceHz,
+  type ForceBand,
+  type ModeTmdKernel,
+} from './loads/response-envelope';
 import { criticalPedestrians, criticalPedestriansBare } from './loads/lateral-lock-in';
 import { dg11PeakAccelerationMPerS2 } from './loads/floor-walking';
 import { gradeComfort, resolveComfortLimit, type ComfortLimit, type CriteriaInput } from './criteria';
@@ -62,11 +69,41 @@ export function frequencyRangeWarnings(structureFrequencyHz: number, envelope: {
   return [];
 }
 
+/** The warning given with `bareStructure…: null`: the undamped bare mode resonates inside the loaded band. */
+export function bareUnboundedWarning(structureFrequencyHz: number, what = 'the bare structure'): DesignWarning {
+  return {
+    code: 'bare-structure-unbounded',
+    message: `${what} has a damping ratio of 0 and its frequency ${structureFrequencyHz.toPrecision(4)} Hz lies in the loaded band: its steady-state resonance grows without limit, so no finite peak exists and the bare value is given as null (the verdict without dampers is fail)`,
+  };
+}
+
+/**
+ * Refuses a system with no damping anywhere whose resonance lies in the loaded band (the steady state is unbounded).
+ * `dampingPath` names the field that removed the last damping (a damper's damping ratio, a damping factor …).
+ */
+export function refuseUnboundedResponse(kernel: ModeTmdKernel, bands: readonly ForceBand[], dampingPath: string, how: string): void {
+  const hit = unboundedResonanceHz(kernel, bands);
+  if (!hit) return;
+  const f = hit.frequencyHz.toPrecision(4);
+  const band = `${hit.band.loHz}–${hit.band.hiHz} Hz`;
+  if (kernel.tmdCount === 0) {
+    throw new LoadCaseError(
+      'structure.dampingRatio',
+      `is 0 and no damper is attached: the structure frequency ${f} Hz lies in the loaded band ${band}, where the steady-state response is unbounded; give a damping ratio greater than 0 or attach a damper`,
+    );
+  }
+  throw new LoadCaseError(
+    dampingPath,
+    `${how}: the coupled natural frequency ${f} Hz lies in the loaded band ${band}, where the steady-state response of the undamped system is unbounded; give at least one damper a damping ratio greater than 0`,
+  );
+}
+
 interface CriterionAnswer {
   verdict: 'pass' | 'fail';
   utilisation: number;
   bareStructureVerdict: 'pass' | 'fail';
-  bareStructureUtilisation: number;
+  /** null when the bare peak is unbounded (ζ = 0 with the structure frequency in the loaded band). */
+  bareStructureUtilisation: number | null;
   criterion: {
     set: string; class: string; label: string; source: string; limitMPerS2: number; atFrequencyHz: number; caution: string;
   };
@@ -93,7 +130,7 @@ function evaluateCriterion(
   direction: LoadDirection,
   structureFrequencyHz: number,
   withDampers: { kernel: ModeTmdKernel; peak: { value: number; frequencyHz: number } },
-  bare: { kernel: ModeTmdKernel; peak: { value: number; frequencyHz: number } },
+  bare: { kernel: ModeTmdKernel; peak: { value: number | null; frequencyHz: number } },
   envelope: LoadEnvelope | null,
   warnings: DesignWarning[],
 ): CriterionAnswer {
@@ -104,7 +141,8 @@ function evaluateCriterion(
     throw new LoadCaseError('criteria.set', (error as Error).message);
   }
   const w = utilisationOf(limit, withDampers.kernel, envelope, withDampers.peak);
-  const b = utilisationOf(limit, bare.kernel, envelope, bare.peak);
+  const barePeak = bare.peak.value;
+  const b = barePeak === null ? null : utilisationOf(limit, bare.kernel, envelope, { value: barePeak, frequencyHz: bare.peak.frequencyHz });
   if (limit.applicableRangeHz && (structureFrequencyHz < limit.applicableRangeHz[0] || structureFrequencyHz > limit.applicableRangeHz[1])) {
     warnings.push({
       code: 'structure-frequency-outside-criteria',
@@ -114,8 +152,8 @@ function evaluateCriterion(
   const answer: CriterionAnswer = {
     verdict: w.utilisation <= 1 ? 'pass' : 'fail',
     utilisation: w.utilisation,
-    bareStructureVerdict: b.utilisation <= 1 ? 'pass' : 'fail',
-    bareStructureUtilisation: b.utilisation,
+    bareStructureVerdict: b !== null && b.utilisation <= 1 ? 'pass' : 'fail',
+    bareStructureUtilisation: b === null ? null : b.utilisation,
     criterion: {
       set: limit.set,
       class: limit.class,
@@ -128,7 +166,7 @@ function evaluateCriterion(
   };
   if (limit.set === 'setra' || limit.set === 'hivoss') {
     answer.comfortClass = gradeComfort(limit.set, direction, withDampers.peak.value);
-    answer.bareStructureComfortClass = gradeComfort(limit.set, direction, bare.peak.value);
+    answer.bareStructureComfortClass = gradeComfort(limit.set, direction, barePeak ?? Infinity);
   }
   return answer;
 }
@@ -136,7 +174,8 @@ function evaluateCriterion(
 export interface AssessResult {
   peakAccelerationMPerS2: number;
   atFrequencyHz: number;
-  bareStructurePeakAccelerationMPerS2: number;
+  /** null when unbounded: ζ = 0 and the structure frequency in the loaded band (warning `bare-structure-unbounded`). */
+  bareStructurePeakAccelerationMPerS2: number | null;
   bareStructureAtFrequencyHz: number;
   tmdStrokeM: number[];
   tmdStrokeAtFrequencyHz: number[];
@@ -147,7 +186,7 @@ export interface AssessResult {
   verdict?: 'pass' | 'fail';
   utilisation?: number;
   bareStructureVerdict?: 'pass' | 'fail';
-  bareStructureUtilisation?: number;
+  bareStructureUtilisation?: number | null;
   criterion?: CriterionAnswer['criterion'];
   comfortClass?: string;
   bareStructureComfortClass?: string;
@@ -160,7 +199,8 @@ export interface AssessResult {
     lockInExpected: boolean;
     source: string;
   };
-  dg11?: { effectiveWeightN: number; constantForceN: number; formulaPeakAccelerationMPerS2: number };
+  /** formulaPeakAccelerationMPerS2 is null for β = 0 (the formula divides by the damping ratio). */
+  dg11?: { effectiveWeightN: number; constantForceN: number; formulaPeakAccelerationMPerS2: number | null };
   timeHistory?: MovingWalkerHistory & { bareStructurePeakAccelerationMPerS2: number; bareStructureMaxRunningRms1sMPerS2: number };
   hardware: HardwareSheetEntry[];
   warnings: DesignWarning[];
@@ -194,6 +234,12 @@ export function assessDesign(input: AssessInput): AssessResult {
     const range = history.modelRangeHz;
     const fp = history.governingHarmonicFrequencyHz;
     warnings.push(...frequencyRangeWarnings(structure.frequencyHz, { kind: 'moving walker', structureFrequencyRangeHz: range }));
+    if (history.steadyStatePeakAccelerationMPerS2 === null) {
+      warnings.push({
+        code: 'steady-state-unbounded',
+        message: `the system has no damping and the governing harmonic at ${fp.toPrecision(4)} Hz is at one of its natural frequencies: its steady state grows without limit (timeHistory.steadyStatePeakAccelerationMPerS2 is null); the response to one crossing is finite and is the one reported`,
+      });
+    }
     const result: AssessResult = {
       peakAccelerationMPerS2: history.peakAccelerationMPerS2,
       atFrequencyHz: fp,
@@ -222,12 +268,19 @@ export function assessDesign(input: AssessInput): AssessResult {
   }
 
   const envelope = buildLoadEnvelope(structure, loadCase);
+  refuseUnboundedResponse(kernel, envelope.bands, 'tmds.0.dampingRatio', 'is 0, as are the damping ratios of the structure and of every other damper');
   const peak = findEnvelopePeak(kernel, envelope.bands);
-  const barePeak = findEnvelopePeak(bareKernel, envelope.bands);
-  if (!Number.isFinite(peak.value) || !Number.isFinite(barePeak.value)) {
+  // ζ = 0: the bare mode's resonance is unbounded if its frequency lies in a band where the force is not 0.
+  const bareUnbounded =
+    structure.dampingRatio === 0 && unboundedBareFrequencyHz(envelope.bands, [structure.frequencyHz, structure.frequencyHz]) !== null;
+  const barePeak = bareUnbounded
+    ? { value: null, frequencyHz: structure.frequencyHz }
+    : findEnvelopePeak(bareKernel, envelope.bands);
+  if (!Number.isFinite(peak.value) || (barePeak.value !== null && !Number.isFinite(barePeak.value))) {
     throw new LoadCaseError('structure.dampingRatio', 'the response is unbounded: the system has no damping at a resonance inside the load band');
   }
   warnings.push(...frequencyRangeWarnings(structure.frequencyHz, envelope));
+  if (bareUnbounded) warnings.push(bareUnboundedWarning(structure.frequencyHz));
   const result: AssessResult = {
     peakAccelerationMPerS2: peak.value,
     atFrequencyHz: peak.frequencyHz,
@@ -263,6 +316,14 @@ export function assessDesign(input: AssessInput): AssessResult {
       lockInExpected: expected >= critical,
       source: 'Dallard et al., "The London Millennium Footbridge", The Structural Engineer 79(22), 2001: N_L = 8π ζ f M / k',
     };
+    if (structure.dampingRatio === 0) {
+      warnings.push({
+        code: 'lock-in-undamped-structure',
+        message:
+          'the structure has a damping ratio of 0, so its critical number of pedestrians for lateral lock-in N_L = 8π ζ f M / k is 0: any crowd can lock in' +
+          (tmds.length ? `; with the dampers the critical number is ${critical.toFixed(0)}` : ''),
+      });
+    }
     if (result.lockIn.lockInExpected) {
       warnings.push({
         code: 'lateral-lock-in',
@@ -271,12 +332,18 @@ export function assessDesign(input: AssessInput): AssessResult {
     }
   }
   if (envelope.dg11) {
-    result.dg11 = {
-      ...envelope.dg11,
-      formulaPeakAccelerationMPerS2: dg11PeakAccelerationMPerS2(
-        envelope.dg11.constantForceN, structure.frequencyHz, structure.dampingRatio, envelope.dg11.effectiveWeightN,
-      ),
-    };
+    // a_p/g = P0 e^(−0.35 f_n)/(β W) divides by β: with β = 0 the formula has no value.
+    const formula =
+      structure.dampingRatio > 0
+        ? dg11PeakAccelerationMPerS2(envelope.dg11.constantForceN, structure.frequencyHz, structure.dampingRatio, envelope.dg11.effectiveWeightN)
+        : null;
+    result.dg11 = { ...envelope.dg11, formulaPeakAccelerationMPerS2: formula };
+    if (formula === null) {
+      warnings.push({
+        code: 'dg11-formula-undamped',
+        message: 'the DG11 formula a_p/g = P0 e^(−0.35 f_n)/(β W) divides by the damping ratio β, which is 0: it gives no value (dg11.formulaPeakAccelerationMPerS2 is null)',
+      });
+    }
   }
   return attachStrokesAndCriteria(result, input, kernel, bareKernel, envelope, warnings);
 }

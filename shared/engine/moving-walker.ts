@@ -13,7 +13,12 @@ import type { StructureMode, TmdParameters } from './types';
 import { buildModeTmdMatrices } from './matrices';
 import { integrateNewmark } from './newmark';
 import { bachmannAmmannBodyWeightN, findGaitLoadModel, type Gait } from './loads/walking-harmonics';
-import { createModeTmdKernel, coupledNaturalFrequenciesHz, structureAccelerationPerN } from './loads/response-envelope';
+import {
+  createModeTmdKernel,
+  coupledNaturalFrequenciesHz,
+  structureAccelerationPerN,
+  unboundedResonanceHz,
+} from './loads/response-envelope';
 import { LoadCaseError } from './loads/load-envelope';
 
 export interface MovingWalkerInput {
@@ -35,7 +40,11 @@ export interface MovingWalkerHistory {
   maxRunningRms1sMPerS2: number;
   /** Largest |x_j − x_s| of each damper over the history, m. */
   maxTmdStrokeM: number[];
-  steadyStatePeakAccelerationMPerS2: number;
+  /**
+   * Steady state of the governing harmonic at the antinode; null when it is unbounded (no damping anywhere and the
+   * harmonic at a natural frequency). The time history of one crossing stays finite either way.
+   */
+  steadyStatePeakAccelerationMPerS2: number | null;
   /** Force amplitude α_h G of the harmonic that governs the steady state, N. */
   governingHarmonicForceN: number;
   /** Force frequency of that harmonic, h × f_p, Hz. */
@@ -126,12 +135,20 @@ export function simulateMovingWalker(structure: StructureMode, tmds: readonly Tm
       if (d > maxStroke[j]) maxStroke[j] = d;
     }
   }
-  let steady = 0;
+  let steady: number | null = 0;
   let governingForce = 0;
   let governingFrequency = fp;
   for (const h of harmonics) {
     const f = h.frequencyMultiple * fp;
-    const a = structureAccelerationPerN(kernel, f) * h.dynamicLoadFactor * weight;
+    const force = h.dynamicLoadFactor * weight;
+    if (unboundedResonanceHz(kernel, [{ loHz: f, hiHz: f, forceN: () => force, label: 'harmonic' }])) {
+      // Undamped and in resonance: the steady state grows without limit (the crossing itself stays finite).
+      steady = null;
+      governingForce = force;
+      governingFrequency = f;
+      break;
+    }
+    const a = structureAccelerationPerN(kernel, f) * force;
     if (a > steady) {
       steady = a;
       governingForce = h.dynamicLoadFactor * weight;

@@ -8,9 +8,15 @@
 
 import type { TmdParameters } from './types';
 import { buildLoadEnvelope, type SteadyLoadCase } from './loads/load-envelope';
-import { coupledNaturalFrequenciesHz, createModeTmdKernel, findEnvelopePeak } from './loads/response-envelope';
+import {
+  coupledNaturalFrequenciesHz,
+  createModeTmdKernel,
+  findEnvelopePeak,
+  isUndamped,
+  unboundedBareFrequencyHz,
+} from './loads/response-envelope';
 import { setStructureFrequency } from './sizing';
-import { frequencyRangeWarnings, type DesignStructure, type DesignWarning } from './design';
+import { bareUnboundedWarning, frequencyRangeWarnings, refuseUnboundedResponse, type DesignStructure, type DesignWarning } from './design';
 
 export interface RobustnessInput {
   structure: DesignStructure;
@@ -24,7 +30,8 @@ export interface RobustnessResult {
   structureFrequencyFactors: number[];
   tmdDampingFactors: number[];
   peakAccelerationMPerS2: number[][];
-  bareStructurePeakAccelerationMPerS2: number[];
+  /** null where unbounded (ζ = 0 and the row's structure frequency in the loaded band). */
+  bareStructurePeakAccelerationMPerS2: Array<number | null>;
   warnings: DesignWarning[];
 }
 
@@ -37,7 +44,11 @@ export function mapRobustness(input: RobustnessInput): RobustnessResult {
   const n = kernel.tmdCount;
   const zs = structure.dampingRatio;
   const rows: number[][] = [];
-  const bareRow: number[] = [];
+  const bareRow: Array<number | null> = [];
+  let unboundedRows = 0;
+  let firstUnboundedHz = 0;
+  // Which field leaves a cell without any damping (structure ζ = 0): the dampers' own ratios, or a factor of 0.
+  const allTmdsUndamped = baseDamping.every((c) => c === 0);
   const warnings: DesignWarning[] = [];
   const [lo, hi] = envelope.structureFrequencyRangeHz;
   const factors = input.structureFrequencyFactors;
@@ -51,13 +62,32 @@ export function mapRobustness(input: RobustnessInput): RobustnessResult {
     setStructureFrequency(kernel, fs, zs);
     setStructureFrequency(bareKernel, fs, zs);
     const hints = coupledNaturalFrequenciesHz(kernel);
-    bareRow.push(findEnvelopePeak(bareKernel, envelope.bands).value);
+    if (zs === 0 && unboundedBareFrequencyHz(envelope.bands, [fs, fs]) !== null) {
+      if (unboundedRows++ === 0) firstUnboundedHz = fs;
+      bareRow.push(null);
+    } else {
+      bareRow.push(findEnvelopePeak(bareKernel, envelope.bands).value);
+    }
     const row: number[] = [];
-    for (const df of input.tmdDampingFactors) {
+    const dampingFactors = input.tmdDampingFactors;
+    for (let column = 0; column < dampingFactors.length; column++) {
+      const df = dampingFactors[column];
       for (let j = 0; j < n; j++) kernel.tmdDampingNsPerM[j] = baseDamping[j] * df;
+      if (zs === 0 && isUndamped(kernel)) {
+        if (allTmdsUndamped) {
+          refuseUnboundedResponse(kernel, envelope.bands, 'tmds.0.dampingRatio', `is 0, as are the damping ratios of the structure and of every other damper (structure frequency factor ${sf})`);
+        } else {
+          refuseUnboundedResponse(kernel, envelope.bands, `tmdDampingFactors.${column}`, `is 0, which leaves every damper undamped on a structure with a damping ratio of 0 (structure frequency factor ${sf})`);
+        }
+      }
       row.push(findEnvelopePeak(kernel, envelope.bands, 'structureAcceleration', { hintsHz: hints }).value);
     }
     rows.push(row);
+  }
+  if (unboundedRows > 0) {
+    const w = bareUnboundedWarning(firstUnboundedHz);
+    w.message += unboundedRows > 1 ? ` (${unboundedRows} rows of the map, the first at ${firstUnboundedHz.toPrecision(4)} Hz)` : '';
+    warnings.push(w);
   }
   return {
     structureFrequencyFactors: [...factors],

@@ -16,11 +16,19 @@ import {
   createModeTmdKernel,
   findEnvelopePeak,
   maximiseContinuous,
+  unboundedBareFrequencyHz,
   type ForceBand,
   type ModeTmdKernel,
 } from './loads/response-envelope';
 import { buildHardwareEntry, type HardwareOptions, type HardwareSheetEntry } from './hardware';
-import { designCaution, frequencyRangeWarnings, massRatioWarnings, type DesignStructure, type DesignWarning } from './design';
+import {
+  bareUnboundedWarning,
+  designCaution,
+  frequencyRangeWarnings,
+  massRatioWarnings,
+  type DesignStructure,
+  type DesignWarning,
+} from './design';
 
 export interface SizeInput {
   structure: DesignStructure;
@@ -38,7 +46,8 @@ export interface SizeResult {
   tmd: { massKg: number; frequencyHz: number; dampingRatio: number } | null;
   worstPeakAccelerationMPerS2: number;
   worstAtStructureFrequencyHz: number;
-  bareStructureWorstPeakAccelerationMPerS2: number;
+  /** null when unbounded (ζ = 0 and a structure frequency of the band in the loaded band). */
+  bareStructureWorstPeakAccelerationMPerS2: number | null;
   structureFrequencyRangeHz: [number, number];
   peakAccelerationLimitMPerS2: number;
   method: TuningMethod;
@@ -204,11 +213,23 @@ export function sizeDamper(input: SizeInput): SizeResult {
   }
   let evaluations = 0;
   const bareKernel = createModeTmdKernel(structure, []);
-  const bare = worstPeakOverStructureFrequencies(bareKernel, envelope.bands, zs, range);
+  // ζ = 0: the bare mode is unbounded wherever a structure frequency of the band meets a loaded frequency.
+  const bareUnboundedHz = zs === 0 ? unboundedBareFrequencyHz(envelope.bands, [f0, f0]) ?? unboundedBareFrequencyHz(envelope.bands, range) : null;
+  const bare =
+    bareUnboundedHz === null
+      ? worstPeakOverStructureFrequencies(bareKernel, envelope.bands, zs, range)
+      : { value: Infinity, structureFrequencyHz: bareUnboundedHz };
+  if (bareUnboundedHz !== null) warnings.push(bareUnboundedWarning(bareUnboundedHz));
   const kernel = createModeTmdKernel(structure, [{ massKg: M * 0.01, frequencyHz: f0, dampingRatio: 0.05 }]);
   const worstWith = (tuning: TuningMethod) => (mu: number): Trial => {
     evaluations++;
     const ratios = tuningRatios(tuning, mu, zs);
+    if (zs === 0 && !(ratios.tmdDampingRatio > 0)) {
+      throw new LoadCaseError(
+        'method',
+        `${tuning} gives the damper a damping ratio of 0 at a mass ratio of ${mu.toPrecision(3)} and the structure has none: the steady-state response of the undamped system is unbounded at its resonances`,
+      );
+    }
     const tmd = { massKg: mu * M, frequencyHz: ratios.frequencyRatio * f0, dampingRatio: ratios.tmdDampingRatio };
     const w = 2 * Math.PI * tmd.frequencyHz;
     kernel.tmdMassKg[0] = tmd.massKg;
@@ -220,7 +241,7 @@ export function sizeDamper(input: SizeInput): SizeResult {
     structureFrequencyRangeHz: range,
     peakAccelerationLimitMPerS2: limit,
     method,
-    bareStructureWorstPeakAccelerationMPerS2: bare.value,
+    bareStructureWorstPeakAccelerationMPerS2: Number.isFinite(bare.value) ? bare.value : null,
     caution: designCaution,
   };
   if (bare.value <= limit) {

@@ -51,4 +51,23 @@ describe('calc assess / size / robustness', () => {
     const issues = JSON.parse(impossible.stderr.trim().split('\n').at(-1) as string).error.issues;
     expect(issues[0].path).toBe('peakAccelerationLimitMPerS2');
   }, 30_000);
+
+  it('a structure damping ratio of 0: null for the unbounded bare peak in the JSON; a crowd below 1 P/m² refused', () => {
+    // Den Hartog (Mechanical Vibrations, 1956) damper on an undamped mode, μ = 0.05: f = 1/(1+μ), ζ_a = √(3μ/(8(1+μ))).
+    const undamped = { ...structure, dampingRatio: 0 };
+    const tmd = { massKg: 3000, frequencyHz: 1.9 / 1.05, dampingRatio: Math.sqrt((3 * 0.05) / (8 * 1.05)) };
+    const run = calc('assess', { structure: undamped, tmds: [tmd], loadCase: { kind: 'harmonic', modalForceAmplitudeN: 300, pacingRangeHz: [1.5, 2.3] } });
+    expect(run.status).toBe(0);
+    const answer = JSON.parse(run.stdout);
+    expect(answer.bareStructurePeakAccelerationMPerS2).toBeNull();
+    expect(answer.bareStructureAtFrequencyHz).toBe(1.9);
+    expect(answer.warnings.map((w: { code: string }) => w.code)).toContain('bare-structure-unbounded');
+    expect(Number.isFinite(answer.peakAccelerationMPerS2)).toBe(true);
+    // Sétra 2006 / HiVoSS 2008: below 1 P/m² n' = 10.8 √(ζ n) needs the structure's damping ratio.
+    const refused = calc('assess', { structure: undamped, tmds: [tmd], loadCase: crowd });
+    expect(refused.status).toBe(2);
+    const error = JSON.parse(refused.stderr.trim().split('\n').at(-1) as string).error;
+    expect(error.issues[0].path).toBe('structure.dampingRatio');
+    expect(error.issues[0].message).toMatch(/10\.8 √\(ζ n\)/);
+  }, 30_000);
 });

@@ -24,6 +24,19 @@ describe('lateral lock-in', () => {
     expect(tiny / bare).toBeCloseTo(1, 4);
   });
 
+  it('an undamped mode (ζ = 0) has N_L = 8π ζ f M / k = 0 (Dallard et al. 2001); a damped damper gives it a positive one', () => {
+    const undamped = { ...mode, dampingRatio: 0 };
+    expect(criticalPedestriansBare(undamped)).toBe(0);
+    expect(criticalPedestrians(undamped, [])).toBe(0);
+    expect(criticalPedestrians(undamped, [{ massKg: 2360, frequencyHz: 0.9, dampingRatio: 0 }])).toBe(0);
+    const withDamper = criticalPedestrians(undamped, [{ massKg: 2360, frequencyHz: 0.9, dampingRatio: 0.085 }]);
+    expect(withDamper).toBeGreaterThan(0);
+    // The eigenvalue test confirms the crossing.
+    const damper = [{ massKg: 2360, frequencyHz: 0.9, dampingRatio: 0.085 }];
+    expect(largestRealPart(undamped, damper, -0.5 * 300 * withDamper * 0.99)).toBeLessThan(0);
+    expect(largestRealPart(undamped, damper, -0.5 * 300 * withDamper * 1.01)).toBeGreaterThan(0);
+  });
+
   it('refuses a coefficient that is not positive', () => {
     expect(() => criticalPedestriansBare(mode, 0)).toThrow(/lockInCoefficientNsPerM/);
   });

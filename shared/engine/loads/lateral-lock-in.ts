@@ -70,6 +70,8 @@ export function criticalPedestrians(
 ): number {
   const bare = criticalPedestriansBare(structure, coefficientNsPerM);
   if (tmds.length === 0) return bare;
+  // No damping anywhere: any negative damping, however small, destabilises the system.
+  if (structure.dampingRatio === 0 && tmds.every((t) => t.dampingRatio === 0)) return 0;
   const unstable = (count: number) => largestRealPart(structure, tmds, -0.5 * count * coefficientNsPerM) > 0;
   let lo = 0;
   let hi = Math.max(bare, 1);

@@ -134,6 +134,14 @@ export function buildLoadEnvelope(structure: EnvelopeStructure, loadCase: Steady
         if (density === undefined) throw new LoadCaseError('loadCase.densityPerM2', 'give densityPerM2 or trafficClass');
         count = density * loadCase.deckAreaM2;
       }
+      if (density < 1 && structure.dampingRatio === 0) {
+        // Sétra 2006 / HiVoSS 2008: below 1 person/m² the equivalent number n' = 10.8 √(ζ n) is built on the
+        // structure's own damping ratio; with ζ = 0 it would be 0 and the crowd would load nothing.
+        throw new LoadCaseError(
+          'structure.dampingRatio',
+          `must be greater than 0 for a crowd below 1 person/m² (here ${density.toPrecision(3)} P/m²): the equivalent number of pedestrians n' = 10.8 √(ζ n) of the ${guide === 'setra' ? 'Sétra' : 'HiVoSS'} guide needs the structure's own damping ratio ζ, and ζ = 0 would make it 0; from 1 person/m² n' = 1.85 √n does not depend on ζ`,
+        );
+      }
       const nEq = equivalentPedestrianCount(count, density, structure.dampingRatio);
       const mean = loadCase.modeShapeMean ?? halfSineModeShapeMean;
       const curve = psiCurves[guide][structure.direction];

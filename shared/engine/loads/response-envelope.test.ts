@@ -10,6 +10,8 @@ import {
   structureAccelerationPerN,
   structureDisplacementPerN,
   tmdStrokePerN,
+  unboundedBareFrequencyHz,
+  unboundedResonanceHz,
   type ForceBand,
 } from './response-envelope';
 
@@ -108,5 +110,59 @@ describe('continuous peak search', () => {
 
   it('refuses a reversed band', () => {
     expect(() => maximiseContinuous((x) => x, 2, 1)).toThrow(/lo ≤ hi/);
+  });
+
+  describe('undamped systems', () => {
+    // Invented undamped mode (ζ = 0) with one undamped damper.
+    const mode = { modalMassKg: 20000, frequencyHz: 2.0, dampingRatio: 0 };
+    const damper = { massKg: 400, frequencyHz: 1.9, dampingRatio: 0 };
+
+    it('anti-resonance: at the undamped damper\'s own frequency the structure stands still and the stroke is F / k (Den Hartog 1956)', () => {
+      const kernel = createModeTmdKernel(mode, [damper]);
+      const k = damper.massKg * (2 * Math.PI * damper.frequencyHz) ** 2;
+      expect(structureDisplacementPerN(kernel, damper.frequencyHz)).toBeLessThan(1e-12 / k);
+      expect(tmdStrokePerN(kernel, damper.frequencyHz, 0) * k).toBeCloseTo(1, 6);
+      // The exact zero of the damper's impedance denominator gives the same limits, not NaN.
+      const w = 2 * Math.PI * 1.9;
+      kernel.tmdStiffnessNPerM[0] = w * w * kernel.tmdMassKg[0];
+      expect(structureDisplacementPerN(kernel, 1.9)).toBe(0);
+      expect(tmdStrokePerN(kernel, 1.9, 0)).toBe(1 / kernel.tmdStiffnessNPerM[0]);
+    });
+
+    it('finds the unbounded resonances of a system with no damping, and only those', () => {
+      const flat: ForceBand[] = [{ loHz: 1.5, hiHz: 2.5, forceN: () => 100, label: 'flat' }];
+      const coupled = createModeTmdKernel(mode, [damper]);
+      const hit = unboundedResonanceHz(coupled, flat);
+      expect(hit).not.toBeNull();
+      expect(coupledNaturalFrequenciesHz(coupled)).toContain(hit!.frequencyHz);
+      // Any damping anywhere bounds the response.
+      expect(unboundedResonanceHz(createModeTmdKernel(mode, [{ ...damper, dampingRatio: 0.05 }]), flat)).toBeNull();
+      expect(unboundedResonanceHz(createModeTmdKernel({ ...mode, dampingRatio: 0.01 }, [damper]), flat)).toBeNull();
+      // Two equal undamped dampers: their antisymmetric mode, at the dampers' own frequency, leaves the structure at
+      // rest and is no resonance of it; the two other coupled modes are.
+      const pair = createModeTmdKernel(mode, [damper, damper]);
+      const narrow: ForceBand[] = [{ loHz: 1.899, hiHz: 1.901, forceN: () => 100, label: 'narrow' }];
+      expect(coupledNaturalFrequenciesHz(pair).some((f) => Math.abs(f - 1.9) < 1e-9)).toBe(true);
+      expect(unboundedResonanceHz(pair, narrow)).toBeNull();
+      // The bare mode: unbounded where the force is not 0, edges included; not where the force vanishes (a ψ edge).
+      const trapezoid: ForceBand[] = [{ loHz: 1.0, hiHz: 2.6, forceN: (f) => Math.max(0, Math.min(1, (f - 1.0) / 0.7, (2.6 - f) / 0.5)), label: 'ψ' }];
+      expect(unboundedBareFrequencyHz(flat, [2.5, 2.5])).toBe(2.5);
+      expect(unboundedBareFrequencyHz(flat, [2.6, 2.6])).toBeNull();
+      expect(unboundedBareFrequencyHz(trapezoid, [1.0, 1.0])).toBeNull();
+      expect(unboundedBareFrequencyHz(trapezoid, [0.9, 1.05])).not.toBeNull();
+      expect(unboundedBareFrequencyHz(trapezoid, [2.6, 2.9])).toBeNull();
+    });
+
+    it('at a ψ edge the undamped bare envelope is finite: F ψ r² / (M |1 − r²|) peaks at the first kink', () => {
+      // ψ rises linearly from 0 at f_s = 1.0 Hz to 1 at 1.7 Hz (the Sétra vertical curve): for f in (1.0, 1.7]
+      // a(f) = A f² / (0.7 M (f + 1.0)) grows with f, and for f ≥ 1.7 Hz ψ = 1 and a falls: the peak is at 1.7 Hz.
+      const A = 1000;
+      const band: ForceBand[] = [{ loHz: 1.0, hiHz: 2.6, forceN: (f) => A * Math.max(0, Math.min(1, (f - 1.0) / 0.7, (2.6 - f) / 0.5)), kinksHz: [1.7, 2.1], label: 'ψ' }];
+      const kernel = createModeTmdKernel({ modalMassKg: 20000, frequencyHz: 1.0, dampingRatio: 0 }, []);
+      const peak = findEnvelopePeak(kernel, band);
+      expect(Number.isFinite(peak.value)).toBe(true);
+      expect(peak.frequencyHz).toBeCloseTo(1.7, 6);
+      expect(peak.value).toBeCloseTo((A * 1.7 * 1.7) / (0.7 * 20000 * 2.7), 9);
+    });
   });
 });

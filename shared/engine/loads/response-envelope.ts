@@ -79,7 +79,10 @@ export function structureDisplacementPerN(kernel: ModeTmdKernel, frequencyHz: nu
     re += (nRe * dRe + nIm * dIm) * inv;
     im += (nIm * dRe - nRe * dIm) * inv;
   }
-  return 1 / Math.sqrt(re * re + im * im);
+  const magnitude2 = re * re + im * im;
+  // NaN only from 0 × ∞ at the exact own frequency of an undamped damper, whose impedance is infinite there: the
+  // structure stands still (checked once here, outside the loop, to keep the hot path lean).
+  return magnitude2 === magnitude2 ? 1 / Math.sqrt(magnitude2) : 0;
 }
 
 /** |a_s| per newton, (m/s²)/N. */
@@ -95,7 +98,12 @@ export function tmdStrokePerN(kernel: ModeTmdKernel, frequencyHz: number, tmdInd
   const m = kernel.tmdMassKg[tmdIndex];
   const dRe = kernel.tmdStiffnessNPerM[tmdIndex] - w2 * m;
   const dIm = w * kernel.tmdDampingNsPerM[tmdIndex];
-  return (structureDisplacementPerN(kernel, frequencyHz) * w2 * m) / Math.sqrt(dRe * dRe + dIm * dIm);
+  const den = Math.sqrt(dRe * dRe + dIm * dIm);
+  if (den === 0) {
+    // The own frequency of an undamped damper: x_s = 0 and the damper's spring carries the force, |x_j| = F / k_j.
+    return 1 / kernel.tmdStiffnessNPerM[tmdIndex];
+  }
+  return (structureDisplacementPerN(kernel, frequencyHz) * w2 * m) / den;
 }
 
 /** Undamped natural frequencies of the coupled system, Hz, ascending (closed form for 0 or 1 damper). */
@@ -295,13 +303,25 @@ export function findEnvelopePeak(
   }
   const hints = options.hintsHz ?? coupledNaturalFrequenciesHz(kernel);
   const divisor = options.divisor;
+  const undamped = isUndamped(kernel);
   const result: EnvelopePeak = { frequencyHz: bands.length ? bands[0].loHz : 0, value: 0, bandIndex: 0, forceN: 0 };
   let first = true;
   for (let b = 0; b < bands.length; b++) {
     const band = bands[b];
     const force = band.forceN;
-    const fn =
-      quantity === 'structureAcceleration'
+    // Without any damping the response is infinite at a resonance; where the force vanishes there (a ψ edge) the
+    // product is 0, not 0 × ∞ = NaN. Damped kernels never reach ∞ and keep the lean closures.
+    const fn = undamped
+      ? quantity === 'structureAcceleration'
+        ? (f: number) => {
+            const F = force(f);
+            return F === 0 ? 0 : (structureAccelerationPerN(kernel, f) * F) / (divisor ? divisor(f) : 1);
+          }
+        : (f: number) => {
+            const F = force(f);
+            return F === 0 ? 0 : tmdStrokePerN(kernel, f, tmdIndex) * F;
+          }
+      : quantity === 'structureAcceleration'
         ? divisor
           ? (f: number) => (structureAccelerationPerN(kernel, f) * force(f)) / divisor(f)
           : (f: number) => structureAccelerationPerN(kernel, f) * force(f)
@@ -317,4 +337,57 @@ export function findEnvelopePeak(
     }
   }
   return result;
+}
+
+/** True when the kernel has no damping anywhere: neither the structure nor any damper. */
+export function isUndamped(kernel: ModeTmdKernel): boolean {
+  if (kernel.structureDampingNsPerM !== 0) return false;
+  for (let j = 0; j < kernel.tmdCount; j++) if (kernel.tmdDampingNsPerM[j] !== 0) return false;
+  return true;
+}
+
+/**
+ * The first frequency at which the steady-state structure response to the load is unbounded, or null.
+ * Only an undamped system (ζ = 0 everywhere) has one: a coupled natural frequency inside a band (edges included,
+ * to 1e-12 relative) where the force is not 0. A coupled mode at a damper's own frequency (several equal undamped
+ * dampers) leaves the structure at rest and is not a resonance of the structure.
+ */
+export function unboundedResonanceHz(kernel: ModeTmdKernel, bands: readonly ForceBand[]): { frequencyHz: number; band: ForceBand } | null {
+  if (!isUndamped(kernel)) return null;
+  const own: number[] = [];
+  for (let j = 0; j < kernel.tmdCount; j++) own.push(Math.sqrt(kernel.tmdStiffnessNPerM[j] / kernel.tmdMassKg[j]) / (2 * Math.PI));
+  const natural =
+    kernel.tmdCount === 0
+      ? [Math.sqrt(kernel.structureStiffnessNPerM / kernel.structureMassKg) / (2 * Math.PI)]
+      : coupledNaturalFrequenciesHz(kernel);
+  for (const f of natural) {
+    if (!(f > 0)) continue;
+    if (own.some((fj) => Math.abs(f - fj) <= 1e-9 * f)) continue;
+    for (const band of bands) {
+      const tol = 1e-12 * band.hiHz;
+      if (f >= band.loHz - tol && f <= band.hiHz + tol && band.forceN(Math.min(Math.max(f, band.loHz), band.hiHz)) > 0) {
+        return { frequencyHz: f, band };
+      }
+    }
+  }
+  return null;
+}
+
+/**
+ * For an undamped bare mode (ζ = 0, no damper) whose frequency may lie anywhere in [loHz, hiHz]: a structure
+ * frequency of that range at which the load's force is not 0, i.e. where the steady-state peak is unbounded, or null.
+ */
+export function unboundedBareFrequencyHz(bands: readonly ForceBand[], rangeHz: readonly [number, number]): number | null {
+  for (const band of bands) {
+    const tol = 1e-12 * band.hiHz;
+    const a = Math.max(rangeHz[0], band.loHz);
+    const b = Math.min(rangeHz[1], band.hiHz);
+    if (a > b + tol) continue;
+    const lo = Math.min(a, b);
+    const hi = Math.max(a, b);
+    for (const f of [0.5 * (lo + hi), lo, hi]) {
+      if (band.forceN(Math.min(Math.max(f, band.loHz), band.hiHz)) > 0) return f;
+    }
+  }
+  return null;
 }
