@@ -4,9 +4,9 @@
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { join } from 'node:path';
-import { repoRoot, startProjectCluster, type RunningCluster } from '../db/cluster';
-import { databaseUrlGiven, EnvError, getEnv } from '../env';
-import { ensureSystemPackages } from './system-packages';
+import { repoRoot, type RunningCluster } from '../db/cluster';
+import { EnvError, getEnv } from '../env';
+import { startProjectDatabaseUnlessGiven, stopOnSignals } from './project-database';
 
 const viteUrl = 'http://localhost:5173';
 const children: ChildProcess[] = [];
@@ -39,14 +39,9 @@ function run(name: string, args: string[], env: NodeJS.ProcessEnv): void {
 }
 
 async function main(): Promise<void> {
-  process.once('SIGINT', () => void stopAll(0));
-  process.once('SIGTERM', () => void stopAll(0));
+  stopOnSignals(stopAll);
   const env = getEnv();
-  if (!databaseUrlGiven()) {
-    const problem = ensureSystemPackages(['postgresql']);
-    if (problem) throw new Error(problem);
-    cluster = await startProjectCluster(env.pgPort);
-  }
+  cluster = await startProjectDatabaseUnlessGiven(env.pgPort);
   if (stopping) return;
   const childEnv: NodeJS.ProcessEnv = {
     ...process.env,

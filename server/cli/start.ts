@@ -5,10 +5,10 @@
  */
 import { spawn } from 'node:child_process';
 import { join } from 'node:path';
-import { repoRoot, startProjectCluster, type RunningCluster } from '../db/cluster';
-import { databaseUrlGiven, EnvError, getEnv } from '../env';
+import { repoRoot, type RunningCluster } from '../db/cluster';
+import { EnvError, getEnv } from '../env';
 import { startServer, type RunningServer } from '../server';
-import { ensureSystemPackages } from './system-packages';
+import { startProjectDatabaseUnlessGiven, stopOnSignals } from './project-database';
 
 let cluster: RunningCluster | null = null;
 let server: RunningServer | null = null;
@@ -37,14 +37,9 @@ function buildClient(): Promise<void> {
 }
 
 async function main(): Promise<void> {
-  process.once('SIGINT', () => void stopAll(0));
-  process.once('SIGTERM', () => void stopAll(0));
+  stopOnSignals(stopAll);
   const env = getEnv();
-  if (!databaseUrlGiven()) {
-    const problem = ensureSystemPackages(['postgresql']);
-    if (problem) throw new Error(problem);
-    cluster = await startProjectCluster(env.pgPort);
-  }
+  cluster = await startProjectDatabaseUnlessGiven(env.pgPort);
   if (stopping) return;
   await buildClient();
   if (stopping) return;

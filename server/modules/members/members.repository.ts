@@ -33,24 +33,35 @@ export async function findMember(db: Database, organisationId: string, userId: s
   return row;
 }
 
+type Transaction = Parameters<Parameters<Database['transaction']>[0]>[0];
+
+/**
+ * Locks the organisation's admin rows and the member's row (in that order, so two changes queue up), and returns
+ * how many admins there are and the member's current role (undefined when not a member).
+ */
+async function lockAdminsAndMember(tx: Transaction, organisationId: string, userId: string): Promise<{ adminCount: number; current: { role: Role } | undefined }> {
+  const admins = await tx
+    .select({ userId: memberships.userId })
+    .from(memberships)
+    .where(and(eq(memberships.organisationId, organisationId), eq(memberships.role, 'admin')))
+    .for('update');
+  const [current] = await tx
+    .select({ role: memberships.role })
+    .from(memberships)
+    .where(and(eq(memberships.organisationId, organisationId), eq(memberships.userId, userId)))
+    .for('update');
+  return { adminCount: admins.length, current };
+}
+
 /**
  * Sets a member's role. Refuses (returns 'last_admin') to take the admin role from the organisation's last admin;
  * the admins' rows are locked so two simultaneous changes cannot both pass that check.
  */
 export function updateMemberRole(db: Database, organisationId: string, userId: string, role: Role): Promise<'updated' | 'not_found' | 'last_admin'> {
   return db.transaction(async (tx) => {
-    const admins = await tx
-      .select({ userId: memberships.userId })
-      .from(memberships)
-      .where(and(eq(memberships.organisationId, organisationId), eq(memberships.role, 'admin')))
-      .for('update');
-    const [current] = await tx
-      .select({ role: memberships.role })
-      .from(memberships)
-      .where(and(eq(memberships.organisationId, organisationId), eq(memberships.userId, userId)))
-      .for('update');
+    const { adminCount, current } = await lockAdminsAndMember(tx, organisationId, userId);
     if (!current) return 'not_found';
-    if (current.role === 'admin' && role !== 'admin' && admins.length <= 1) return 'last_admin';
+    if (current.role === 'admin' && role !== 'admin' && adminCount <= 1) return 'last_admin';
     await tx
       .update(memberships)
       .set({ role })
@@ -70,18 +81,9 @@ export async function insertOrganisation(db: Database, name: string): Promise<st
  */
 export function removeMember(db: Database, organisationId: string, userId: string): Promise<'removed' | 'not_found' | 'last_admin'> {
   return db.transaction(async (tx) => {
-    const admins = await tx
-      .select({ userId: memberships.userId })
-      .from(memberships)
-      .where(and(eq(memberships.organisationId, organisationId), eq(memberships.role, 'admin')))
-      .for('update');
-    const [current] = await tx
-      .select({ role: memberships.role })
-      .from(memberships)
-      .where(and(eq(memberships.organisationId, organisationId), eq(memberships.userId, userId)))
-      .for('update');
+    const { adminCount, current } = await lockAdminsAndMember(tx, organisationId, userId);
     if (!current) return 'not_found';
-    if (current.role === 'admin' && admins.length <= 1) return 'last_admin';
+    if (current.role === 'admin' && adminCount <= 1) return 'last_admin';
     await tx.delete(users).where(eq(users.id, userId));
     return 'removed';
   });
