@@ -17,6 +17,7 @@ export default defineConfig({
         extends: true,
         test: {
           name: 'unit',
+          setupFiles: ['tests/support/fail-on-console-error.ts'],
           include: ['shared/**/*.test.ts', 'server/**/*.test.ts', 'src/**/*.test.{ts,tsx}', 'tests/reference/**/*.test.ts'],
           environment: 'node',
         },
@@ -25,6 +26,7 @@ export default defineConfig({
         extends: true,
         test: {
           name: 'integration',
+          setupFiles: ['tests/support/fail-on-console-error.ts'],
           include: ['tests/integration/**/*.test.ts'],
           environment: 'node',
           globalSetup: ['tests/support/integration-global-setup.ts'],
@@ -37,6 +39,7 @@ export default defineConfig({
         extends: true,
         test: {
           name: 'e2e',
+          setupFiles: ['tests/support/fail-on-console-error.ts'],
           include: ['tests/e2e/**/*.test.ts'],
           environment: 'node',
           globalSetup: ['tests/support/e2e-global-setup.ts'],
