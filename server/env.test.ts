@@ -2,7 +2,7 @@ import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
-import { EnvError, parseEnv } from './env';
+import { defaultClientDir, EnvError, parseEnv } from './env';
 
 const dirs: string[] = [];
 function dataDir(): string {
@@ -42,6 +42,12 @@ describe('parseEnv', () => {
     expect(env.databaseUrl).toBe('postgres://postgres@127.0.0.1:55001/stillspan');
     expect(env.port).toBe(4100);
     expect(env.appUrl).toBe('https://app.example');
+  });
+
+  it('serves the client from dist/client unless STILLSPAN_CLIENT_DIR names another folder', () => {
+    expect(parseEnv({ STILLSPAN_DATA_DIR: dataDir() }).clientDir).toBe(defaultClientDir);
+    const elsewhere = dataDir();
+    expect(parseEnv({ STILLSPAN_DATA_DIR: dataDir(), STILLSPAN_CLIENT_DIR: elsewhere }).clientDir).toBe(elsewhere);
   });
 
   it('names the variable and the rule when a value is bad', () => {

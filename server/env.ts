@@ -4,7 +4,7 @@
  */
 import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { join, resolve } from 'node:path';
 import { z } from 'zod';
 import { repoRoot } from './db/cluster';
 
@@ -30,6 +30,7 @@ const rawEnvSchema = z.object({
   STILLSPAN_FAKE_SMTP: flag.optional(),
   STILLSPAN_PG_PORT: port(54329),
   STILLSPAN_DATA_DIR: z.string().min(1).optional(),
+  STILLSPAN_CLIENT_DIR: z.string().min(1).optional(),
 });
 
 export interface Env {
@@ -45,11 +46,16 @@ export interface Env {
   fakeSmtp: boolean;
   pgPort: number;
   dataDir: string;
+  /** The built client the server serves (vite build output). */
+  clientDir: string;
 }
 
 export class EnvError extends Error {
   override name = 'EnvError';
 }
+
+/** Where `vite build` puts the client (vite.config.ts `build.outDir`). */
+export const defaultClientDir = join(repoRoot, 'dist', 'client');
 
 /** The project-local folder for generated secrets and the database (git-ignored). */
 export const defaultDataDir = join(repoRoot, '.data');
@@ -99,6 +105,7 @@ export function parseEnv(source: Record<string, string | undefined> = process.en
     fakeSmtp: raw.STILLSPAN_FAKE_SMTP ?? !isProduction,
     pgPort: raw.STILLSPAN_PG_PORT,
     dataDir,
+    clientDir: raw.STILLSPAN_CLIENT_DIR ? resolve(raw.STILLSPAN_CLIENT_DIR) : defaultClientDir,
   };
 }
 

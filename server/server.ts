@@ -49,7 +49,7 @@ export async function closeContext(ctx: AppContext): Promise<void> {
 /** Migrates, seeds, starts the mail catcher when asked, and listens on env.port. */
 export async function startServer(env: Env): Promise<RunningServer> {
   const context = await createContext(env);
-  const app = createApp(context);
+  const app = createApp(context, { clientDir: env.clientDir });
   const server: Server = createServer(app);
   await new Promise<void>((resolvePromise, reject) => {
     server.once('error', reject);

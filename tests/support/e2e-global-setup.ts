@@ -6,8 +6,9 @@
  */
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
-import { mkdirSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { createServer } from 'node:net';
+import { tmpdir } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type {} from 'vitest';
@@ -37,9 +38,16 @@ function freePort(): Promise<number> {
   });
 }
 
-/** Builds the client as it ships: vitest runs with NODE_ENV=test, which would otherwise give React's development build. */
-function buildClient(): void {
-  const result = spawnSync('npx', ['vite', 'build'], { cwd: repoRoot, encoding: 'utf8', env: { ...process.env, NODE_ENV: 'production' } });
+/**
+ * Builds the client as it ships (vitest runs with NODE_ENV=test, which would otherwise give React's development
+ * build) into a folder of this run's own, so that a `npm start` or another build in the same checkout is untouched.
+ */
+function buildClient(outDir: string): void {
+  const result = spawnSync('npx', ['vite', 'build', '--outDir', outDir, '--emptyOutDir'], {
+    cwd: repoRoot,
+    encoding: 'utf8',
+    env: { ...process.env, NODE_ENV: 'production' },
+  });
   if (result.status !== 0) {
     throw new Error(`vite build failed (exit ${result.status}):\n${result.stdout}\n${result.stderr}`);
   }
@@ -78,7 +86,8 @@ function stopServer(server: ChildProcess): Promise<void> {
 
 export default async function setup(project: TestProject): Promise<() => Promise<void>> {
   mkdirSync(resultsDir, { recursive: true });
-  buildClient();
+  const clientDir = mkdtempSync(join(tmpdir(), 'stillspan-e2e-client-'));
+  buildClient(clientDir);
 
   const cluster = await startThrowawayCluster();
   let server: ChildProcess | undefined;
@@ -95,6 +104,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
         PORT: String(port),
         AUTH_SECRET: randomBytes(32).toString('hex'),
         APP_URL: baseUrl,
+        STILLSPAN_CLIENT_DIR: clientDir,
       },
       stdio: ['ignore', 'pipe', 'pipe'],
     });
@@ -107,6 +117,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
   } catch (error) {
     if (server) await stopServer(server);
     await cluster.stop();
+    rmSync(clientDir, { recursive: true, force: true });
     throw error;
   }
 
@@ -115,5 +126,6 @@ export default async function setup(project: TestProject): Promise<() => Promise
     await stopServer(running);
     writeFileSync(join(resultsDir, 'server.log'), output);
     await cluster.stop();
+    rmSync(clientDir, { recursive: true, force: true });
   };
 }
