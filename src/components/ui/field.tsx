@@ -40,11 +40,6 @@ function FieldFrame({ id, label, hint, error, optional, children }: FieldFramePr
   );
 }
 
-function describedBy(id: string, hint: unknown, error: unknown): string | undefined {
-  const ids = [hint ? `${id}-hint` : null, error ? `${id}-error` : null].filter(Boolean);
-  return ids.length ? ids.join(' ') : undefined;
-}
-
 interface CommonProps {
   label: string;
   hint?: ReactNode;
@@ -52,22 +47,29 @@ interface CommonProps {
   optional?: boolean;
 }
 
+/** The id a control is labelled by and the accessibility attributes every control of a field carries. */
+function useFieldControl(id: string | undefined, hint: ReactNode, error: string | undefined) {
+  const autoId = useId();
+  const fieldId = id ?? autoId;
+  const described = [hint ? `${fieldId}-hint` : null, error ? `${fieldId}-error` : null].filter(Boolean).join(' ');
+  return {
+    fieldId,
+    controlProps: {
+      id: fieldId,
+      'aria-invalid': error ? true : undefined,
+      'aria-describedby': described || undefined,
+    },
+  };
+}
+
 export const TextField = forwardRef<HTMLInputElement, CommonProps & InputHTMLAttributes<HTMLInputElement>>(function TextField(
   { label, hint, error, optional, id, className = '', ...rest },
   ref,
 ) {
-  const autoId = useId();
-  const fieldId = id ?? autoId;
+  const { fieldId, controlProps } = useFieldControl(id, hint, error);
   return (
     <FieldFrame id={fieldId} label={label} hint={hint} error={error} optional={optional}>
-      <input
-        ref={ref}
-        id={fieldId}
-        className={`${control} ${className}`}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy(fieldId, hint, error)}
-        {...rest}
-      />
+      <input ref={ref} {...controlProps} className={`${control} ${className}`} {...rest} />
     </FieldFrame>
   );
 });
@@ -76,18 +78,10 @@ export const SelectField = forwardRef<HTMLSelectElement, CommonProps & SelectHTM
   { label, hint, error, optional, id, className = '', children, ...rest },
   ref,
 ) {
-  const autoId = useId();
-  const fieldId = id ?? autoId;
+  const { fieldId, controlProps } = useFieldControl(id, hint, error);
   return (
     <FieldFrame id={fieldId} label={label} hint={hint} error={error} optional={optional}>
-      <select
-        ref={ref}
-        id={fieldId}
-        className={`${control} ${className}`}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy(fieldId, hint, error)}
-        {...rest}
-      >
+      <select ref={ref} {...controlProps} className={`${control} ${className}`} {...rest}>
         {children}
       </select>
     </FieldFrame>
@@ -96,19 +90,10 @@ export const SelectField = forwardRef<HTMLSelectElement, CommonProps & SelectHTM
 
 export const TextAreaField = forwardRef<HTMLTextAreaElement, CommonProps & TextareaHTMLAttributes<HTMLTextAreaElement>>(
   function TextAreaField({ label, hint, error, optional, id, className = '', ...rest }, ref) {
-    const autoId = useId();
-    const fieldId = id ?? autoId;
+    const { fieldId, controlProps } = useFieldControl(id, hint, error);
     return (
       <FieldFrame id={fieldId} label={label} hint={hint} error={error} optional={optional}>
-        <textarea
-          ref={ref}
-          id={fieldId}
-          rows={4}
-          className={`${control} ${className}`}
-          aria-invalid={error ? true : undefined}
-          aria-describedby={describedBy(fieldId, hint, error)}
-          {...rest}
-        />
+        <textarea ref={ref} rows={4} {...controlProps} className={`${control} ${className}`} {...rest} />
       </FieldFrame>
     );
   },
