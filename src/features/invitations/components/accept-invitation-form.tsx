@@ -5,9 +5,11 @@ import { acceptInvitationSchema, type AcceptInvitationInput, type InvitationPrev
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
-import { describeError, isApiError, issueMessage } from '../../../lib/api-client';
+import { applyServerIssues } from '../../../lib/form-errors';
 import { formatRole } from '../../../lib/format';
 import { useAcceptInvitation } from '../api/invitations';
+
+const acceptFields = ['name', 'password'] as const;
 
 interface AcceptInvitationFormProps {
   token: string;
@@ -31,15 +33,7 @@ export function AcceptInvitationForm({ token, invitation, onAccepted }: AcceptIn
       { ...values, email: invitation.email },
       {
         onSuccess: onAccepted,
-        onError: (error) => {
-          const issues = isApiError(error) ? error.issues : [];
-          const rest: string[] = [];
-          for (const issue of issues) {
-            if (issue.path === 'name' || issue.path === 'password') setError(issue.path, { type: 'server', message: issueMessage(issue) });
-            else rest.push(issue.message);
-          }
-          setFormError(issues.length === 0 ? describeError(error) : rest.length ? rest.join(' ') : null);
-        },
+        onError: (error) => setFormError(applyServerIssues(error, acceptFields, setError)),
       },
     );
   });

@@ -6,7 +6,7 @@ import { createInvitationSchema, roles } from '../../../../shared/contracts';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
-import { describeError, isApiError, issueMessage } from '../../../lib/api-client';
+import { applyServerIssues } from '../../../lib/form-errors';
 import { describeRole, formatRole } from '../../../lib/format';
 import { useInviteMember } from '../api/members';
 
@@ -38,19 +38,7 @@ export function InviteForm() {
         setSentTo(values.email);
         reset({ email: '', name: undefined, role: values.role });
       },
-      onError: (error) => {
-        if (!isApiError(error) || error.issues.length === 0) {
-          setFormError(describeError(error));
-          return;
-        }
-        const rest: string[] = [];
-        for (const issue of error.issues) {
-          const field = inviteFields.find((name) => issue.path === name);
-          if (field) setError(field, { type: 'server', message: issueMessage(issue) });
-          else rest.push(issue.message);
-        }
-        setFormError(rest.length ? rest.join(' ') : null);
-      },
+      onError: (error) => setFormError(applyServerIssues(error, inviteFields, setError)),
     });
   });
 

@@ -4,8 +4,8 @@ import { useForm } from 'react-hook-form';
 import { createProjectSchema, type Project } from '../../../../shared/contracts';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
+import { applyServerIssues } from '../../../lib/form-errors';
 import { useCreateProject } from '../api/projects';
-import { applyServerIssues } from './form-errors';
 import { cleanProjectValues, emptyProjectForm, ProjectFields, projectFormFields, type ProjectFormValues } from './project-fields';
 
 interface CreateProjectFormProps {

@@ -6,9 +6,9 @@ import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { Panel } from '../../../components/ui/panel';
 import { describeError, isApiError } from '../../../lib/api-client';
+import { applyServerIssues } from '../../../lib/form-errors';
 import { formatDateTime, formatProjectKind } from '../../../lib/format';
 import { useDeleteProject, useUpdateProject } from '../api/projects';
-import { applyServerIssues } from './form-errors';
 import { ProjectFields, projectFormFields, type ProjectFormValues } from './project-fields';
 
 interface ProjectOverviewProps {
