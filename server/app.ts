@@ -4,7 +4,7 @@ import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { signInThrottle } from './auth/sign-in-throttle';
 import type { AppContext } from './context';
-import { repoRoot } from './db/cluster';
+import { defaultClientDir } from './env';
 import { requireUser } from './middleware/auth';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { requireJsonBody, sameOrigin } from './middleware/same-origin';
@@ -16,8 +16,6 @@ import { meRouter } from './modules/me/me.router';
 import { invitationsRouter, organisationRouter } from './modules/members/members.router';
 import { projectMembersRouter } from './modules/project-members/project-members.router';
 import { projectsRouter } from './modules/projects/projects.router';
-
-export const clientDist = join(repoRoot, 'dist', 'client');
 
 /**
  * Headers for every answer: no MIME sniffing, no framing by other sites, no referrer outside the site (invitation
@@ -58,17 +56,19 @@ export function createApp(ctx: AppContext, options: { clientDir?: string | null 
   app.use('/api/invitations', invitationsRouter(ctx));
   if (!ctx.env.isProduction && ctx.fakeSmtp) app.use('/api/dev/mail', devMailRouter(ctx.fakeSmtp));
 
-  const signedIn = requireUser(ctx.db, ctx.authConfig);
-  app.use('/api/me', signedIn, meRouter(ctx.db));
-  app.use('/api/projects/:id/members', signedIn, projectMembersRouter(ctx));
-  app.use('/api/projects', signedIn, projectsRouter(ctx));
-  app.use('/api/organisation', signedIn, organisationRouter(ctx));
-  app.use('/api/compute', signedIn, computeRouter());
+  // Mounted once for every signed-in route, so that a request falling through from one router to the next (and on
+  // to the API 404) reads the session and the person once.
+  app.use(['/api/me', '/api/projects', '/api/organisation', '/api/compute'], requireUser(ctx.db, ctx.authConfig));
+  app.use('/api/me', meRouter(ctx.db));
+  app.use('/api/projects/:id/members', projectMembersRouter(ctx));
+  app.use('/api/projects', projectsRouter(ctx));
+  app.use('/api/organisation', organisationRouter(ctx));
+  app.use('/api/compute', computeRouter());
   app.use('/api', apiNotFound);
 
   // The built client (vite build → dist/client), with every other GET answered by index.html for the client router.
   // Looked up per request, so that a build made after the server started (or during a rebuild) is picked up.
-  const clientDir = options.clientDir === undefined ? clientDist : options.clientDir;
+  const clientDir = options.clientDir === undefined ? defaultClientDir : options.clientDir;
   if (clientDir) app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
   app.get(/^(?!\/api(\/|$)).*/, (_req, res) => {
     const indexFile = clientDir ? join(clientDir, 'index.html') : null;

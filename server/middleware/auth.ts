@@ -24,9 +24,16 @@ export function currentUser(req: Request): CurrentUser {
   return user;
 }
 
-/** 401 unless the request carries a valid session of a person who still belongs to an organisation. */
+/**
+ * 401 unless the request carries a valid session of a person who still belongs to an organisation. The session and
+ * the person are read once per request: a request that already passed (another mount) goes straight on.
+ */
 export function requireUser(db: Database, authConfig: ExpressAuthConfig): RequestHandler {
   return async (req, _res, next) => {
+    if (currentUsers.has(req)) {
+      next();
+      return;
+    }
     const session = await getSession(req, authConfig).catch(() => null);
     const userId = (session?.user as { id?: unknown } | undefined)?.id;
     if (typeof userId !== 'string') throw new HttpError(401, 'unauthenticated', 'Sign in first');

@@ -5,7 +5,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { meSchema } from '../../shared/contracts/me';
-import { createTestApp, signIn, testPassword, type TestApp } from '../support/test-app';
+import { attemptSignIn, createTestApp, signIn, testPassword, type TestApp } from '../support/test-app';
 
 let t: TestApp;
 
@@ -42,9 +42,7 @@ describe('sign-in', () => {
       [t.people.engineer.email, 'not-the-password'],
       ['nobody@a.test', testPassword],
     ]) {
-      const agent = request.agent(t.app);
-      const { csrfToken } = (await agent.get('/api/auth/csrf').expect(200)).body as { csrfToken: string };
-      const response = await agent.post('/api/auth/callback/credentials').type('form').send({ csrfToken, email, password });
+      const { agent, response } = await attemptSignIn(t.app, email, password);
       expect(response.status).toBe(302);
       expect(response.headers.location).toContain('error=CredentialsSignin');
       await agent.get('/api/me').expect(401);
@@ -59,27 +57,17 @@ describe('sign-in', () => {
   });
 
   it('X-Auth-Return-Redirect gives the SPA a JSON answer instead of a redirect', async () => {
-    const agent = request.agent(t.app);
-    const { csrfToken } = (await agent.get('/api/auth/csrf').expect(200)).body as { csrfToken: string };
-    const response = await agent
-      .post('/api/auth/callback/credentials')
-      .set('X-Auth-Return-Redirect', '1')
-      .type('form')
-      .send({ csrfToken, email: t.people.owner.email, password: testPassword });
+    const { agent, response } = await attemptSignIn(t.app, t.people.owner.email, testPassword, { 'X-Auth-Return-Redirect': '1' });
     expect(response.status).toBe(200);
     expect(typeof response.body.url).toBe('string');
     expect((await agent.get('/api/me').expect(200)).body.role).toBe('owner');
   });
 
   it('a sign-in posted from another site gets 403', async () => {
-    const agent = request.agent(t.app);
-    const { csrfToken } = (await agent.get('/api/auth/csrf').expect(200)).body as { csrfToken: string };
-    const response = await agent
-      .post('/api/auth/callback/credentials')
-      .set('Origin', 'https://elsewhere.example')
-      .type('form')
-      .send({ csrfToken, email: t.people.owner.email, password: testPassword });
+    const { agent, response } = await attemptSignIn(t.app, t.people.owner.email, testPassword, { Origin: 'https://elsewhere.example' });
     expect(response.status).toBe(403);
+    expect(response.body.error.code).toBe('cross_origin');
+    await agent.get('/api/me').expect(401);
   });
 });
 
@@ -119,9 +107,7 @@ describe('changing one’s password', () => {
     await request(t.app).put('/api/me/password').send({ currentPassword: testPassword, newPassword: 'a-brand-new-password' }).expect(401);
     await agent.put('/api/me/password').send({ currentPassword: testPassword, newPassword: 'a-brand-new-password' }).expect(204);
     await signIn(t.app, t.people.fabricator.email, 'a-brand-new-password');
-    const old = request.agent(t.app);
-    const { csrfToken } = (await old.get('/api/auth/csrf').expect(200)).body as { csrfToken: string };
-    const response = await old.post('/api/auth/callback/credentials').type('form').send({ csrfToken, email: t.people.fabricator.email, password: testPassword });
+    const { response } = await attemptSignIn(t.app, t.people.fabricator.email, testPassword);
     expect(response.headers.location).toContain('error=CredentialsSignin');
     await agent.put('/api/me/password').send({ currentPassword: 'a-brand-new-password', newPassword: testPassword }).expect(204);
   });
@@ -131,19 +117,43 @@ describe('password guessing', () => {
   it('after ten failed sign-ins for an address, even the right password gets 429 until the window passes', async () => {
     const email = t.people.admin.email;
     for (let i = 0; i < 10; i += 1) {
-      const agent = request.agent(t.app);
-      const { csrfToken } = (await agent.get('/api/auth/csrf').expect(200)).body as { csrfToken: string };
-      const response = await agent.post('/api/auth/callback/credentials').type('form').send({ csrfToken, email, password: `wrong-${i}` });
+      const { response } = await attemptSignIn(t.app, email, `wrong-${i}`);
       expect(response.headers.location).toContain('error=CredentialsSignin');
     }
-    const agent = request.agent(t.app);
-    const { csrfToken } = (await agent.get('/api/auth/csrf').expect(200)).body as { csrfToken: string };
-    const refused = await agent.post('/api/auth/callback/credentials').type('form').send({ csrfToken, email: ' ADMIN@a.test', password: testPassword });
+    const { agent, response: refused } = await attemptSignIn(t.app, ' ADMIN@a.test', testPassword);
     expect(refused.status).toBe(429);
     expect(refused.body.error.code).toBe('too_many_sign_in_attempts');
     expect(Number(refused.headers['retry-after'])).toBeGreaterThan(0);
     await agent.get('/api/me').expect(401);
     // Other people are not affected.
     await signIn(t.app, t.people.engineer.email);
+  });
+});
+
+describe('the signed-in person is read once per request', () => {
+  /** How many times the app takes a connection from its pool (once per query) while `run` runs. */
+  async function poolCheckouts(run: () => Promise<unknown>): Promise<number> {
+    let checkouts = 0;
+    const count = () => {
+      checkouts += 1;
+    };
+    t.ctx.pool.on('acquire', count);
+    try {
+      await run();
+    } finally {
+      t.ctx.pool.off('acquire', count);
+    }
+    return checkouts;
+  }
+
+  it('one query for GET /api/me, and still one when a request falls through every signed-in router to the API 404', async () => {
+    const agent = await signIn(t.app, t.people.viewer.email);
+    expect(await poolCheckouts(() => agent.get('/api/me').expect(200))).toBe(1);
+    const id = '00000000-0000-4000-8000-000000000000';
+    const fallThrough = await poolCheckouts(async () => {
+      const response = await agent.get(`/api/projects/${id}/members/${id}`).expect(404);
+      expect(response.body.error.code).toBe('not_found');
+    });
+    expect(fallThrough).toBe(1);
   });
 });

@@ -108,15 +108,21 @@ export async function createTestApp(): Promise<TestApp> {
 }
 
 /**
- * Signs in through the real Auth.js endpoints (csrf → callback/credentials) and returns the agent holding the
- * session cookie.
+ * One sign-in attempt through the real Auth.js endpoints (csrf → callback/credentials) on a fresh cookie jar, with
+ * no expectation about the outcome: the agent and the answer to the credentials post.
  */
-export async function signIn(app: Express, email: string, password = testPassword) {
+export async function attemptSignIn(app: Express, email: string, password: string, headers: Record<string, string> = {}) {
   const agent = request.agent(app);
   const csrf = await agent.get('/api/auth/csrf').expect(200);
   const csrfToken = (csrf.body as { csrfToken: string }).csrfToken;
   expect(csrfToken).toMatch(/^[0-9a-f]{32,}$/);
-  const response = await agent.post('/api/auth/callback/credentials').type('form').send({ csrfToken, email, password });
+  const response = await agent.post('/api/auth/callback/credentials').set(headers).type('form').send({ csrfToken, email, password });
+  return { agent, response };
+}
+
+/** Signs in (attemptSignIn) and checks that it worked; returns the agent holding the session cookie. */
+export async function signIn(app: Express, email: string, password = testPassword) {
+  const { agent, response } = await attemptSignIn(app, email, password);
   expect(response.status).toBe(302);
   expect(response.headers.location).not.toContain('error=');
   const cookies = ([] as string[]).concat(response.headers['set-cookie'] ?? []);
