@@ -49,12 +49,13 @@ export async function databaseIsEmpty(db: Database): Promise<boolean> {
 /** Seeds the demo into an empty database; does nothing (and returns false) when any organisation exists. */
 export async function seedDemoIfEmpty(db: Database): Promise<boolean> {
   if (!(await databaseIsEmpty(db))) return false;
-  const hashes = await Promise.all(demoAccounts.map(() => hashPassword(demoPassword)));
+  // Every demo account has the same published password: one hash serves them all.
+  const passwordHash = await hashPassword(demoPassword);
   await db.transaction(async (tx) => {
     const [organisation] = await tx.insert(organisations).values({ name: demoOrganisationName }).returning();
     const people = await tx
       .insert(users)
-      .values(demoAccounts.map((account, i) => ({ email: account.email, name: account.name, passwordHash: hashes[i], emailVerified: new Date() })))
+      .values(demoAccounts.map((account) => ({ email: account.email, name: account.name, passwordHash, emailVerified: new Date() })))
       .returning({ id: users.id, email: users.email });
     const idByEmail = new Map(people.map((person) => [person.email, person.id]));
     await tx.insert(memberships).values(demoAccounts.map((account) => ({ organisationId: organisation.id, userId: idByEmail.get(account.email)!, role: account.role })));
