@@ -15,10 +15,14 @@ export async function requireSessionLoader({ request }: LoaderFunctionArgs) {
   const me = await queryClient.ensureQueryData(meQueryOptions());
   if (!me) {
     const url = new URL(request.url);
-    const next = url.pathname + url.search;
-    throw redirect(next === '/' ? '/sign-in' : `/sign-in?next=${encodeURIComponent(next)}`);
+    throw redirect(signInPath(url.pathname + url.search));
   }
   return null;
+}
+
+/** The sign-in page, which returns to `next` (a path and its query) afterwards. */
+export function signInPath(next: string): string {
+  return next === '/' ? '/sign-in' : `/sign-in?next=${encodeURIComponent(next)}`;
 }
 
 /** The signed-in person; only for pages below the signed-in layout, which guarantees the session. */

@@ -4,7 +4,7 @@ import { buttonClass } from '../../components/ui/button';
 import { Loading } from '../../components/ui/loading';
 import { Notice } from '../../components/ui/notice';
 import { QueryError } from '../../components/ui/query-error';
-import { meQueryOptions } from '../../features/auth/api/session';
+import { fetchSignedInPerson, meQueryOptions, resetCacheForPerson } from '../../features/auth/api/session';
 import { invitationQueryOptions } from '../../features/invitations/api/invitations';
 import { AcceptInvitationForm } from '../../features/invitations/components/accept-invitation-form';
 import { isApiError } from '../../lib/api-client';
@@ -48,8 +48,7 @@ export function InvitationRoute() {
           token={token}
           invitation={invitation.data}
           onAccepted={async () => {
-            queryClient.removeQueries({ predicate: (query) => query.queryKey[0] !== 'config' });
-            await queryClient.fetchQuery(meQueryOptions());
+            resetCacheForPerson(queryClient, await fetchSignedInPerson(queryClient));
             navigate('/projects', { replace: true });
           }}
         />

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
+import { queryOptions, useMutation, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { appConfigSchema, meSchema, type Me } from '../../../../shared/contracts';
 import { apiRequest, isApiError } from '../../../lib/api-client';
 import { sessionQueryKey, signInWithCredentials, signOut } from '../../../lib/auth';
@@ -38,21 +38,30 @@ export const appConfigQueryOptions = () =>
     staleTime: Infinity,
   });
 
+/** Asks the server afresh who is signed in (after the session cookie changed). */
+export function fetchSignedInPerson(queryClient: QueryClient): Promise<Me | null> {
+  return queryClient.fetchQuery({ ...meQueryOptions(), staleTime: 0 });
+}
+
+/**
+ * After a sign-in, a sign-out or joining by invitation: everything cached belonged to nobody or to somebody else, so
+ * the cache starts over holding only the server's configuration (which does not change) and the person now signed in.
+ */
+export function resetCacheForPerson(queryClient: QueryClient, me: Me | null): void {
+  const config = queryClient.getQueryData(appConfigQueryOptions().queryKey);
+  queryClient.clear();
+  queryClient.setQueryData(meQueryOptions().queryKey, me);
+  if (config) queryClient.setQueryData(appConfigQueryOptions().queryKey, config);
+}
+
 export function useSignIn() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: async ({ email, password }: { email: string; password: string }) => {
       await signInWithCredentials(email, password);
-      return queryClient.fetchQuery({ ...meQueryOptions(), staleTime: 0 });
+      return fetchSignedInPerson(queryClient);
     },
-    onSuccess: () => {
-      // Everything cached belonged to nobody or to somebody else: start clean, keeping the new session.
-      const me = queryClient.getQueryData(meQueryOptions().queryKey);
-      const config = queryClient.getQueryData(appConfigQueryOptions().queryKey);
-      queryClient.clear();
-      queryClient.setQueryData(meQueryOptions().queryKey, me ?? null);
-      if (config) queryClient.setQueryData(appConfigQueryOptions().queryKey, config);
-    },
+    onSuccess: (me) => resetCacheForPerson(queryClient, me),
   });
 }
 
@@ -60,11 +69,6 @@ export function useSignOut() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: signOut,
-    onSuccess: () => {
-      const config = queryClient.getQueryData(appConfigQueryOptions().queryKey);
-      queryClient.clear();
-      queryClient.setQueryData(meQueryOptions().queryKey, null);
-      if (config) queryClient.setQueryData(appConfigQueryOptions().queryKey, config);
-    },
+    onSuccess: () => resetCacheForPerson(queryClient, null),
   });
 }
