@@ -27,6 +27,15 @@ export class ApiError extends Error {
   get isConflict(): boolean {
     return this.status === 409;
   }
+  /** A 4xx answer: the request itself was refused, so sending it again unchanged cannot succeed. */
+  get isClientError(): boolean {
+    return this.status >= 400 && this.status < 500;
+  }
+}
+
+/** The error of a request that got no answer at all (status 0). */
+export function networkError(): ApiError {
+  return new ApiError(0, 'network', 'The server could not be reached. Check your connection and try again.');
 }
 
 export function isApiError(error: unknown): error is ApiError {
@@ -60,7 +69,7 @@ export async function apiRequest<T = void>(path: string, options: RequestOptions
     });
   } catch (cause) {
     if (cause instanceof DOMException && cause.name === 'AbortError') throw cause;
-    throw new ApiError(0, 'network', 'The server could not be reached. Check your connection and try again.');
+    throw networkError();
   }
 
   const text = await response.text();

@@ -1,10 +1,10 @@
-import { z } from 'zod';
-import { ApiError } from './api-client';
-
 /**
  * The browser side of the Auth.js Credentials flow on /api/auth: fetch a CSRF token (which also sets its cookie),
  * post the form, and read the JSON `{ url }` answer that the `X-Auth-Return-Redirect` header asks for.
  */
+import { z } from 'zod';
+import { ApiError, networkError } from './api-client';
+
 /** Query key of the signed-in person (null when signed out); a 401 anywhere clears it, which leads to sign-in. */
 export const sessionQueryKey = ['me'] as const;
 
@@ -16,7 +16,7 @@ async function fetchCsrfToken(): Promise<string> {
   try {
     response = await fetch('/api/auth/csrf', { credentials: 'same-origin', headers: { Accept: 'application/json' } });
   } catch {
-    throw new ApiError(0, 'network', 'The server could not be reached. Check your connection and try again.');
+    throw networkError();
   }
   const parsed = csrfSchema.safeParse(await response.json().catch(() => null));
   if (!response.ok || !parsed.success) {
@@ -39,7 +39,7 @@ async function postAuthForm(path: string, fields: Record<string, string>): Promi
       body: new URLSearchParams(fields).toString(),
     });
   } catch {
-    throw new ApiError(0, 'network', 'The server could not be reached. Check your connection and try again.');
+    throw networkError();
   }
   const parsed = redirectSchema.safeParse(await response.json().catch(() => null));
   if (!parsed.success) {
@@ -53,9 +53,7 @@ export async function signInWithCredentials(email: string, password: string): Pr
   const csrfToken = await fetchCsrfToken();
   const url = await postAuthForm('/api/auth/callback/credentials', { csrfToken, email, password });
   if (/[?&]error=/.test(url)) {
-    throw new ApiError(401, 'invalid_credentials', 'That e-mail and password do not match an account.', [
-      { path: 'password', message: 'E-mail or password is not right.' },
-    ]);
+    throw new ApiError(401, 'invalid_credentials', 'That e-mail and password do not match an account. Check both and try again.');
   }
 }
 

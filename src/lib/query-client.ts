@@ -4,7 +4,7 @@ import { sessionQueryKey } from './auth';
 
 /** Retries only what can succeed on a second try: network failures and server errors, not 4xx answers. */
 function shouldRetry(failureCount: number, error: unknown): boolean {
-  if (isApiError(error) && error.status >= 400 && error.status < 500) return false;
+  if (isApiError(error) && error.isClientError) return false;
   return failureCount < 2;
 }
 

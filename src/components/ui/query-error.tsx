@@ -4,7 +4,7 @@ import { Notice } from './notice';
 
 /** The error of a failed query, with a retry for what may pass on a second try. */
 export function QueryError({ error, retry, what }: { error: unknown; retry?: () => void; what: string }) {
-  const canRetry = retry && !(isApiError(error) && error.status >= 400 && error.status < 500);
+  const canRetry = retry && !(isApiError(error) && error.isClientError);
   return (
     <Notice
       tone="error"

@@ -38,7 +38,7 @@ export function SignInForm({ config, onSignedIn }: SignInFormProps) {
       <form onSubmit={onSubmit} noValidate className="flex flex-col gap-5" aria-label="Sign in">
         {signIn.isError ? (
           <Notice tone="error" title={refused ? 'Not signed in' : 'Sign-in failed'}>
-            {refused ? 'That e-mail and password do not match an account. Check both and try again.' : describeError(signIn.error)}
+            {describeError(signIn.error)}
           </Notice>
         ) : null}
         <TextField label="E-mail" type="email" autoComplete="username" error={errors.email?.message} {...register('email')} />
