@@ -1,21 +1,21 @@
 import { useQuery } from '@tanstack/react-query';
 import { Link, NavLink, Outlet, useOutletContext, useParams } from 'react-router-dom';
 import { canEditProjects, type Project } from '../../../shared/contracts';
-import { Badge } from '../../components/ui/badge';
 import { buttonClass } from '../../components/ui/button';
 import { Loading } from '../../components/ui/loading';
 import { PageTitle } from '../../components/ui/page-title';
 import { QueryError } from '../../components/ui/query-error';
 import { projectQueryOptions } from '../../features/projects/api/projects';
+import { ProjectKindBadge } from '../../features/projects/components/project-kind-badge';
 import { projectSections } from '../../features/projects/components/project-sections';
 import { isApiError } from '../../lib/api-client';
-import { formatProjectKind } from '../../lib/format';
 import { useCurrentUser } from '../session';
 
 export interface ProjectOutletContext {
   project: Project;
   canEdit: boolean;
-  reload: () => Promise<unknown>;
+  /** Fetches the project again; resolves to the stored project (undefined when the fetch failed). */
+  reload: () => Promise<Project | undefined>;
 }
 
 export function useProjectContext(): ProjectOutletContext {
@@ -58,7 +58,7 @@ export function ProjectLayoutRoute() {
   const context: ProjectOutletContext = {
     project: project.data,
     canEdit: canEditProjects(me.role),
-    reload: () => project.refetch(),
+    reload: async () => (await project.refetch()).data,
   };
 
   return (
@@ -76,7 +76,7 @@ export function ProjectLayoutRoute() {
         </nav>
         <div className="flex flex-wrap items-center gap-3">
           <h1 className="text-headline font-semibold text-ink">{project.data.name}</h1>
-          <Badge tone={project.data.kind === 'footbridge' ? 'tide' : 'ember'}>{formatProjectKind(project.data.kind)}</Badge>
+          <ProjectKindBadge kind={project.data.kind} />
         </div>
         {project.data.location ? <p className="text-body text-ink-soft">{project.data.location}</p> : null}
       </header>

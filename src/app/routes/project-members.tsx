@@ -3,24 +3,18 @@ import { Loading } from '../../components/ui/loading';
 import { QueryError } from '../../components/ui/query-error';
 import { organisationPeopleQueryOptions } from '../../features/members/api/members';
 import { projectMembersQueryOptions } from '../../features/projects/api/projects';
-import { ProjectMembersPanel, type MemberCandidate } from '../../features/projects/components/project-members-panel';
+import { ProjectMembersPanel } from '../../features/projects/components/project-members-panel';
 import { useProjectContext } from './project-layout';
 
 /** The project's people; editors (admins and engineers) add people of the organisation from its people list. */
 export function ProjectMembersRoute() {
   const { project, canEdit } = useProjectContext();
-  const canListOrganisation = canEdit;
   const members = useQuery(projectMembersQueryOptions(project.id));
-  const organisation = useQuery({ ...organisationPeopleQueryOptions(), enabled: canListOrganisation });
+  const organisation = useQuery({ ...organisationPeopleQueryOptions(), enabled: canEdit });
 
   if (members.isPending) return <Loading label="Loading the project's members…" />;
   if (members.isError) return <QueryError error={members.error} retry={() => void members.refetch()} what="the project's members" />;
+  if (canEdit && organisation.isPending) return <Loading label="Loading the organisation's people…" />;
 
-  let candidates: MemberCandidate[] | null = null;
-  if (organisation.data) {
-    candidates = organisation.data.people.map(({ userId, name, email, role }) => ({ userId, name, email, role }));
-  }
-  if (canListOrganisation && organisation.isPending) return <Loading label="Loading the organisation's people…" />;
-
-  return <ProjectMembersPanel projectId={project.id} members={members.data} canEdit={canEdit} candidates={candidates} />;
+  return <ProjectMembersPanel projectId={project.id} members={members.data} canEdit={canEdit} candidates={organisation.data ?? null} />;
 }

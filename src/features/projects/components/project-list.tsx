@@ -1,7 +1,7 @@
 import { Link } from 'react-router-dom';
 import type { Project } from '../../../../shared/contracts';
-import { Badge } from '../../../components/ui/badge';
-import { formatDate, formatProjectKind } from '../../../lib/format';
+import { formatDate } from '../../../lib/format';
+import { ProjectKindBadge } from './project-kind-badge';
 
 export function ProjectList({ projects, highlightId }: { projects: Project[]; highlightId?: string | null }) {
   return (
@@ -22,7 +22,7 @@ export function ProjectList({ projects, highlightId }: { projects: Project[]; hi
                 {project.name}
               </Link>
             </h2>
-            <Badge tone={project.kind === 'footbridge' ? 'tide' : 'ember'}>{formatProjectKind(project.kind)}</Badge>
+            <ProjectKindBadge kind={project.kind} />
           </div>
           {project.location ? <p className="text-small text-ink-soft">{project.location}</p> : null}
           {project.description ? <p className="line-clamp-2 text-small text-ink-muted">{project.description}</p> : null}

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import type { ProjectMember, Role } from '../../../../shared/contracts';
+import type { Member, ProjectMember } from '../../../../shared/contracts';
 import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/field';
@@ -10,20 +10,12 @@ import { describeError } from '../../../lib/api-client';
 import { formatDate, formatRole } from '../../../lib/format';
 import { useAddProjectMember, useRemoveProjectMember } from '../api/projects';
 
-/** A person of the organisation who could be added to the project. */
-export interface MemberCandidate {
-  userId: string;
-  name: string;
-  email: string;
-  role: Role;
-}
-
 interface ProjectMembersPanelProps {
   projectId: string;
   members: ProjectMember[];
   canEdit: boolean;
-  /** The organisation's people, or null when the list could not be loaded. */
-  candidates: MemberCandidate[] | null;
+  /** The organisation's people, who could be added to the project; null when the list could not be loaded. */
+  candidates: Member[] | null;
 }
 
 export function ProjectMembersPanel({ projectId, members, canEdit, candidates }: ProjectMembersPanelProps) {
@@ -83,7 +75,7 @@ export function ProjectMembersPanel({ projectId, members, canEdit, candidates }:
   );
 }
 
-function AddProjectMember({ projectId, members, candidates }: { projectId: string; members: ProjectMember[]; candidates: MemberCandidate[] | null }) {
+function AddProjectMember({ projectId, members, candidates }: { projectId: string; members: ProjectMember[]; candidates: Member[] | null }) {
   const addMember = useAddProjectMember(projectId);
   const [userId, setUserId] = useState('');
   const [fieldError, setFieldError] = useState<string | undefined>();

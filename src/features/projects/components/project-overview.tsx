@@ -14,8 +14,8 @@ import { ProjectFields, projectFormFields, type ProjectFormValues } from './proj
 interface ProjectOverviewProps {
   project: Project;
   canEdit: boolean;
-  /** Fetches the project again (after someone else changed it). */
-  onReload: () => Promise<unknown>;
+  /** Fetches the project again (after someone else changed it); undefined when that failed. */
+  onReload: () => Promise<Project | undefined>;
   onDeleted: () => void;
 }
 
@@ -89,7 +89,7 @@ function toFormValues(project: Project): ProjectFormValues {
   return { name: project.name, kind: project.kind, location: project.location ?? '', description: project.description ?? '' };
 }
 
-function EditProjectForm({ project, onReload, onDone }: { project: Project; onReload: () => Promise<unknown>; onDone: (saved: boolean) => void }) {
+function EditProjectForm({ project, onReload, onDone }: { project: Project; onReload: () => Promise<Project | undefined>; onDone: (saved: boolean) => void }) {
   const updateProject = useUpdateProject(project.id);
   const [formError, setFormError] = useState<string | null>(null);
   const [stale, setStale] = useState(false);
@@ -123,8 +123,8 @@ function EditProjectForm({ project, onReload, onDone }: { project: Project; onRe
   });
 
   const reload = async () => {
-    const result = (await onReload()) as { data?: Project } | undefined;
-    if (result?.data) reset(toFormValues(result.data));
+    const latest = await onReload();
+    if (latest) reset(toFormValues(latest));
     setStale(false);
   };
 
