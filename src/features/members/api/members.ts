@@ -18,6 +18,7 @@ export const organisationPeopleQueryOptions = () =>
   queryOptions({
     queryKey: memberKeys.people,
     queryFn: ({ signal }) => apiRequest('/api/organisation/people', { schema: peopleListSchema, signal }),
+    select: (data) => data.people,
   });
 
 /** The organisation's people and its invitations (administrators only). */
@@ -40,6 +41,12 @@ export function useChangeMemberRole() {
   return useMutation({
     mutationFn: ({ userId, ...input }: UpdateMemberRoleInput & { userId: string }) =>
       apiRequest(`/api/organisation/members/${encodeURIComponent(userId)}`, { method: 'PATCH', body: input }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: memberKeys.organisation }),
+    // A project member's role is their organisation role, so the projects' member lists (['projects', id, 'members'])
+    // change with it too.
+    onSuccess: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: memberKeys.organisation }),
+        queryClient.invalidateQueries({ queryKey: ['projects'] }),
+      ]),
   });
 }
