@@ -8,14 +8,8 @@
 import type { StructureMode, TmdParameters } from './types';
 import type { LoadDirection } from './loads/pedestrian-crowd';
 import { buildLoadEnvelope, LoadCaseError, type LoadEnvelope, type SteadyLoadCase } from './loads/load-envelope';
-import {
-  createModeTmdKernel,
-  findEnvelopePeak,
-  unboundedBareFrequencyHz,
-  unboundedResonanceHz,
-  type ForceBand,
-  type ModeTmdKernel,
-} from './loads/response-envelope';
+import { createModeTmdSystem, type ModeTmdSystem } from './response';
+import { findEnvelopePeak, unboundedBareFrequencyHz, unboundedResonanceHz, type ForceBand } from './loads/response-envelope';
 import { criticalPedestrians, criticalPedestriansBare } from './loads/lateral-lock-in';
 import { dg11PeakAccelerationMPerS2 } from './loads/floor-walking';
 import { gradeComfort, resolveComfortLimit, type ComfortLimit, type CriteriaInput } from './criteria';
@@ -81,12 +75,12 @@ export function bareUnboundedWarning(structureFrequencyHz: number, what = 'the b
  * Refuses a system with no damping anywhere whose resonance lies in the loaded band (the steady state is unbounded).
  * `dampingPath` names the field that removed the last damping (a damper's damping ratio, a damping factor …).
  */
-export function refuseUnboundedResponse(kernel: ModeTmdKernel, bands: readonly ForceBand[], dampingPath: string, how: string): void {
-  const hit = unboundedResonanceHz(kernel, bands);
+export function refuseUnboundedResponse(system: ModeTmdSystem, bands: readonly ForceBand[], dampingPath: string, how: string): void {
+  const hit = unboundedResonanceHz(system, bands);
   if (!hit) return;
   const f = hit.frequencyHz.toPrecision(4);
   const band = `${hit.band.loHz}–${hit.band.hiHz} Hz`;
-  if (kernel.tmdCount === 0) {
+  if (system.tmdCount === 0) {
     throw new LoadCaseError(
       'structure.dampingRatio',
       `is 0 and no damper is attached: the structure frequency ${f} Hz lies in the loaded band ${band}, where the steady-state response is unbounded; give a damping ratio greater than 0 or attach a damper`,
@@ -113,7 +107,7 @@ interface CriterionAnswer {
 
 function utilisationOf(
   limit: ComfortLimit,
-  kernel: ModeTmdKernel,
+  system: ModeTmdSystem,
   envelope: LoadEnvelope | null,
   peak: { value: number; frequencyHz: number },
 ): { utilisation: number; atFrequencyHz: number } {
@@ -121,7 +115,7 @@ function utilisationOf(
     return { utilisation: peak.value / limit.limitMPerS2(peak.frequencyHz), atFrequencyHz: peak.frequencyHz };
   }
   // The limit depends on frequency: the governing point is the maximum of a(f) / a_limit(f), not the peak of a.
-  const worst = findEnvelopePeak(kernel, envelope.bands, 'structureAcceleration', { divisor: limit.limitMPerS2 });
+  const worst = findEnvelopePeak(system, envelope.bands, 'structureAcceleration', { divisor: limit.limitMPerS2 });
   return { utilisation: worst.value, atFrequencyHz: worst.frequencyHz };
 }
 
@@ -129,8 +123,8 @@ function evaluateCriterion(
   criteria: CriteriaInput,
   direction: LoadDirection,
   structureFrequencyHz: number,
-  withDampers: { kernel: ModeTmdKernel; peak: { value: number; frequencyHz: number } },
-  bare: { kernel: ModeTmdKernel; peak: { value: number | null; frequencyHz: number } },
+  withDampers: { system: ModeTmdSystem; peak: { value: number; frequencyHz: number } },
+  bare: { system: ModeTmdSystem; peak: { value: number | null; frequencyHz: number } },
   envelope: LoadEnvelope | null,
   warnings: DesignWarning[],
 ): CriterionAnswer {
@@ -140,9 +134,9 @@ function evaluateCriterion(
   } catch (error) {
     throw new LoadCaseError('criteria.set', (error as Error).message);
   }
-  const w = utilisationOf(limit, withDampers.kernel, envelope, withDampers.peak);
+  const w = utilisationOf(limit, withDampers.system, envelope, withDampers.peak);
   const barePeak = bare.peak.value;
-  const b = barePeak === null ? null : utilisationOf(limit, bare.kernel, envelope, { value: barePeak, frequencyHz: bare.peak.frequencyHz });
+  const b = barePeak === null ? null : utilisationOf(limit, bare.system, envelope, { value: barePeak, frequencyHz: bare.peak.frequencyHz });
   if (limit.applicableRangeHz && (structureFrequencyHz < limit.applicableRangeHz[0] || structureFrequencyHz > limit.applicableRangeHz[1])) {
     warnings.push({
       code: 'structure-frequency-outside-criteria',
@@ -222,8 +216,8 @@ function strokeWarnings(hardware: readonly HardwareSheetEntry[]): DesignWarning[
 
 export function assessDesign(input: AssessInput): AssessResult {
   const { structure, tmds, loadCase } = input;
-  const kernel = createModeTmdKernel(structure, tmds);
-  const bareKernel = createModeTmdKernel(structure, []);
+  const system = createModeTmdSystem(structure, tmds);
+  const bareSystem = createModeTmdSystem(structure, []);
   const totalTmdMassKg = tmds.reduce((s, t) => s + t.massKg, 0);
   const massRatio = totalTmdMassKg / structure.modalMassKg;
   const warnings: DesignWarning[] = [...massRatioWarnings(massRatio)];
@@ -264,18 +258,18 @@ export function assessDesign(input: AssessInput): AssessResult {
       warnings,
       caution: designCaution,
     };
-    return attachStrokesAndCriteria(result, input, kernel, bareKernel, null, warnings);
+    return attachStrokesAndCriteria(result, input, system, bareSystem, null, warnings);
   }
 
   const envelope = buildLoadEnvelope(structure, loadCase);
-  refuseUnboundedResponse(kernel, envelope.bands, 'tmds.0.dampingRatio', 'is 0, as are the damping ratios of the structure and of every other damper');
-  const peak = findEnvelopePeak(kernel, envelope.bands);
+  refuseUnboundedResponse(system, envelope.bands, 'tmds.0.dampingRatio', 'is 0, as are the damping ratios of the structure and of every other damper');
+  const peak = findEnvelopePeak(system, envelope.bands);
   // ζ = 0: the bare mode's resonance is unbounded if its frequency lies in a band where the force is not 0.
   const bareUnbounded =
     structure.dampingRatio === 0 && unboundedBareFrequencyHz(envelope.bands, [structure.frequencyHz, structure.frequencyHz]) !== null;
   const barePeak = bareUnbounded
     ? { value: null, frequencyHz: structure.frequencyHz }
-    : findEnvelopePeak(bareKernel, envelope.bands);
+    : findEnvelopePeak(bareSystem, envelope.bands);
   if (!Number.isFinite(peak.value) || (barePeak.value !== null && !Number.isFinite(barePeak.value))) {
     throw new LoadCaseError('structure.dampingRatio', 'the response is unbounded: the system has no damping at a resonance inside the load band');
   }
@@ -345,14 +339,14 @@ export function assessDesign(input: AssessInput): AssessResult {
       });
     }
   }
-  return attachStrokesAndCriteria(result, input, kernel, bareKernel, envelope, warnings);
+  return attachStrokesAndCriteria(result, input, system, bareSystem, envelope, warnings);
 }
 
 function attachStrokesAndCriteria(
   result: AssessResult,
   input: AssessInput,
-  kernel: ModeTmdKernel,
-  bareKernel: ModeTmdKernel,
+  system: ModeTmdSystem,
+  bareSystem: ModeTmdSystem,
   envelope: LoadEnvelope | null,
   warnings: DesignWarning[],
 ): AssessResult {
@@ -361,7 +355,7 @@ function attachStrokesAndCriteria(
     result.tmdStrokeM = [];
     result.tmdStrokeAtFrequencyHz = [];
     tmds.forEach((_, j) => {
-      const stroke = findEnvelopePeak(kernel, envelope.bands, 'tmdStroke', { tmdIndex: j });
+      const stroke = findEnvelopePeak(system, envelope.bands, 'tmdStroke', { tmdIndex: j });
       result.tmdStrokeM.push(stroke.value);
       result.tmdStrokeAtFrequencyHz.push(stroke.frequencyHz);
     });
@@ -373,8 +367,8 @@ function attachStrokesAndCriteria(
       input.criteria,
       structure.direction,
       structure.frequencyHz,
-      { kernel, peak: { value: result.peakAccelerationMPerS2, frequencyHz: result.atFrequencyHz } },
-      { kernel: bareKernel, peak: { value: result.bareStructurePeakAccelerationMPerS2, frequencyHz: result.bareStructureAtFrequencyHz } },
+      { system, peak: { value: result.peakAccelerationMPerS2, frequencyHz: result.atFrequencyHz } },
+      { system: bareSystem, peak: { value: result.bareStructurePeakAccelerationMPerS2, frequencyHz: result.bareStructureAtFrequencyHz } },
       envelope,
       warnings,
     );

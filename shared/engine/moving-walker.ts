@@ -13,12 +13,8 @@ import type { StructureMode, TmdParameters } from './types';
 import { buildModeTmdMatrices } from './matrices';
 import { integrateNewmark } from './newmark';
 import { bachmannAmmannBodyWeightN, findGaitLoadModel, type Gait } from './loads/walking-harmonics';
-import {
-  createModeTmdKernel,
-  coupledNaturalFrequenciesHz,
-  structureAccelerationPerN,
-  unboundedResonanceHz,
-} from './loads/response-envelope';
+import { createModeTmdPoint, createModeTmdSystem, evaluateModeTmdSystem } from './response';
+import { unboundedResonanceHz } from './loads/response-envelope';
 import { LoadCaseError } from './loads/load-envelope';
 
 export interface MovingWalkerInput {
@@ -82,8 +78,8 @@ export function simulateMovingWalker(structure: StructureMode, tmds: readonly Tm
   const L = input.spanM;
   const crossing = L / v;
   const trailing = input.trailingTimeS ?? 0;
-  const kernel = createModeTmdKernel(structure, tmds);
-  const fMax = Math.max(...coupledNaturalFrequenciesHz(kernel), ...model.harmonics.map((h) => h.frequencyMultiple * fp));
+  const system = createModeTmdSystem(structure, tmds);
+  const fMax = Math.max(...system.coupledFrequenciesHz, ...model.harmonics.map((h) => h.frequencyMultiple * fp));
   const dt = input.timeStepS ?? 1 / (40 * fMax);
   const stepCount = Math.ceil((crossing + trailing) / dt);
   if (stepCount > maxSteps) {
@@ -135,20 +131,21 @@ export function simulateMovingWalker(structure: StructureMode, tmds: readonly Tm
       if (d > maxStroke[j]) maxStroke[j] = d;
     }
   }
+  const point = createModeTmdPoint(system);
   let steady: number | null = 0;
   let governingForce = 0;
   let governingFrequency = fp;
   for (const h of harmonics) {
     const f = h.frequencyMultiple * fp;
     const force = h.dynamicLoadFactor * weight;
-    if (unboundedResonanceHz(kernel, [{ loHz: f, hiHz: f, forceN: () => force, label: 'harmonic' }])) {
+    if (unboundedResonanceHz(system, [{ loHz: f, hiHz: f, forceN: () => force, label: 'harmonic' }])) {
       // Undamped and in resonance: the steady state grows without limit (the crossing itself stays finite).
       steady = null;
       governingForce = force;
       governingFrequency = f;
       break;
     }
-    const a = structureAccelerationPerN(kernel, f) * force;
+    const a = evaluateModeTmdSystem(system, f, point).structureAccelerationMPerS2PerN * force;
     if (a > steady) {
       steady = a;
       governingForce = h.dynamicLoadFactor * weight;

@@ -2,20 +2,13 @@
  * `robustness`: a map of the peak acceleration over structure-frequency factors (rows) × damper-damping factors
  * (columns). Row i moves the structure frequency to factor_i × f_s (modal mass and damping ratio unchanged);
  * column j scales every damper's damping ratio by factor_j (mass and frequency unchanged). Each cell is the
- * continuous peak of the load envelope (to better than 0.2 %); the coupled undamped natural frequencies, which do
- * not depend on damping, are computed once per row and serve as hints for every cell of the row.
+ * continuous peak of the load envelope (to better than 0.2 %), searched on a system of the engine built for the cell.
  */
 
 import type { TmdParameters } from './types';
 import { buildLoadEnvelope, type SteadyLoadCase } from './loads/load-envelope';
-import {
-  coupledNaturalFrequenciesHz,
-  createModeTmdKernel,
-  findEnvelopePeak,
-  isUndamped,
-  unboundedBareFrequencyHz,
-} from './loads/response-envelope';
-import { setStructureFrequency } from './sizing';
+import { findEnvelopePeak, unboundedBareFrequencyHz } from './loads/response-envelope';
+import { createModeTmdSystem } from './response';
 import { bareUnboundedWarning, frequencyRangeWarnings, refuseUnboundedResponse, type DesignStructure, type DesignWarning } from './design';
 
 export interface RobustnessInput {
@@ -38,17 +31,13 @@ export interface RobustnessResult {
 export function mapRobustness(input: RobustnessInput): RobustnessResult {
   const { structure, tmds, loadCase } = input;
   const envelope = buildLoadEnvelope(structure, loadCase);
-  const kernel = createModeTmdKernel(structure, tmds);
-  const bareKernel = createModeTmdKernel(structure, []);
-  const baseDamping = Float64Array.from(kernel.tmdDampingNsPerM);
-  const n = kernel.tmdCount;
   const zs = structure.dampingRatio;
   const rows: number[][] = [];
   const bareRow: Array<number | null> = [];
   let unboundedRows = 0;
   let firstUnboundedHz = 0;
   // Which field leaves a cell without any damping (structure ζ = 0): the dampers' own ratios, or a factor of 0.
-  const allTmdsUndamped = baseDamping.every((c) => c === 0);
+  const allTmdsUndamped = tmds.every((t) => t.dampingRatio === 0);
   const warnings: DesignWarning[] = [];
   const [lo, hi] = envelope.structureFrequencyRangeHz;
   const factors = input.structureFrequencyFactors;
@@ -58,29 +47,27 @@ export function mapRobustness(input: RobustnessInput): RobustnessResult {
     warnings.push(...frequencyRangeWarnings(fMin < lo ? fMin : fMax, envelope));
   }
   for (const sf of factors) {
-    const fs = sf * structure.frequencyHz;
-    setStructureFrequency(kernel, fs, zs);
-    setStructureFrequency(bareKernel, fs, zs);
-    const hints = coupledNaturalFrequenciesHz(kernel);
+    const rowStructure = { ...structure, frequencyHz: sf * structure.frequencyHz };
+    const fs = rowStructure.frequencyHz;
     if (zs === 0 && unboundedBareFrequencyHz(envelope.bands, [fs, fs]) !== null) {
       if (unboundedRows++ === 0) firstUnboundedHz = fs;
       bareRow.push(null);
     } else {
-      bareRow.push(findEnvelopePeak(bareKernel, envelope.bands).value);
+      bareRow.push(findEnvelopePeak(createModeTmdSystem(rowStructure, []), envelope.bands).value);
     }
     const row: number[] = [];
     const dampingFactors = input.tmdDampingFactors;
     for (let column = 0; column < dampingFactors.length; column++) {
       const df = dampingFactors[column];
-      for (let j = 0; j < n; j++) kernel.tmdDampingNsPerM[j] = baseDamping[j] * df;
-      if (zs === 0 && isUndamped(kernel)) {
+      const system = createModeTmdSystem(rowStructure, tmds.map((t) => ({ ...t, dampingRatio: t.dampingRatio * df })));
+      if (system.undamped) {
         if (allTmdsUndamped) {
-          refuseUnboundedResponse(kernel, envelope.bands, 'tmds.0.dampingRatio', `is 0, as are the damping ratios of the structure and of every other damper (structure frequency factor ${sf})`);
+          refuseUnboundedResponse(system, envelope.bands, 'tmds.0.dampingRatio', `is 0, as are the damping ratios of the structure and of every other damper (structure frequency factor ${sf})`);
         } else {
-          refuseUnboundedResponse(kernel, envelope.bands, `tmdDampingFactors.${column}`, `is 0, which leaves every damper undamped on a structure with a damping ratio of 0 (structure frequency factor ${sf})`);
+          refuseUnboundedResponse(system, envelope.bands, `tmdDampingFactors.${column}`, `is 0, which leaves every damper undamped on a structure with a damping ratio of 0 (structure frequency factor ${sf})`);
         }
       }
-      row.push(findEnvelopePeak(kernel, envelope.bands, 'structureAcceleration', { hintsHz: hints }).value);
+      row.push(findEnvelopePeak(system, envelope.bands).value);
     }
     rows.push(row);
   }

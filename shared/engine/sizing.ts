@@ -8,18 +8,17 @@
  * feasible end of the bracket, so it meets the limit and is exact to well within 1 % in mass ratio.
  */
 
-import type { TuningMethod } from './types';
+import type { StructureMode, TmdParameters, TuningMethod } from './types';
 import { tuneDenHartog, tuneH2, tuneHInfinity, tuneIoiIkeda, tuneWarburtonRandom, type TuningRatios } from './tuning';
 import { buildLoadEnvelope, LoadCaseError, type SteadyLoadCase } from './loads/load-envelope';
 import {
-  coupledNaturalFrequenciesHz,
-  createModeTmdKernel,
   findEnvelopePeak,
   maximiseContinuous,
   unboundedBareFrequencyHz,
+  type EnvelopeQuantity,
   type ForceBand,
-  type ModeTmdKernel,
 } from './loads/response-envelope';
+import { createModeTmdSystem } from './response';
 import { buildHardwareEntry, type HardwareOptions, type HardwareSheetEntry } from './hardware';
 import {
   bareUnboundedWarning,
@@ -74,24 +73,19 @@ export function tuningRatios(method: TuningMethod, massRatio: number, structureD
   }
 }
 
-/** Sets the structure frequency of a kernel in place (modal mass and damping ratio unchanged). */
-export function setStructureFrequency(kernel: ModeTmdKernel, frequencyHz: number, dampingRatio: number): void {
-  const w = 2 * Math.PI * frequencyHz;
-  kernel.structureStiffnessNPerM = kernel.structureMassKg * w * w;
-  kernel.structureDampingNsPerM = 2 * dampingRatio * kernel.structureMassKg * w;
-}
-
-/** Worst (largest) envelope peak over structure frequencies in [lo, hi], the kernel's dampers fixed. */
+/**
+ * Worst (largest) envelope peak of `quantity` over structure frequencies in [lo, hi], the structure's modal mass and
+ * damping ratio and the dampers fixed (the structure frequency of `structure` itself is not used).
+ */
 export function worstPeakOverStructureFrequencies(
-  kernel: ModeTmdKernel,
+  structure: StructureMode,
+  tmds: readonly TmdParameters[],
   bands: readonly ForceBand[],
-  structureDampingRatio: number,
   rangeHz: readonly [number, number],
+  quantity: EnvelopeQuantity = 'structureAcceleration',
 ): { value: number; structureFrequencyHz: number } {
-  const peakAt = (fs: number) => {
-    setStructureFrequency(kernel, fs, structureDampingRatio);
-    return findEnvelopePeak(kernel, bands, 'structureAcceleration', { hintsHz: coupledNaturalFrequenciesHz(kernel) }).value;
-  };
+  const peakAt = (structureFrequencyHz: number) =>
+    findEnvelopePeak(createModeTmdSystem({ ...structure, frequencyHz: structureFrequencyHz }, tmds), bands, quantity).value;
   if (rangeHz[1] <= rangeHz[0]) return { value: peakAt(rangeHz[0]), structureFrequencyHz: rangeHz[0] };
   const worst = maximiseContinuous(peakAt, rangeHz[0], rangeHz[1], { samples: 16, relativeTolerance: 1e-5 });
   return { value: worst.value, structureFrequencyHz: worst.frequencyHz };
@@ -212,15 +206,13 @@ export function sizeDamper(input: SizeInput): SizeResult {
     });
   }
   let evaluations = 0;
-  const bareKernel = createModeTmdKernel(structure, []);
   // ζ = 0: the bare mode is unbounded wherever a structure frequency of the band meets a loaded frequency.
   const bareUnboundedHz = zs === 0 ? unboundedBareFrequencyHz(envelope.bands, [f0, f0]) ?? unboundedBareFrequencyHz(envelope.bands, range) : null;
   const bare =
     bareUnboundedHz === null
-      ? worstPeakOverStructureFrequencies(bareKernel, envelope.bands, zs, range)
+      ? worstPeakOverStructureFrequencies(structure, [], envelope.bands, range)
       : { value: Infinity, structureFrequencyHz: bareUnboundedHz };
   if (bareUnboundedHz !== null) warnings.push(bareUnboundedWarning(bareUnboundedHz));
-  const kernel = createModeTmdKernel(structure, [{ massKg: M * 0.01, frequencyHz: f0, dampingRatio: 0.05 }]);
   const worstWith = (tuning: TuningMethod) => (mu: number): Trial => {
     evaluations++;
     const ratios = tuningRatios(tuning, mu, zs);
@@ -231,11 +223,7 @@ export function sizeDamper(input: SizeInput): SizeResult {
       );
     }
     const tmd = { massKg: mu * M, frequencyHz: ratios.frequencyRatio * f0, dampingRatio: ratios.tmdDampingRatio };
-    const w = 2 * Math.PI * tmd.frequencyHz;
-    kernel.tmdMassKg[0] = tmd.massKg;
-    kernel.tmdStiffnessNPerM[0] = tmd.massKg * w * w;
-    kernel.tmdDampingNsPerM[0] = 2 * tmd.dampingRatio * tmd.massKg * w;
-    return { mu, tmd, ...worstPeakOverStructureFrequencies(kernel, envelope.bands, zs, range) };
+    return { mu, tmd, ...worstPeakOverStructureFrequencies(structure, [tmd], envelope.bands, range) };
   };
   const base = {
     structureFrequencyRangeHz: range,
@@ -276,15 +264,7 @@ export function sizeDamper(input: SizeInput): SizeResult {
   warnings.push(...massRatioWarnings(hiMu));
   // Stroke of the chosen damper: its worst over the load band and the structure-frequency band.
   const tmd = hiResult.tmd;
-  const wa = 2 * Math.PI * tmd.frequencyHz;
-  kernel.tmdMassKg[0] = tmd.massKg;
-  kernel.tmdStiffnessNPerM[0] = tmd.massKg * wa * wa;
-  kernel.tmdDampingNsPerM[0] = 2 * tmd.dampingRatio * tmd.massKg * wa;
-  const strokeAt = (fs: number) => {
-    setStructureFrequency(kernel, fs, zs);
-    return findEnvelopePeak(kernel, envelope.bands, 'tmdStroke', { hintsHz: coupledNaturalFrequenciesHz(kernel) }).value;
-  };
-  const stroke = range[1] > range[0] ? maximiseContinuous(strokeAt, range[0], range[1], { samples: 16 }).value : strokeAt(range[0]);
+  const stroke = worstPeakOverStructureFrequencies(structure, [tmd], envelope.bands, range, 'tmdStroke').value;
   const hardware = buildHardwareEntry(tmd, stroke, input.hardware);
   if (hardware.strokeWithinLimit === false) {
     warnings.push({

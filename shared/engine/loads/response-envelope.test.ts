@@ -1,19 +1,15 @@
 import { describe, expect, it } from 'vitest';
-import { complex, lusolve, matrix, abs, type Complex } from 'mathjs';
+import { complex, eigs, lusolve, matrix, abs, type Complex } from 'mathjs';
 import { buildModeTmdMatrices } from '../matrices';
-import { createModeTmdSystem } from '../response';
-import {
-  coupledNaturalFrequenciesHz,
-  createModeTmdKernel,
-  findEnvelopePeak,
-  maximiseContinuous,
-  structureAccelerationPerN,
-  structureDisplacementPerN,
-  tmdStrokePerN,
-  unboundedBareFrequencyHz,
-  unboundedResonanceHz,
-  type ForceBand,
-} from './response-envelope';
+import { createModeTmdPoint, createModeTmdSystem, evaluateModeTmdSystem, type ModeTmdSystem } from '../response';
+import { findEnvelopePeak, maximiseContinuous, unboundedBareFrequencyHz, unboundedResonanceHz, type ForceBand } from './response-envelope';
+
+/** The engine's receptance, on which the envelope is built: |X_s|, |a_s| and damper j's stroke per newton. */
+function perN(system: ModeTmdSystem, frequencyHz: number) {
+  const point = evaluateModeTmdSystem(system, frequencyHz, createModeTmdPoint(system));
+  return { xs: point.structureDisplacementMPerN, as: point.structureAccelerationMPerS2PerN, strokes: Array.from(point.tmdStrokeMPerN) };
+}
+const structureAccelerationPerN = (system: ModeTmdSystem, frequencyHz: number) => perN(system, frequencyHz).as;
 
 // Invented structure and dampers (not from any project).
 const structure = { modalMassKg: 36500, frequencyHz: 2.07, dampingRatio: 0.0045 };
@@ -44,32 +40,48 @@ function solveWithMathjs(frequencyHz: number): { xs: number; strokes: number[] }
   return { xs, strokes };
 }
 
-describe('mode + dampers kernel', () => {
+describe('mode + dampers receptance (the engine\'s, as the envelope uses it)', () => {
   it('matches the complex n-DOF solution of mathjs (independent library) to 1e-10', () => {
-    const kernel = createModeTmdKernel(structure, tmds);
+    const system = createModeTmdSystem(structure, tmds);
     for (const f of [0.7, 1.5, 1.95, 2.0, 2.07, 2.2, 3.9]) {
       const ref = solveWithMathjs(f);
-      expect(structureDisplacementPerN(kernel, f)).toBeCloseTo(ref.xs, 15);
-      expect(Math.abs(structureDisplacementPerN(kernel, f) / ref.xs - 1)).toBeLessThan(1e-10);
+      const mine = perN(system, f);
+      expect(mine.xs).toBeCloseTo(ref.xs, 15);
+      expect(Math.abs(mine.xs / ref.xs - 1)).toBeLessThan(1e-10);
       const w = 2 * Math.PI * f;
-      expect(Math.abs(structureAccelerationPerN(kernel, f) / (w * w * ref.xs) - 1)).toBeLessThan(1e-10);
-      ref.strokes.forEach((s, j) => expect(Math.abs(tmdStrokePerN(kernel, f, j) / s - 1)).toBeLessThan(1e-9));
+      expect(Math.abs(mine.as / (w * w * ref.xs) - 1)).toBeLessThan(1e-10);
+      ref.strokes.forEach((s, j) => expect(Math.abs(mine.strokes[j] / s - 1)).toBeLessThan(1e-9));
     }
   });
 
   it('single-DOF resonance: displacement peak F/(2ζK) at f_s (closed form)', () => {
-    const kernel = createModeTmdKernel(structure, []);
+    const system = createModeTmdSystem(structure, []);
     const K = structure.modalMassKg * (2 * Math.PI * structure.frequencyHz) ** 2;
-    expect(structureDisplacementPerN(kernel, structure.frequencyHz) * 2 * structure.dampingRatio * K).toBeCloseTo(1, 12);
+    expect(perN(system, structure.frequencyHz).xs * 2 * structure.dampingRatio * K).toBeCloseTo(1, 12);
   });
 
-  it('coupled undamped frequencies agree with the engine (closed form for one damper, eigen-solver for three)', () => {
-    for (const set of [tmds.slice(0, 1), tmds]) {
-      const mine = coupledNaturalFrequenciesHz(createModeTmdKernel(structure, set));
-      const engine = Array.from(createModeTmdSystem(structure, set).coupledFrequenciesHz);
-      expect(mine.length).toBe(engine.length);
-      mine.forEach((f, i) => expect(f).toBeCloseTo(engine[i], 9));
-    }
+  it('coupled undamped frequencies, the search hints: closed form for one damper, mathjs eigs for three', () => {
+    // One damper: M m ω⁴ − (M k + m (K + k)) ω² + K k = 0 (2-DOF frequency equation, Den Hartog 1956).
+    const M = structure.modalMassKg;
+    const K = M * (2 * Math.PI * structure.frequencyHz) ** 2;
+    const m = tmds[0].massKg;
+    const k = m * (2 * Math.PI * tmds[0].frequencyHz) ** 2;
+    const b = M * k + m * (K + k);
+    const root = Math.sqrt(b * b - 4 * M * m * K * k);
+    const closed = [(b - root) / (2 * M * m), (b + root) / (2 * M * m)].map((w2) => Math.sqrt(w2) / (2 * Math.PI));
+    const one = Array.from(createModeTmdSystem(structure, tmds.slice(0, 1)).coupledFrequenciesHz);
+    expect(one.length).toBe(2);
+    one.forEach((f, i) => expect(f).toBeCloseTo(closed[i], 9));
+    // Three dampers: eigenvalues of M^(−1/2) K M^(−1/2) by mathjs (independent eigen-solver).
+    const mats = buildModeTmdMatrices(structure, tmds);
+    const n = mats.dofCount;
+    const a = Array.from({ length: n }, (_, r) =>
+      Array.from({ length: n }, (_, c) => mats.stiffnessNPerM[r * n + c] / Math.sqrt(mats.massKg[r * n + r] * mats.massKg[c * n + c])),
+    );
+    const reference = (eigs(a).values as number[]).map((w2) => Math.sqrt(w2) / (2 * Math.PI)).sort((p, q) => p - q);
+    const three = Array.from(createModeTmdSystem(structure, tmds).coupledFrequenciesHz);
+    expect(three.length).toBe(reference.length);
+    three.forEach((f, i) => expect(f).toBeCloseTo(reference[i], 9));
   });
 });
 
@@ -89,10 +101,10 @@ describe('continuous peak search', () => {
     ];
     const psi = (f: number) => (f <= 1.25 || f >= 2.3 ? 0 : f < 1.7 ? (f - 1.25) / 0.45 : f <= 2.1 ? 1 : (2.3 - f) / 0.2);
     for (const c of cases) {
-      const kernel = createModeTmdKernel(c.s, c.t);
+      const system = createModeTmdSystem(c.s, c.t);
       const band: ForceBand = { loHz: 1.25, hiHz: 2.3, forceN: (f) => 900 * psi(f), kinksHz: [1.7, 2.1], label: 'test' };
-      const peak = findEnvelopePeak(kernel, [band]);
-      const dense = denseMax((f) => structureAccelerationPerN(kernel, f) * band.forceN(f), 1.25, 2.3);
+      const peak = findEnvelopePeak(system, [band]);
+      const dense = denseMax((f) => structureAccelerationPerN(system, f) * band.forceN(f), 1.25, 2.3);
       expect(peak.value).toBeGreaterThanOrEqual(dense * (1 - 1e-7));
       expect(peak.value / dense - 1).toBeLessThan(2e-4);
       expect(peak.forceN).toBeCloseTo(band.forceN(peak.frequencyHz), 9);
@@ -118,32 +130,42 @@ describe('continuous peak search', () => {
     const damper = { massKg: 400, frequencyHz: 1.9, dampingRatio: 0 };
 
     it('anti-resonance: at the undamped damper\'s own frequency the structure stands still and the stroke is F / k (Den Hartog 1956)', () => {
-      const kernel = createModeTmdKernel(mode, [damper]);
+      const system = createModeTmdSystem(mode, [damper]);
       const k = damper.massKg * (2 * Math.PI * damper.frequencyHz) ** 2;
-      expect(structureDisplacementPerN(kernel, damper.frequencyHz)).toBeLessThan(1e-12 / k);
-      expect(tmdStrokePerN(kernel, damper.frequencyHz, 0) * k).toBeCloseTo(1, 6);
+      expect(perN(system, damper.frequencyHz).xs).toBeLessThan(1e-12 / k);
+      expect(perN(system, damper.frequencyHz).strokes[0] * k).toBeCloseTo(1, 6);
       // The exact zero of the damper's impedance denominator gives the same limits, not NaN.
       const w = 2 * Math.PI * 1.9;
-      kernel.tmdStiffnessNPerM[0] = w * w * kernel.tmdMassKg[0];
-      expect(structureDisplacementPerN(kernel, 1.9)).toBe(0);
-      expect(tmdStrokePerN(kernel, 1.9, 0)).toBe(1 / kernel.tmdStiffnessNPerM[0]);
+      system.tmdStiffnessNPerM[0] = w * w * system.tmdMassKg[0];
+      expect(perN(system, 1.9).xs).toBe(0);
+      expect(perN(system, 1.9).strokes[0]).toBe(1 / system.tmdStiffnessNPerM[0]);
     });
 
     it('finds the unbounded resonances of a system with no damping, and only those', () => {
       const flat: ForceBand[] = [{ loHz: 1.5, hiHz: 2.5, forceN: () => 100, label: 'flat' }];
-      const coupled = createModeTmdKernel(mode, [damper]);
+      const coupled = createModeTmdSystem(mode, [damper]);
       const hit = unboundedResonanceHz(coupled, flat);
       expect(hit).not.toBeNull();
-      expect(coupledNaturalFrequenciesHz(coupled)).toContain(hit!.frequencyHz);
+      expect(Array.from(coupled.coupledFrequenciesHz)).toContain(hit!.frequencyHz);
       // Any damping anywhere bounds the response.
-      expect(unboundedResonanceHz(createModeTmdKernel(mode, [{ ...damper, dampingRatio: 0.05 }]), flat)).toBeNull();
-      expect(unboundedResonanceHz(createModeTmdKernel({ ...mode, dampingRatio: 0.01 }, [damper]), flat)).toBeNull();
+      expect(unboundedResonanceHz(createModeTmdSystem(mode, [{ ...damper, dampingRatio: 0.05 }]), flat)).toBeNull();
+      expect(unboundedResonanceHz(createModeTmdSystem({ ...mode, dampingRatio: 0.01 }, [damper]), flat)).toBeNull();
       // Two equal undamped dampers: their antisymmetric mode, at the dampers' own frequency, leaves the structure at
       // rest and is no resonance of it; the two other coupled modes are.
-      const pair = createModeTmdKernel(mode, [damper, damper]);
+      const pair = createModeTmdSystem(mode, [damper, damper]);
       const narrow: ForceBand[] = [{ loHz: 1.899, hiHz: 1.901, forceN: () => 100, label: 'narrow' }];
-      expect(coupledNaturalFrequenciesHz(pair).some((f) => Math.abs(f - 1.9) < 1e-9)).toBe(true);
+      expect(Array.from(pair.coupledFrequenciesHz).some((f) => Math.abs(f - 1.9) < 1e-9)).toBe(true);
       expect(unboundedResonanceHz(pair, narrow)).toBeNull();
+      // … and the envelope over that band is finite: the structure is at rest at 1.9 Hz and each damper's stroke
+      // tends to F / (2 k), the two springs sharing the force (static balance at the anti-resonance, common practice).
+      const k = damper.massKg * (2 * Math.PI * damper.frequencyHz) ** 2;
+      const still = findEnvelopePeak(pair, narrow);
+      expect(Number.isFinite(still.value)).toBe(true);
+      expect(perN(pair, 1.9).xs).toBe(0);
+      perN(pair, 1.9).strokes.forEach((s) => expect(s * 2 * k).toBeCloseTo(1, 9));
+      const stroke = findEnvelopePeak(pair, narrow, 'tmdStroke', { tmdIndex: 1 });
+      expect(stroke.value / (100 / (2 * k))).toBeGreaterThan(1 - 1e-3);
+      expect(stroke.value / (100 / (2 * k))).toBeLessThan(1.01);
       // The bare mode: unbounded where the force is not 0, edges included; not where the force vanishes (a ψ edge).
       const trapezoid: ForceBand[] = [{ loHz: 1.0, hiHz: 2.6, forceN: (f) => Math.max(0, Math.min(1, (f - 1.0) / 0.7, (2.6 - f) / 0.5)), label: 'ψ' }];
       expect(unboundedBareFrequencyHz(flat, [2.5, 2.5])).toBe(2.5);
@@ -158,8 +180,8 @@ describe('continuous peak search', () => {
       // a(f) = A f² / (0.7 M (f + 1.0)) grows with f, and for f ≥ 1.7 Hz ψ = 1 and a falls: the peak is at 1.7 Hz.
       const A = 1000;
       const band: ForceBand[] = [{ loHz: 1.0, hiHz: 2.6, forceN: (f) => A * Math.max(0, Math.min(1, (f - 1.0) / 0.7, (2.6 - f) / 0.5)), kinksHz: [1.7, 2.1], label: 'ψ' }];
-      const kernel = createModeTmdKernel({ modalMassKg: 20000, frequencyHz: 1.0, dampingRatio: 0 }, []);
-      const peak = findEnvelopePeak(kernel, band);
+      const system = createModeTmdSystem({ modalMassKg: 20000, frequencyHz: 1.0, dampingRatio: 0 }, []);
+      const peak = findEnvelopePeak(system, band);
       expect(Number.isFinite(peak.value)).toBe(true);
       expect(peak.frequencyHz).toBeCloseTo(1.7, 6);
       expect(peak.value).toBeCloseTo((A * 1.7 * 1.7) / (0.7 * 20000 * 2.7), 9);

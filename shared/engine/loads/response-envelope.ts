@@ -1,145 +1,18 @@
 /**
- * The envelope of a pedestrian load over its force-frequency bands, and a fast continuous peak search of the
- * response of one structure mode with any number of TMDs attached at the same point (1 + n DOF).
+ * The envelope of a pedestrian load over its force-frequency bands: the continuous maximum over every band of
+ * |response per N (f)| × F(f) for one structure mode with any number of TMDs attached at the same point (1 + n DOF).
  *
- * Receptance of the structure DOF (PRODUCT conventions, c_j = 2 ζ_j m_j ω_j, k_j = m_j ω_j²):
- *   X_s / F = 1 / (K − ω² M + i ω C + Σ_j Z_j),   Z_j = −ω² m_j (k_j + i ω c_j) / (k_j − ω² m_j + i ω c_j)
- * and each damper's stroke (relative displacement) |x_j − x_s| = |X_s| ω² m_j / |k_j − ω² m_j + i ω c_j|.
- * Evaluations allocate nothing; the peak search samples each band on a uniform grid plus hints (the coupled
- * system's undamped natural frequencies, the kinks of the load's force weight), then refines every local maximum
- * by golden-section search, so it finds the true continuous maximum, not the largest sample.
+ * The response per newton is the engine's (../response: createModeTmdSystem, evaluateModeTmdSystem), including its
+ * limits at the own frequency of an undamped damper. The peak search samples each band on a uniform grid plus hints
+ * (the coupled system's undamped natural frequencies, the kinks of the load's force weight), then refines every
+ * local maximum by golden-section search, so it finds the true continuous maximum, not the largest sample.
+ * The search is this module's own rather than the engine's maximiseOnInterval / findResponsePeak (../peak,
+ * ../response) for speed: those allocate their sample buffers on every call and cost about 5 µs per call before the
+ * first evaluation, three to four times a whole envelope search here; the 101 × 101 robustness map then takes
+ * ≈ 400 ms against its 100 ms budget. This search reuses its buffers (one pair per nesting depth).
  */
 
-import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
-import type { StructureMode, TmdParameters } from '../types';
-
-/** Flat coefficients of a mode + dampers system, ready for fast evaluation. */
-export interface ModeTmdKernel {
-  structureMassKg: number;
-  structureStiffnessNPerM: number;
-  structureDampingNsPerM: number;
-  tmdCount: number;
-  tmdMassKg: Float64Array;
-  tmdStiffnessNPerM: Float64Array;
-  tmdDampingNsPerM: Float64Array;
-}
-
-function checkPositive(name: string, value: number): void {
-  if (!(value > 0) || !Number.isFinite(value)) throw new RangeError(`${name} must be a finite number > 0, got ${value}`);
-}
-function checkDampingRatio(name: string, value: number): void {
-  if (!(value >= 0 && value < 1)) throw new RangeError(`${name} must be in [0, 1), got ${value}`);
-}
-
-export function createModeTmdKernel(structure: StructureMode, tmds: readonly TmdParameters[]): ModeTmdKernel {
-  checkPositive('structure.modalMassKg', structure.modalMassKg);
-  checkPositive('structure.frequencyHz', structure.frequencyHz);
-  checkDampingRatio('structure.dampingRatio', structure.dampingRatio);
-  const omegaS = 2 * Math.PI * structure.frequencyHz;
-  const n = tmds.length;
-  const kernel: ModeTmdKernel = {
-    structureMassKg: structure.modalMassKg,
-    structureStiffnessNPerM: structure.modalMassKg * omegaS * omegaS,
-    structureDampingNsPerM: 2 * structure.dampingRatio * structure.modalMassKg * omegaS,
-    tmdCount: n,
-    tmdMassKg: new Float64Array(n),
-    tmdStiffnessNPerM: new Float64Array(n),
-    tmdDampingNsPerM: new Float64Array(n),
-  };
-  for (let j = 0; j < n; j++) {
-    const t = tmds[j];
-    checkPositive(`tmds.${j}.massKg`, t.massKg);
-    checkPositive(`tmds.${j}.frequencyHz`, t.frequencyHz);
-    checkDampingRatio(`tmds.${j}.dampingRatio`, t.dampingRatio);
-    const w = 2 * Math.PI * t.frequencyHz;
-    kernel.tmdMassKg[j] = t.massKg;
-    kernel.tmdStiffnessNPerM[j] = t.massKg * w * w;
-    kernel.tmdDampingNsPerM[j] = 2 * t.dampingRatio * t.massKg * w;
-  }
-  return kernel;
-}
-
-/** |X_s| per newton at a forcing frequency, m/N. */
-export function structureDisplacementPerN(kernel: ModeTmdKernel, frequencyHz: number): number {
-  const w = 2 * Math.PI * frequencyHz;
-  const w2 = w * w;
-  let re = kernel.structureStiffnessNPerM - w2 * kernel.structureMassKg;
-  let im = w * kernel.structureDampingNsPerM;
-  const n = kernel.tmdCount;
-  for (let j = 0; j < n; j++) {
-    const m = kernel.tmdMassKg[j];
-    const k = kernel.tmdStiffnessNPerM[j];
-    const cw = w * kernel.tmdDampingNsPerM[j];
-    const dRe = k - w2 * m;
-    const dIm = cw;
-    const inv = 1 / (dRe * dRe + dIm * dIm);
-    // Z = −w² m (k + i cw) / (dRe + i dIm)
-    const nRe = -w2 * m * k;
-    const nIm = -w2 * m * cw;
-    re += (nRe * dRe + nIm * dIm) * inv;
-    im += (nIm * dRe - nRe * dIm) * inv;
-  }
-  const magnitude2 = re * re + im * im;
-  // NaN only from 0 × ∞ at the exact own frequency of an undamped damper, whose impedance is infinite there: the
-  // structure stands still (checked once here, outside the loop, to keep the hot path lean).
-  return magnitude2 === magnitude2 ? 1 / Math.sqrt(magnitude2) : 0;
-}
-
-/** |a_s| per newton, (m/s²)/N. */
-export function structureAccelerationPerN(kernel: ModeTmdKernel, frequencyHz: number): number {
-  const w = 2 * Math.PI * frequencyHz;
-  return w * w * structureDisplacementPerN(kernel, frequencyHz);
-}
-
-/** Stroke |x_j − x_s| of damper j per newton, m/N. */
-export function tmdStrokePerN(kernel: ModeTmdKernel, frequencyHz: number, tmdIndex: number): number {
-  const w = 2 * Math.PI * frequencyHz;
-  const w2 = w * w;
-  const m = kernel.tmdMassKg[tmdIndex];
-  const dRe = kernel.tmdStiffnessNPerM[tmdIndex] - w2 * m;
-  const dIm = w * kernel.tmdDampingNsPerM[tmdIndex];
-  const den = Math.sqrt(dRe * dRe + dIm * dIm);
-  if (den === 0) {
-    // The own frequency of an undamped damper: x_s = 0 and the damper's spring carries the force, |x_j| = F / k_j.
-    return 1 / kernel.tmdStiffnessNPerM[tmdIndex];
-  }
-  return (structureDisplacementPerN(kernel, frequencyHz) * w2 * m) / den;
-}
-
-/** Undamped natural frequencies of the coupled system, Hz, ascending (closed form for 0 or 1 damper). */
-export function coupledNaturalFrequenciesHz(kernel: ModeTmdKernel): number[] {
-  const n = kernel.tmdCount;
-  const M = kernel.structureMassKg;
-  const K = kernel.structureStiffnessNPerM;
-  const toHz = (w2: number) => Math.sqrt(Math.max(w2, 0)) / (2 * Math.PI);
-  if (n === 0) return [toHz(K / M)];
-  if (n === 1) {
-    const m = kernel.tmdMassKg[0];
-    const k = kernel.tmdStiffnessNPerM[0];
-    // M m ω⁴ − (M k + m (K + k)) ω² + K k = 0
-    const a = M * m;
-    const b = -(M * k + m * (K + k));
-    const c = K * k;
-    const disc = Math.sqrt(Math.max(b * b - 4 * a * c, 0));
-    const q = -0.5 * (b - disc); // stable root pair
-    return [toHz(c / q), toHz(q / a)].sort((x, y) => x - y);
-  }
-  // M^(−1/2) K M^(−1/2), symmetric (mass matrix diagonal).
-  const size = n + 1;
-  const A = Matrix.zeros(size, size);
-  const sm = [Math.sqrt(M), ...Array.from(kernel.tmdMassKg, (v) => Math.sqrt(v))];
-  let k00 = K;
-  for (let j = 0; j < n; j++) {
-    const k = kernel.tmdStiffnessNPerM[j];
-    k00 += k;
-    A.set(0, j + 1, -k / (sm[0] * sm[j + 1]));
-    A.set(j + 1, 0, -k / (sm[0] * sm[j + 1]));
-    A.set(j + 1, j + 1, k / kernel.tmdMassKg[j]);
-  }
-  A.set(0, 0, k00 / M);
-  const evd = new EigenvalueDecomposition(A, { assumeSymmetric: true });
-  return evd.realEigenvalues.map(toHz).sort((x, y) => x - y);
-}
+import { createModeTmdPoint, evaluateModeTmdSystem, type ModeTmdSystem } from '../response';
 
 /** A band of force frequencies with the modal force amplitude F(f) (N) applied at each of them. */
 export interface ForceBand {
@@ -157,7 +30,7 @@ export interface PeakOptions {
   /** Uniform samples per band before refinement (default 48). */
   samples?: number;
   /** Extra sample points (resonances). */
-  hintsHz?: readonly number[];
+  hintsHz?: ArrayLike<number>;
   /** Golden-section stop, relative to the band width (default 1e-5). */
   relativeTolerance?: number;
 }
@@ -237,7 +110,7 @@ function searchWithBuffers(
   loHz: number,
   hiHz: number,
   samples: number,
-  hints: readonly number[],
+  hints: ArrayLike<number>,
   xs: Float64Array,
   vs: Float64Array,
   relativeTolerance: number,
@@ -245,7 +118,7 @@ function searchWithBuffers(
 ): PeakResult {
   // Merge the uniform grid with the sorted hints inside the open band.
   const inside: number[] = [];
-  for (const h of hints) if (h > loHz && h < hiHz) inside.push(h);
+  for (let i = 0; i < hints.length; i++) if (hints[i] > loHz && hints[i] < hiHz) inside.push(hints[i]);
   inside.sort((p, q) => p - q);
   const step = (hiHz - loHz) / samples;
   let count = 0;
@@ -282,6 +155,7 @@ export type EnvelopeQuantity = 'structureAcceleration' | 'tmdStroke';
 
 export interface EnvelopePeak {
   frequencyHz: number;
+  /** The peak: m/s² (structureAcceleration), m (tmdStroke), or the ratio to the divisor when one is given. */
   value: number;
   bandIndex: number;
   forceN: number;
@@ -292,42 +166,43 @@ export interface EnvelopePeak {
  * frequency-dependent limit, for criteria whose limit depends on frequency).
  */
 export function findEnvelopePeak(
-  kernel: ModeTmdKernel,
+  system: ModeTmdSystem,
   bands: readonly ForceBand[],
   quantity: EnvelopeQuantity = 'structureAcceleration',
-  options: { tmdIndex?: number; samples?: number; hintsHz?: readonly number[]; divisor?: (frequencyHz: number) => number } = {},
+  options: { tmdIndex?: number; divisor?: (frequencyHz: number) => number } = {},
 ): EnvelopePeak {
   const tmdIndex = options.tmdIndex ?? 0;
-  if (quantity === 'tmdStroke' && !(tmdIndex >= 0 && tmdIndex < kernel.tmdCount)) {
-    throw new RangeError(`tmdIndex ${tmdIndex} is out of range for ${kernel.tmdCount} damper(s)`);
+  if (quantity === 'tmdStroke' && !(tmdIndex >= 0 && tmdIndex < system.tmdCount)) {
+    throw new RangeError(`tmdIndex ${tmdIndex} is out of range for ${system.tmdCount} damper(s)`);
   }
-  const hints = options.hintsHz ?? coupledNaturalFrequenciesHz(kernel);
+  const hints = system.coupledFrequenciesHz;
   const divisor = options.divisor;
-  const undamped = isUndamped(kernel);
+  const point = createModeTmdPoint(system);
+  const strokes = point.tmdStrokeMPerN;
+  const perN =
+    quantity === 'structureAcceleration'
+      ? (f: number) => evaluateModeTmdSystem(system, f, point).structureAccelerationMPerS2PerN
+      : (f: number) => {
+          evaluateModeTmdSystem(system, f, point);
+          return strokes[tmdIndex];
+        };
   const result: EnvelopePeak = { frequencyHz: bands.length ? bands[0].loHz : 0, value: 0, bandIndex: 0, forceN: 0 };
   let first = true;
   for (let b = 0; b < bands.length; b++) {
     const band = bands[b];
     const force = band.forceN;
     // Without any damping the response is infinite at a resonance; where the force vanishes there (a ψ edge) the
-    // product is 0, not 0 × ∞ = NaN. Damped kernels never reach ∞ and keep the lean closures.
-    const fn = undamped
-      ? quantity === 'structureAcceleration'
-        ? (f: number) => {
-            const F = force(f);
-            return F === 0 ? 0 : (structureAccelerationPerN(kernel, f) * F) / (divisor ? divisor(f) : 1);
-          }
-        : (f: number) => {
-            const F = force(f);
-            return F === 0 ? 0 : tmdStrokePerN(kernel, f, tmdIndex) * F;
-          }
-      : quantity === 'structureAcceleration'
-        ? divisor
-          ? (f: number) => (structureAccelerationPerN(kernel, f) * force(f)) / divisor(f)
-          : (f: number) => structureAccelerationPerN(kernel, f) * force(f)
-        : (f: number) => tmdStrokePerN(kernel, f, tmdIndex) * force(f);
+    // product is 0, not 0 × ∞ = NaN. Damped systems never reach ∞ and keep the lean closures.
+    const fn = system.undamped
+      ? (f: number) => {
+          const F = force(f);
+          return F === 0 ? 0 : (perN(f) * F) / (divisor ? divisor(f) : 1);
+        }
+      : divisor
+        ? (f: number) => (perN(f) * force(f)) / divisor(f)
+        : (f: number) => perN(f) * force(f);
     const bandHints = band.kinksHz && band.kinksHz.length ? [...hints, ...band.kinksHz] : hints;
-    const peak = maximiseContinuous(fn, band.loHz, band.hiHz, { samples: options.samples, hintsHz: bandHints });
+    const peak = maximiseContinuous(fn, band.loHz, band.hiHz, { hintsHz: bandHints });
     if (first || peak.value > result.value) {
       first = false;
       result.value = peak.value;
@@ -339,30 +214,17 @@ export function findEnvelopePeak(
   return result;
 }
 
-/** True when the kernel has no damping anywhere: neither the structure nor any damper. */
-export function isUndamped(kernel: ModeTmdKernel): boolean {
-  if (kernel.structureDampingNsPerM !== 0) return false;
-  for (let j = 0; j < kernel.tmdCount; j++) if (kernel.tmdDampingNsPerM[j] !== 0) return false;
-  return true;
-}
-
 /**
  * The first frequency at which the steady-state structure response to the load is unbounded, or null.
  * Only an undamped system (ζ = 0 everywhere) has one: a coupled natural frequency inside a band (edges included,
  * to 1e-12 relative) where the force is not 0. A coupled mode at a damper's own frequency (several equal undamped
  * dampers) leaves the structure at rest and is not a resonance of the structure.
  */
-export function unboundedResonanceHz(kernel: ModeTmdKernel, bands: readonly ForceBand[]): { frequencyHz: number; band: ForceBand } | null {
-  if (!isUndamped(kernel)) return null;
-  const own: number[] = [];
-  for (let j = 0; j < kernel.tmdCount; j++) own.push(Math.sqrt(kernel.tmdStiffnessNPerM[j] / kernel.tmdMassKg[j]) / (2 * Math.PI));
-  const natural =
-    kernel.tmdCount === 0
-      ? [Math.sqrt(kernel.structureStiffnessNPerM / kernel.structureMassKg) / (2 * Math.PI)]
-      : coupledNaturalFrequenciesHz(kernel);
-  for (const f of natural) {
+export function unboundedResonanceHz(system: ModeTmdSystem, bands: readonly ForceBand[]): { frequencyHz: number; band: ForceBand } | null {
+  if (!system.undamped) return null;
+  for (const f of system.coupledFrequenciesHz) {
     if (!(f > 0)) continue;
-    if (own.some((fj) => Math.abs(f - fj) <= 1e-9 * f)) continue;
+    if (system.tmds.some((t) => Math.abs(f - t.frequencyHz) <= 1e-9 * f)) continue;
     for (const band of bands) {
       const tol = 1e-12 * band.hiHz;
       if (f >= band.loHz - tol && f <= band.hiHz + tol && band.forceN(Math.min(Math.max(f, band.loHz), band.hiHz)) > 0) {
