@@ -3,15 +3,14 @@
  * way a production database (no demo seed) gets its first people.
  */
 import { spawnSync } from 'node:child_process';
-import { resolve } from 'node:path';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { repoRoot } from '../../server/db/cluster';
 import { createOrganisationWithAdmin } from '../../server/modules/members/members.service';
 import { meSchema } from '../../shared/contracts/me';
 import { createTestApp, signIn, type TestApp } from '../support/test-app';
 
 let t: TestApp;
-const repoRoot = resolve(import.meta.dirname, '..', '..');
 
 beforeAll(async () => {
   t = await createTestApp();

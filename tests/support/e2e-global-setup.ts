@@ -7,13 +7,12 @@
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
-import { dirname, join, resolve } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { join } from 'node:path';
 import type {} from 'vitest';
 import type { TestProject } from 'vitest/node';
-import { startThrowawayCluster } from './pg-cluster';
+import { repoRoot } from '../../server/db/cluster';
+import { findFreePort, startThrowawayCluster } from './pg-cluster';
 
 declare module 'vitest' {
   export interface ProvidedContext {
@@ -22,21 +21,8 @@ declare module 'vitest' {
   }
 }
 
-const repoRoot = resolve(dirname(fileURLToPath(import.meta.url)), '..', '..');
 const resultsDir = join(repoRoot, 'test-results', 'e2e');
 const healthTimeoutMs = 60_000;
-
-function freePort(): Promise<number> {
-  return new Promise((resolvePort, reject) => {
-    const probe = createServer();
-    probe.once('error', reject);
-    probe.listen(0, '127.0.0.1', () => {
-      const address = probe.address();
-      const port = typeof address === 'object' && address ? address.port : 0;
-      probe.close(() => resolvePort(port));
-    });
-  });
-}
 
 /**
  * Builds the client as it ships (vitest runs with NODE_ENV=test, which would otherwise give React's development
@@ -93,7 +79,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
   let server: ChildProcess | undefined;
   let output = '';
   try {
-    const port = await freePort();
+    const port = await findFreePort();
     const baseUrl = `http://127.0.0.1:${port}`;
     server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
       cwd: repoRoot,
