@@ -1,15 +1,12 @@
 import { startProjectCluster, type RunningCluster } from '../db/cluster';
 import { databaseUrlGiven } from '../env';
-import { ensureSystemPackages } from './system-packages';
 
 /**
- * For `npm start` and `npm run dev`: when DATABASE_URL is not set, makes sure Debian's PostgreSQL is installed and
- * starts (or reuses) the project's own cluster; when it is set, starts nothing and returns null.
+ * For `npm start` and `npm run dev`: when DATABASE_URL is not set, starts (or reuses) the project's own cluster,
+ * which first makes sure Debian's PostgreSQL is installed; when it is set, starts nothing and returns null.
  */
 export async function startProjectDatabaseUnlessGiven(pgPort: number): Promise<RunningCluster | null> {
   if (databaseUrlGiven()) return null;
-  const problem = ensureSystemPackages(['postgresql']);
-  if (problem) throw new Error(problem);
   return startProjectCluster(pgPort);
 }
 

@@ -6,7 +6,7 @@
 import { spawn } from 'node:child_process';
 import { join } from 'node:path';
 import { repoRoot } from '../db/cluster';
-import { ensureSystemPackages } from './system-packages';
+import { ensureSystemPackages } from '../lib/system-packages';
 
 const problem = ensureSystemPackages(['postgresql', 'chromium']);
 if (problem) {

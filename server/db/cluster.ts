@@ -13,9 +13,8 @@ import { tmpdir } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import pg from 'pg';
+import { ensureSystemPackages, pgBinDir } from '../lib/system-packages';
 
-export const pgBinDir = '/usr/lib/postgresql/15/bin';
-export const aptInstallPostgresCommand = 'sudo apt-get update && sudo apt-get install -y postgresql';
 export const databaseName = 'stillspan';
 
 /** The repository root (two levels above this file). */
@@ -32,7 +31,7 @@ function log(message: string): void {
 }
 
 /** Runs a command to completion; rejects with its output when it fails. */
-function run(command: string, args: string[], options: { quiet?: boolean } = {}): Promise<string> {
+function run(command: string, args: string[]): Promise<string> {
   return new Promise((resolvePromise, reject) => {
     const child = spawn(command, args, { cwd: '/', stdio: ['ignore', 'pipe', 'pipe'] });
     let output = '';
@@ -41,7 +40,7 @@ function run(command: string, args: string[], options: { quiet?: boolean } = {})
     child.on('error', reject);
     child.on('close', (code) => {
       if (code === 0) resolvePromise(output);
-      else reject(new ClusterError(`${[command, ...args].join(' ')} exited with ${code}${options.quiet ? '' : `:\n${output.trim()}`}`));
+      else reject(new ClusterError(`${[command, ...args].join(' ')} exited with ${code}:\n${output.trim()}`));
     });
   });
 }
@@ -52,25 +51,13 @@ function runPg(program: string, args: string[]): Promise<string> {
   return isRoot ? run('runuser', ['-u', 'postgres', '--', binary, ...args]) : run(binary, args);
 }
 
-export function postgresInstalled(): boolean {
-  return existsSync(join(pgBinDir, 'initdb')) && existsSync(join(pgBinDir, 'pg_ctl'));
-}
-
 /**
- * Makes sure Debian's PostgreSQL 15 programs are there: as root installs them with apt, otherwise stops with the
- * exact command to run.
+ * Makes sure Debian's PostgreSQL 15 programs are there, the same way `npm test` checks its packages: as root installs
+ * them with apt, otherwise stops with the exact command to run.
  */
-export async function ensurePostgresInstalled(): Promise<void> {
-  if (postgresInstalled()) return;
-  if (!isRoot) {
-    throw new ClusterError(`PostgreSQL's programs are missing (${pgBinDir}). Install them with:\n  ${aptInstallPostgresCommand}`);
-  }
-  log('PostgreSQL is not installed: running apt-get install -y postgresql');
-  await run('apt-get', ['update']);
-  await run('apt-get', ['install', '-y', 'postgresql'], { quiet: true }).catch((error: unknown) => {
-    throw new ClusterError(`apt-get install -y postgresql failed: ${(error as Error).message}`);
-  });
-  if (!postgresInstalled()) throw new ClusterError(`apt-get installed postgresql but ${pgBinDir} is still missing`);
+function ensurePostgresInstalled(): void {
+  const problem = ensureSystemPackages(['postgresql']);
+  if (problem) throw new ClusterError(problem);
 }
 
 /** As root: creates the `postgres` OS user when it is missing. */
@@ -199,7 +186,7 @@ export interface RunningCluster {
  * runs, create the `stillspan` database. Data is kept between starts.
  */
 export async function startProjectCluster(port: number, root = repoRoot): Promise<RunningCluster> {
-  await ensurePostgresInstalled();
+  ensurePostgresInstalled();
   await ensurePostgresUser();
   const paths = projectClusterPaths(root);
   if (!paths.inRepository) {
@@ -263,7 +250,7 @@ export function findFreePort(): Promise<number> {
  * and deletes the folder.
  */
 export async function startThrowawayCluster(): Promise<{ url: string; port: number; stop(): Promise<void> }> {
-  await ensurePostgresInstalled();
+  ensurePostgresInstalled();
   await ensurePostgresUser();
   const base = mkdtempSync(join(tmpdir(), 'stillspan-test-pg-'));
   chmodSync(base, 0o755);
