@@ -14,39 +14,32 @@ import { describe, expect, it } from 'vitest';
 import { crowdPsi, equivalentPedestrianCount, findTrafficClass, pedestrianForceAmplitudeN } from '../../shared/engine/loads/pedestrian-crowd';
 import { assessDesign } from '../../shared/engine/design';
 
+type PsiPoint = readonly [frequencyHz: number, psi: number];
+
+/** ψ at each point: the breakpoint values 0 and 1 exactly, the midpoints of a slope to 1e-12. */
+function expectPsi(guide: 'setra' | 'hivoss', direction: 'vertical' | 'lateral' | 'longitudinal', points: readonly PsiPoint[]): void {
+  for (const [frequencyHz, psi] of points) {
+    if (psi === 0 || psi === 1) expect(crowdPsi(guide, direction, frequencyHz)).toBe(psi);
+    else expect(crowdPsi(guide, direction, frequencyHz)).toBeCloseTo(psi, 12);
+  }
+}
+
 describe('Sétra 2006 ψ (first harmonic)', () => {
   it('vertical: 0 up to 1.0 Hz, rising to 1 at 1.7 Hz, 1 to 2.1 Hz, 0 from 2.6 Hz', () => {
-    expect(crowdPsi('setra', 'vertical', 0.9)).toBe(0);
-    expect(crowdPsi('setra', 'vertical', 1.0)).toBe(0);
-    expect(crowdPsi('setra', 'vertical', 1.35)).toBeCloseTo(0.5, 12);
-    expect(crowdPsi('setra', 'vertical', 1.7)).toBe(1);
-    expect(crowdPsi('setra', 'vertical', 2.1)).toBe(1);
-    expect(crowdPsi('setra', 'vertical', 2.35)).toBeCloseTo(0.5, 12);
-    expect(crowdPsi('setra', 'vertical', 2.6)).toBe(0);
+    expectPsi('setra', 'vertical', [[0.9, 0], [1.0, 0], [1.35, 0.5], [1.7, 1], [2.1, 1], [2.35, 0.5], [2.6, 0]]);
   });
   it('lateral: 0 up to 0.3 Hz, 1 from 0.5 to 1.1 Hz, 0 from 1.3 Hz', () => {
-    expect(crowdPsi('setra', 'lateral', 0.3)).toBe(0);
-    expect(crowdPsi('setra', 'lateral', 0.4)).toBeCloseTo(0.5, 12);
-    expect(crowdPsi('setra', 'lateral', 0.5)).toBe(1);
-    expect(crowdPsi('setra', 'lateral', 1.1)).toBe(1);
-    expect(crowdPsi('setra', 'lateral', 1.2)).toBeCloseTo(0.5, 12);
-    expect(crowdPsi('setra', 'lateral', 1.3)).toBe(0);
+    expectPsi('setra', 'lateral', [[0.3, 0], [0.4, 0.5], [0.5, 1], [1.1, 1], [1.2, 0.5], [1.3, 0]]);
   });
 });
 
 describe('HiVoSS 2008 ψ (from memory)', () => {
   it('vertical: 1.25 / 1.7 / 2.1 / 2.3 Hz', () => {
-    expect(crowdPsi('hivoss', 'vertical', 1.25)).toBe(0);
-    expect(crowdPsi('hivoss', 'vertical', 1.475)).toBeCloseTo(0.5, 12);
-    expect(crowdPsi('hivoss', 'vertical', 1.9)).toBe(1);
-    expect(crowdPsi('hivoss', 'vertical', 2.2)).toBeCloseTo(0.5, 12);
-    expect(crowdPsi('hivoss', 'vertical', 2.3)).toBe(0);
-    expect(crowdPsi('hivoss', 'longitudinal', 2.2)).toBeCloseTo(0.5, 12);
+    expectPsi('hivoss', 'vertical', [[1.25, 0], [1.475, 0.5], [1.9, 1], [2.2, 0.5], [2.3, 0]]);
+    expectPsi('hivoss', 'longitudinal', [[2.2, 0.5]]);
   });
   it('lateral: 0.5 / 0.7 / 1.0 / 1.2 Hz', () => {
-    expect(crowdPsi('hivoss', 'lateral', 0.6)).toBeCloseTo(0.5, 12);
-    expect(crowdPsi('hivoss', 'lateral', 0.85)).toBe(1);
-    expect(crowdPsi('hivoss', 'lateral', 1.1)).toBeCloseTo(0.5, 12);
+    expectPsi('hivoss', 'lateral', [[0.6, 0.5], [0.85, 1], [1.1, 0.5]]);
   });
 });
 

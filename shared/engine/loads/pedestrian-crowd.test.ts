@@ -29,6 +29,8 @@ describe('reduction coefficient ψ', () => {
   });
 
   it('keeps the two guides apart (their vertical curves differ)', () => {
+    // Sétra 2006 vertical ψ 1.0 / 1.7 / 2.1 / 2.6 Hz (read in an excerpt of the guide), HiVoSS 2008 1.25 / 1.7 / 2.1 /
+    // 2.3 Hz (from memory): 1.2 and 2.4 Hz lie inside the first and outside the second.
     expect(crowdPsi('setra', 'vertical', 1.2)).toBeGreaterThan(0);
     expect(crowdPsi('hivoss', 'vertical', 1.2)).toBe(0);
     expect(crowdPsi('setra', 'vertical', 2.4)).toBeGreaterThan(0);
@@ -42,6 +44,8 @@ describe('reduction coefficient ψ', () => {
 
 describe('equivalent number of pedestrians', () => {
   it('switches formula at 1 person/m²', () => {
+    // Sétra 2006 / HiVoSS 2008: n' = 10.8 √(ζ n) below 1 P/m² (10.8 √(0.01 × 100) = 10.8), 1.85 √n from 1 P/m²
+    // (1.85 √100 = 18.5).
     expect(equivalentPedestrianCount(100, 0.99, 0.01)).toBeCloseTo(10.8, 12);
     expect(equivalentPedestrianCount(100, 1.0, 0.01)).toBeCloseTo(18.5, 12);
   });
@@ -50,6 +54,8 @@ describe('equivalent number of pedestrians', () => {
     expect(() => equivalentPedestrianCount(10, 0.5, 1)).toThrow(/dampingRatio/);
   });
   it('builds the modal force P ψ n\' mean|φ|', () => {
+    // P = 280 N vertical, 35 N lateral per person (Sétra 2006 / HiVoSS 2008, from memory); ψ = 1 at 1.9 Hz (HiVoSS
+    // vertical) and at 0.8 Hz (Sétra lateral); the mean of a unit half-sine is 2/π.
     expect(crowdModalForceN('hivoss', 'vertical', 10, halfSineModeShapeMean, 1.9)).toBeCloseTo((280 * 10 * 2) / Math.PI, 9);
     expect(crowdModalForceN('setra', 'lateral', 10, 1, 0.8)).toBeCloseTo(350, 12);
   });
