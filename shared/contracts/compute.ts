@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { SYMMETRY_TOLERANCE } from '../engine/linalg';
+import { tuningMethods } from '../engine/types';
 
 /**
  * Requests and answers of the engine's compute commands (`modes`, `tune`, `response`, `free`), the same for the
@@ -15,8 +17,8 @@ export const MAX_FREE_WORK = 200_000_000;
 export const MAX_FREE_VALUES = 1_000_000;
 /** Largest number of dampers on one mode in a `response` request. */
 export const MAX_TMDS = 50;
-/** Relative tolerance of the symmetry check, against the largest entry of the matrix. */
-export const MATRIX_SYMMETRY_TOLERANCE = 1e-9;
+/** Relative tolerance of the symmetry check, against the largest entry of the matrix: the engine's own. */
+export const MATRIX_SYMMETRY_TOLERANCE = SYMMETRY_TOLERANCE;
 
 /**
  * The message of a wrong type, or "is required" when the field is missing. Other issues of the same schema (an
@@ -104,9 +106,7 @@ export const modeSchema = z.object({
 export const modesResponseSchema = z.object({ modes: z.array(modeSchema) });
 
 // ---------- tune ----------
-export const tuningMethodSchema = z.enum(['den-hartog', 'warburton-random', 'ioi-ikeda', 'hinf', 'h2'], {
-  error: typeError('must be one of den-hartog, warburton-random, ioi-ikeda, hinf, h2'),
-});
+export const tuningMethodSchema = z.enum(tuningMethods, { error: typeError(`must be one of ${tuningMethods.join(', ')}`) });
 export const tuneRequestSchema = z.strictObject({
   method: tuningMethodSchema,
   massRatio: positive.max(1, { error: 'must be at most 1 (the damper heavier than the modal mass)' }),

@@ -4,7 +4,7 @@
  *   q_i(t) = q_i(0) cos ω_i t + q̇_i(0)/ω_i sin ω_i t, and q_i(t) = q_i(0) + q̇_i(0) t for a rigid-body mode (ω_i = 0).
  */
 import { EngineInputError, type SquareMatrixInput } from './linalg';
-import { prepareMassAndStiffness, solveModes, type ModalSolution } from './modal';
+import { prepareMassAndStiffness, solvePreparedModes, type ModalSolution } from './modal';
 
 export interface FreeVibrationInput {
   massKg: SquareMatrixInput;
@@ -32,14 +32,14 @@ function checkVector(value: ArrayLike<number>, length: number, name: string): vo
 }
 
 export function solveFreeVibration(input: FreeVibrationInput): FreeVibrationResult {
-  const { n, mass } = prepareMassAndStiffness(input.massKg, input.stiffnessNPerM);
+  const { n, mass, stiffness } = prepareMassAndStiffness(input.massKg, input.stiffnessNPerM);
   checkVector(input.initialDisplacementM, n, 'initialDisplacementM');
   checkVector(input.initialVelocityMPerS, n, 'initialVelocityMPerS');
   const times = input.timesS;
   for (let t = 0; t < times.length; t++) {
     if (typeof times[t] !== 'number' || !Number.isFinite(times[t])) throw new EngineInputError(`timesS.${t}`, `timesS: entry ${t} must be a finite number`);
   }
-  const modes = solveModes(input.massKg, input.stiffnessNPerM);
+  const modes = solvePreparedModes(n, mass, stiffness);
   const q0 = new Float64Array(n);
   const v0 = new Float64Array(n);
   const mx = new Float64Array(n);

@@ -27,9 +27,9 @@ export interface HarmonicResponse {
 export function solveHarmonicResponse(input: HarmonicResponseInput): HarmonicResponse {
   const m = toSquareMatrix(input.massKg, 'massKg', input.dofCount);
   const n = m.n;
+  // Given n, toSquareMatrix refuses a damping or stiffness matrix of another size than the mass matrix.
   const c = toSquareMatrix(input.dampingNsPerM, 'dampingNsPerM', n);
   const k = toSquareMatrix(input.stiffnessNPerM, 'stiffnessNPerM', n);
-  if (c.n !== n || k.n !== n) throw new EngineInputError('dampingNsPerM', 'all three matrices must have the same size');
   const forceRe = input.forceN;
   const forceIm = input.forceImaginaryN;
   if (!forceRe || forceRe.length !== n) throw new EngineInputError('forceN', `forceN: must have ${n} entries`);

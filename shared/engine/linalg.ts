@@ -1,6 +1,7 @@
 /**
- * Small dense linear-algebra kernels on row-major Float64Array matrices, and input checks for matrices.
- * Large eigenproblems go through ml-matrix (modal.ts); these kernels serve the hot paths on small systems.
+ * Small dense linear-algebra kernels on row-major Float64Array matrices (Cholesky, LU, Lyapunov), the engine's
+ * input error and its checks of numbers and matrices. The symmetric eigenproblem has its own kernel
+ * (symmetric-eigen.ts), the complex solve of the dynamic stiffness is in harmonic.ts.
  */
 
 /** A square matrix given as nested rows or as a row-major Float64Array of n² entries. */
@@ -13,6 +14,20 @@ export class EngineInputError extends RangeError {
     super(message);
     this.name = 'EngineInputError';
     this.field = field;
+  }
+}
+
+/** Refuses anything but a finite number greater than 0, naming `field`. */
+export function checkPositive(value: number, field: string): void {
+  if (typeof value !== 'number' || !Number.isFinite(value) || !(value > 0)) {
+    throw new EngineInputError(field, `${field}: must be a finite number greater than 0 (got ${value})`);
+  }
+}
+
+/** Refuses anything but a damping ratio in [0, 1), naming `field`. */
+export function checkDampingRatio(value: number, field: string): void {
+  if (typeof value !== 'number' || !Number.isFinite(value) || value < 0 || value >= 1) {
+    throw new EngineInputError(field, `${field}: must be a damping ratio in [0, 1) (got ${value})`);
   }
 }
 
@@ -102,59 +117,6 @@ export function choleskyLower(data: Float64Array, n: number): Float64Array | nul
     }
   }
   return l;
-}
-
-/**
- * Eigenvalues and eigenvectors of a small symmetric matrix by cyclic Jacobi rotations (Golub & Van Loan,
- * Matrix Computations, §8.5). `a` (row-major n×n) is destroyed. Eigenvalues land in `values` (unsorted) and the
- * eigenvectors in the columns of `vectors` (row-major n×n).
- */
-export function jacobiEigenSymmetric(a: Float64Array, n: number, values: Float64Array, vectors: Float64Array): void {
-  vectors.fill(0);
-  for (let i = 0; i < n; i++) vectors[i * n + i] = 1;
-  for (let sweep = 0; sweep < 60; sweep++) {
-    let off = 0;
-    let total = 0;
-    for (let i = 0; i < n; i++) {
-      for (let j = 0; j < n; j++) {
-        const value = a[i * n + j] * a[i * n + j];
-        total += value;
-        if (i !== j) off += value;
-      }
-    }
-    if (off <= 1e-30 * total || off === 0) break;
-    for (let p = 0; p < n - 1; p++) {
-      for (let q = p + 1; q < n; q++) {
-        const apq = a[p * n + q];
-        if (apq === 0) continue;
-        const app = a[p * n + p];
-        const aqq = a[q * n + q];
-        const theta = (aqq - app) / (2 * apq);
-        const t = (theta >= 0 ? 1 : -1) / (Math.abs(theta) + Math.sqrt(theta * theta + 1));
-        const c = 1 / Math.sqrt(t * t + 1);
-        const s = t * c;
-        for (let k = 0; k < n; k++) {
-          const akp = a[k * n + p];
-          const akq = a[k * n + q];
-          a[k * n + p] = c * akp - s * akq;
-          a[k * n + q] = s * akp + c * akq;
-        }
-        for (let k = 0; k < n; k++) {
-          const apk = a[p * n + k];
-          const aqk = a[q * n + k];
-          a[p * n + k] = c * apk - s * aqk;
-          a[q * n + k] = s * apk + c * aqk;
-        }
-        for (let k = 0; k < n; k++) {
-          const vkp = vectors[k * n + p];
-          const vkq = vectors[k * n + q];
-          vectors[k * n + p] = c * vkp - s * vkq;
-          vectors[k * n + q] = s * vkp + c * vkq;
-        }
-      }
-    }
-  }
-  for (let i = 0; i < n; i++) values[i] = a[i * n + i];
 }
 
 /**

@@ -25,8 +25,7 @@ export interface ModalSolution {
 /** Checked, symmetrised copies of M and K; throws EngineInputError naming `massKg` / `stiffnessNPerM`. */
 export function prepareMassAndStiffness(massKg: SquareMatrixInput, stiffnessNPerM: SquareMatrixInput, dofCount?: number) {
   const m = toSquareMatrix(massKg, 'massKg', dofCount);
-  const k = toSquareMatrix(stiffnessNPerM, 'stiffnessNPerM', m.n);
-  if (k.n !== m.n) throw new EngineInputError('stiffnessNPerM', `stiffnessNPerM: must be ${m.n}×${m.n} like massKg (got ${k.n}×${k.n})`);
+  const k = toSquareMatrix(stiffnessNPerM, 'stiffnessNPerM', m.n); // refuses a size other than massKg's
   symmetrise(m.data, m.n, 'massKg');
   symmetrise(k.data, k.n, 'stiffnessNPerM');
   return { n: m.n, mass: m.data, stiffness: k.data };
@@ -34,6 +33,11 @@ export function prepareMassAndStiffness(massKg: SquareMatrixInput, stiffnessNPer
 
 export function solveModes(massKg: SquareMatrixInput, stiffnessNPerM: SquareMatrixInput, dofCount?: number): ModalSolution {
   const { n, mass, stiffness } = prepareMassAndStiffness(massKg, stiffnessNPerM, dofCount);
+  return solvePreparedModes(n, mass, stiffness);
+}
+
+/** solveModes on matrices already checked and symmetrised by prepareMassAndStiffness (only read). */
+export function solvePreparedModes(n: number, mass: Float64Array, stiffness: Float64Array): ModalSolution {
   const l = choleskyLower(mass, n);
   if (!l) throw new EngineInputError('massKg', 'massKg: must be positive definite (its Cholesky factorisation failed)');
   // W = L⁻¹ K, then A = L⁻¹ Wᵀ = L⁻¹ K L⁻ᵀ (K symmetric). Row-oriented substitutions: contiguous inner loops.

@@ -4,7 +4,7 @@
  * in Chopra, Dynamics of Structures). The effective stiffness K̂ = K + γ/(βΔt) C + 1/(βΔt²) M is factored once;
  * each step costs one force evaluation and one pair of triangular solves.
  */
-import { EngineInputError, luFactor, luSolve } from './linalg';
+import { EngineInputError, checkPositive, luFactor, luSolve } from './linalg';
 
 export interface NewmarkInput {
   dofCount: number;
@@ -38,7 +38,7 @@ export function integrateNewmark(input: NewmarkInput): NewmarkResult {
     for (let i = 0; i < n * n; i++) if (!Number.isFinite(matrix[i])) throw new EngineInputError(name, `${name}: entry ${i} must be finite`);
   }
   const dt = input.timeStepS;
-  if (!Number.isFinite(dt) || !(dt > 0)) throw new EngineInputError('timeStepS', `timeStepS: must be a finite number greater than 0 (got ${dt})`);
+  checkPositive(dt, 'timeStepS');
   const steps = input.stepCount;
   if (!Number.isInteger(steps) || steps < 0) throw new EngineInputError('stepCount', `stepCount: must be an integer ≥ 0 (got ${steps})`);
   if (typeof input.force !== 'function') throw new TypeError('force: must be a function (timeS, out) => void');

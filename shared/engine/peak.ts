@@ -10,9 +10,9 @@
  */
 
 export interface MaximiseOptions {
-  /** Number of grid samples on the interval, at least 3 (default 32). */
+  /** Number of grid samples on the interval, at least 3 (default DEFAULT_SAMPLES = 32). */
   samples?: number;
-  /** Relative tolerance on the location of the maximum (default 1e-7; the value is then far more accurate). */
+  /** Relative tolerance on the location of the maximum (default DEFAULT_RELATIVE_TOLERANCE = 1e-7; the value is then far more accurate). */
   relativeTolerance?: number;
   /** Extra points to sample (outside the interval they are ignored). */
   hints?: readonly number[];
@@ -23,10 +23,18 @@ export interface IntervalMaximum {
   value: number;
 }
 
-const GOLDEN = 0.3819660112501051; // (3 − √5) / 2
-const DEFAULT_SAMPLES = 32;
-const DEFAULT_RELATIVE_TOLERANCE = 1e-7;
+/** (3 − √5) / 2: the fraction of an interval where golden-section search places its next point. */
+export const GOLDEN_SECTION_FRACTION = 0.3819660112501051;
+/** Grid samples on the interval when `samples` is not given. */
+export const DEFAULT_SAMPLES = 32;
+/** Relative tolerance on the location of the maximum when `relativeTolerance` is not given. */
+export const DEFAULT_RELATIVE_TOLERANCE = 1e-7;
+/** At most this many sampled local maxima are refined, the highest first. */
 const MAX_REFINEMENTS = 8;
+/** A sampled local maximum is refined only when it reaches this fraction of the best sample (when that is ≥ 0). */
+const REFINE_ABOVE_FRACTION_OF_BEST = 0.25;
+/** On an interval that is not on the positive axis (linear grid): absolute tolerance = this × relative × max |end|. */
+const LINEAR_ABSOLUTE_TOLERANCE_FACTOR = 1e-3;
 
 function checkFinite(value: number, x: number): number {
   if (!Number.isFinite(value)) {
@@ -83,7 +91,7 @@ export function brentMaximise(
     }
     if (useGolden) {
       e = (x < m ? b : a) - x;
-      d = GOLDEN * e;
+      d = GOLDEN_SECTION_FRACTION * e;
     }
     const u = Math.abs(d) >= tol ? x + d : x + (d > 0 ? tol : -tol);
     const fu = -checkFinite(fn(u), u);
@@ -169,11 +177,11 @@ export function maximiseOnInterval(
     if (values[i] > values[best]) best = i;
   }
   const scale = Math.max(Math.abs(lo), Math.abs(hi));
-  const absoluteTolerance = logarithmic ? 0 : relativeTolerance * scale * 1e-3;
+  const absoluteTolerance = logarithmic ? 0 : relativeTolerance * scale * LINEAR_ABSOLUTE_TOLERANCE_FACTOR;
 
   let resultX = xs[best];
   let resultValue = values[best];
-  const threshold = resultValue >= 0 ? 0.25 * resultValue : resultValue;
+  const threshold = resultValue >= 0 ? REFINE_ABOVE_FRACTION_OF_BEST * resultValue : resultValue;
   // Sampled local maxima above the threshold, refined highest first.
   const candidates = new Int32Array(count);
   let candidateCount = 0;
@@ -199,7 +207,7 @@ export function maximiseOnInterval(
     let f0 = values[i];
     if (i === 0 || i === count - 1) {
       // Endpoint: start Brent inside the neighbouring cell, keep the endpoint value if it is larger.
-      x0 = a + GOLDEN * (b - a);
+      x0 = a + GOLDEN_SECTION_FRACTION * (b - a);
       f0 = checkFinite(fn(x0), x0);
     }
     const refined = brentMaximise(fn, a, b, x0, f0, relativeTolerance, absoluteTolerance);

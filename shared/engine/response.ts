@@ -10,7 +10,8 @@
  * The kernel works on Float64Arrays and allocates nothing per frequency point.
  */
 import type { StructureMode, TmdParameters } from './types';
-import { EngineInputError, jacobiEigenSymmetric } from './linalg';
+import { checkDampingRatio, checkPositive } from './linalg';
+import { symmetricEigen } from './symmetric-eigen';
 import { maximiseOnInterval } from './peak';
 
 const TWO_PI = 2 * Math.PI;
@@ -49,23 +50,20 @@ export interface ResponsePeakOptions {
   tmdIndex?: number;
   /** Force amplitude in N at a frequency (default 1 N); the value searched is magnitude × weight. */
   forceWeight?: (frequencyHz: number) => number;
-  /** Relative tolerance on the peak frequency (default 1e-7). */
+  /** Relative tolerance on the peak frequency (default DEFAULT_RELATIVE_TOLERANCE of peak.ts, 1e-7). */
   relativeTolerance?: number;
-  /** Grid samples on the band (default 32), merged with points around every coupled natural frequency. */
+  /** Grid samples on the band (default DEFAULT_SAMPLES of peak.ts, 32), merged with points around every coupled natural frequency. */
   samples?: number;
 }
 
-function checkPositive(value: number, field: string): void {
-  if (typeof value !== 'number' || !Number.isFinite(value) || !(value > 0)) {
-    throw new EngineInputError(field, `${field}: must be a finite number greater than 0 (got ${value})`);
-  }
-}
-
-function checkDampingRatio(value: number, field: string): void {
-  if (typeof value !== 'number' || !Number.isFinite(value) || value < 0 || value >= 1) {
-    throw new EngineInputError(field, `${field}: must be a damping ratio in [0, 1) (got ${value})`);
-  }
-}
+/**
+ * Extra samples of the peak search around each coupled natural frequency f_r: f_r (1 ± offset × ζ_r) for each offset,
+ * ζ_r the coupled mode's damping estimate. A resonance's half-power width is about 2 ζ_r f_r, so these bracket it.
+ */
+const RESONANCE_HINT_OFFSETS = [0.4, 1, 2] as const;
+/** ζ_r used for the hints is held in [floor, ceiling]: an undamped mode still gets distinct points, a heavily damped one stays near f_r. */
+const HINT_DAMPING_RATIO_FLOOR = 1e-6;
+const HINT_DAMPING_RATIO_CEILING = 0.3;
 
 /** Checks the parameters and precomputes stiffnesses, dampings and the coupled natural frequencies. */
 export function createModeTmdSystem(structure: StructureMode, tmds: readonly TmdParameters[]): ModeTmdSystem {
@@ -108,31 +106,18 @@ export function createModeTmdSystem(structure: StructureMode, tmds: readonly Tmd
     a[(j + 1) * size] = off;
     a[(j + 1) * size + j + 1] = tmdStiffnessNPerM[j] / tmdMassKg[j];
   }
-  const values = new Float64Array(size);
-  const vectors = new Float64Array(size * size);
-  jacobiEigenSymmetric(a, size, values, vectors);
-  // Sort ascending (insertion sort on indices; size is small).
-  const order = new Int32Array(size);
-  for (let i = 0; i < size; i++) {
-    let k = i;
-    while (k > 0 && values[order[k - 1]] > values[i]) {
-      order[k] = order[k - 1];
-      k--;
-    }
-    order[k] = i;
-  }
+  const { values, vectors } = symmetricEigen(a, size); // ascending; row r = eigenvector r
   const coupledFrequenciesHz = new Float64Array(size);
   const coupledDampingRatios = new Float64Array(size);
   const rootStructureMass = Math.sqrt(structureMassKg);
   for (let r = 0; r < size; r++) {
-    const mode = order[r];
-    const omega = Math.sqrt(Math.max(values[mode], 0));
+    const omega = Math.sqrt(Math.max(values[r], 0));
     coupledFrequenciesHz[r] = omega / TWO_PI;
     // Mass-normalised shape φ = M^{-1/2} y; modal damping φᵀ C φ.
-    const phi0 = vectors[mode] / rootStructureMass;
+    const phi0 = vectors[r * size] / rootStructureMass;
     let modalDamping = structureDampingNsPerM * phi0 * phi0;
     for (let j = 0; j < n; j++) {
-      const relative = vectors[(j + 1) * size + mode] / Math.sqrt(tmdMassKg[j]) - phi0;
+      const relative = vectors[r * size + j + 1] / Math.sqrt(tmdMassKg[j]) - phi0;
       modalDamping += tmdDampingNsPerM[j] * relative * relative;
     }
     coupledDampingRatios[r] = omega > 0 ? modalDamping / (2 * omega) : 0;
@@ -166,6 +151,43 @@ export function createModeTmdPoint(system: ModeTmdSystem): ModeTmdPoint {
 }
 
 /**
+ * The dynamic stiffness the structure sees at ω (the denominator of X_s / F in the module comment),
+ *   D = K − ω²M + iωC − Σ_j ω² m_j (k_j + iωc_j) / (k_j − ω² m_j + iωc_j),
+ * written to out[0] (real part) and out[1] (imaginary part). A damper whose own dynamic stiffness
+ * k_j − ω² m_j + iωc_j is exactly zero (undamped, at its own frequency) makes D infinite: its term is left out and
+ * counted in the returned number of such dampers.
+ */
+function structureDynamicStiffness(system: ModeTmdSystem, omega: number, out: Float64Array): number {
+  const omega2 = omega * omega;
+  const masses = system.tmdMassKg;
+  const stiffnesses = system.tmdStiffnessNPerM;
+  const dampings = system.tmdDampingNsPerM;
+  let dRe = system.structureStiffnessNPerM - omega2 * system.structureMassKg;
+  let dIm = omega * system.structureDampingNsPerM;
+  let singular = 0;
+  for (let j = 0; j < system.tmdCount; j++) {
+    const inertia = masses[j] * omega2;
+    const denRe = stiffnesses[j] - inertia;
+    const denIm = omega * dampings[j];
+    const den2 = denRe * denRe + denIm * denIm;
+    if (den2 === 0) {
+      singular++;
+      continue;
+    }
+    // − inertia (k_j + iωc_j) / den
+    const scale = -inertia / den2;
+    dRe += scale * (stiffnesses[j] * denRe + denIm * denIm);
+    dIm += scale * (denIm * denRe - stiffnesses[j] * denIm);
+  }
+  out[0] = dRe;
+  out[1] = dIm;
+  return singular;
+}
+
+/** Scratch for the dynamic stiffness in evaluateModeTmdSystem (no allocation per frequency point). */
+const dynamicStiffnessScratch = new Float64Array(2);
+
+/**
  * Response magnitudes per 1 N at one frequency, written into `out` (no allocation). At an exact pole of an
  * undamped system the magnitudes are Infinity; at the exact own frequency of an undamped damper the structure
  * stands still and that damper's stroke carries the force (shared equally if several are singular there).
@@ -178,25 +200,8 @@ export function evaluateModeTmdSystem(system: ModeTmdSystem, frequencyHz: number
   const stiffnesses = system.tmdStiffnessNPerM;
   const dampings = system.tmdDampingNsPerM;
   const strokes = out.tmdStrokeMPerN;
-  let dRe = system.structureStiffnessNPerM - omega2 * system.structureMassKg;
-  let dIm = omega * system.structureDampingNsPerM;
-  let singular = 0;
-  for (let j = 0; j < n; j++) {
-    const inertia = masses[j] * omega2;
-    const denRe = stiffnesses[j] - inertia;
-    const denIm = omega * dampings[j];
-    const den2 = denRe * denRe + denIm * denIm;
-    if (den2 === 0) {
-      singular++;
-      continue;
-    }
-    const numRe = stiffnesses[j];
-    const numIm = denIm;
-    // −inertia (num / den)
-    const scale = -inertia / den2;
-    dRe += scale * (numRe * denRe + numIm * denIm);
-    dIm += scale * (numIm * denRe - numRe * denIm);
-  }
+  const d = dynamicStiffnessScratch;
+  const singular = structureDynamicStiffness(system, omega, d);
   if (singular > 0) {
     out.structureDisplacementMPerN = 0;
     out.structureAccelerationMPerS2PerN = 0;
@@ -207,8 +212,7 @@ export function evaluateModeTmdSystem(system: ModeTmdSystem, frequencyHz: number
     }
     return out;
   }
-  const d2 = dRe * dRe + dIm * dIm;
-  const xs = 1 / Math.sqrt(d2);
+  const xs = 1 / Math.sqrt(d[0] * d[0] + d[1] * d[1]);
   out.structureDisplacementMPerN = xs;
   out.structureAccelerationMPerS2PerN = omega2 * xs;
   for (let j = 0; j < n; j++) {
@@ -220,28 +224,17 @@ export function evaluateModeTmdSystem(system: ModeTmdSystem, frequencyHz: number
 }
 
 /**
- * Complex structure displacement X_s per 1 N at one frequency (re, im written to `out[0]`, `out[1]`).
- * Phase convention: x(t) = Re(X e^{iωt}).
+ * Complex structure displacement X_s = 1 / D per 1 N at one frequency (re, im written to `out[0]`, `out[1]`);
+ * 0 at the exact own frequency of an undamped damper. Phase convention: x(t) = Re(X e^{iωt}).
  */
 export function evaluateStructureReceptance(system: ModeTmdSystem, frequencyHz: number, out: Float64Array): Float64Array {
-  const omega = TWO_PI * frequencyHz;
-  const omega2 = omega * omega;
-  let dRe = system.structureStiffnessNPerM - omega2 * system.structureMassKg;
-  let dIm = omega * system.structureDampingNsPerM;
-  for (let j = 0; j < system.tmdCount; j++) {
-    const inertia = system.tmdMassKg[j] * omega2;
-    const denRe = system.tmdStiffnessNPerM[j] - inertia;
-    const denIm = omega * system.tmdDampingNsPerM[j];
-    const den2 = denRe * denRe + denIm * denIm;
-    if (den2 === 0) {
-      out[0] = 0;
-      out[1] = 0;
-      return out;
-    }
-    const scale = -inertia / den2;
-    dRe += scale * (system.tmdStiffnessNPerM[j] * denRe + denIm * denIm);
-    dIm += scale * (denIm * denRe - system.tmdStiffnessNPerM[j] * denIm);
+  if (structureDynamicStiffness(system, TWO_PI * frequencyHz, out) > 0) {
+    out[0] = 0;
+    out[1] = 0;
+    return out;
   }
+  const dRe = out[0];
+  const dIm = out[1];
   const d2 = dRe * dRe + dIm * dIm;
   out[0] = dRe / d2;
   out[1] = -dIm / d2;
@@ -293,8 +286,9 @@ export function findResponsePeak(
   for (let r = 0; r < frequencies.length; r++) {
     const f = frequencies[r];
     if (!(f > 0)) continue;
-    const width = Math.min(Math.max(system.coupledDampingRatios[r], 1e-6), 0.3);
-    hints.push(f, f * (1 - 0.4 * width), f * (1 + 0.4 * width), f * (1 - width), f * (1 + width), f * (1 - 2 * width), f * (1 + 2 * width));
+    const width = Math.min(Math.max(system.coupledDampingRatios[r], HINT_DAMPING_RATIO_FLOOR), HINT_DAMPING_RATIO_CEILING);
+    hints.push(f);
+    for (const offset of RESONANCE_HINT_OFFSETS) hints.push(f * (1 - offset * width), f * (1 + offset * width));
   }
   hints.push(system.structure.frequencyHz);
   for (const tmd of system.tmds) hints.push(tmd.frequencyHz);
@@ -305,10 +299,6 @@ export function findResponsePeak(
         return quantityOf(evaluateModeTmdSystem(system, f, point), quantity, tmdIndex) * w;
       }
     : (f: number) => quantityOf(evaluateModeTmdSystem(system, f, point), quantity, tmdIndex);
-  const result = maximiseOnInterval(fn, lo, hi, {
-    samples: options.samples ?? 32,
-    relativeTolerance: options.relativeTolerance ?? 1e-7,
-    hints,
-  });
+  const result = maximiseOnInterval(fn, lo, hi, { samples: options.samples, relativeTolerance: options.relativeTolerance, hints });
   return { frequencyHz: result.x, value: result.value };
 }

@@ -13,29 +13,20 @@
  *   h2    minimises the mean-square structure displacement under a white-noise force on the structure, from the
  *         stationary covariance of the state (Lyapunov equation A P + P Aᵀ + B Bᵀ = 0), for any ζ_s
  */
-import type { TuningMethod, TuningResult } from './types';
-import { EngineInputError, solveLyapunov } from './linalg';
-import { brentMaximise } from './peak';
+import { tuningMethods, type TuningMethod, type TuningResult } from './types';
+import { EngineInputError, checkDampingRatio, checkPositive, solveLyapunov } from './linalg';
+import { GOLDEN_SECTION_FRACTION, brentMaximise } from './peak';
 import { createModeTmdSystem, findResponsePeak } from './response';
 
-export const tuningMethods: readonly TuningMethod[] = ['den-hartog', 'warburton-random', 'ioi-ikeda', 'hinf', 'h2'];
+export { tuningMethods };
 
 export interface TuningRatios {
   frequencyRatio: number;
   tmdDampingRatio: number;
 }
 
-function checkMassRatio(massRatio: number): void {
-  if (typeof massRatio !== 'number' || !Number.isFinite(massRatio) || !(massRatio > 0)) {
-    throw new EngineInputError('massRatio', `massRatio: must be a finite number greater than 0 (got ${massRatio})`);
-  }
-}
-
-function checkStructureDamping(structureDampingRatio: number): void {
-  if (typeof structureDampingRatio !== 'number' || !Number.isFinite(structureDampingRatio) || structureDampingRatio < 0 || structureDampingRatio >= 1) {
-    throw new EngineInputError('structureDampingRatio', `structureDampingRatio: must be a damping ratio in [0, 1) (got ${structureDampingRatio})`);
-  }
-}
+const checkMassRatio = (massRatio: number) => checkPositive(massRatio, 'massRatio');
+const checkStructureDamping = (structureDampingRatio: number) => checkDampingRatio(structureDampingRatio, 'structureDampingRatio');
 
 /** Den Hartog (Mechanical Vibrations, 4th ed. 1956): harmonic force, undamped primary. */
 export function tuneDenHartog(massRatio: number): TuningRatios {
@@ -72,25 +63,34 @@ export function tuneIoiIkeda(massRatio: number, structureDampingRatio: number): 
 }
 
 /**
+ * The band searched by peakAmplification, in units of the structure's frequency: from this fraction of the lower of
+ * the first coupled frequency and f_s, to this multiple of the higher of the last coupled frequency and f_s. Below
+ * the band the amplification is within about 1 % of its static value 1, above it it falls towards 0.
+ */
+const AMPLIFICATION_BAND_LOW_FACTOR = 0.1;
+const AMPLIFICATION_BAND_HIGH_FACTOR = 3;
+/**
+ * Grid samples of that search: fewer than findResponsePeak's default, because its hints already bracket both
+ * coupled resonances and the optimisers call it hundreds of times.
+ */
+const AMPLIFICATION_GRID_SAMPLES = 12;
+
+/**
  * Peak dynamic amplification max_ω |X_s| K / F of a structure (μ, ζ_s) with one TMD (f, ζ_a), over all ω ≥ 0
  * (the static value 1 at ω = 0 included). Dimensionless; independent of the structure's frequency and mass.
  */
 export function peakAmplification(massRatio: number, frequencyRatio: number, tmdDampingRatio: number, structureDampingRatio: number): number {
-  return peakAmplificationAt(massRatio, frequencyRatio, tmdDampingRatio, structureDampingRatio).value;
-}
-
-function peakAmplificationAt(massRatio: number, frequencyRatio: number, tmdDampingRatio: number, structureDampingRatio: number): { frequencyRatio: number; value: number } {
   // Structure of 1 kg at 1 Hz: K = (2π)² N/m, so |X_s| K / F = |X_s per N| × (2π)².
   const system = createModeTmdSystem(
     { modalMassKg: 1, frequencyHz: 1, dampingRatio: structureDampingRatio },
     [{ massKg: massRatio, frequencyHz: frequencyRatio, dampingRatio: tmdDampingRatio }],
   );
-  const stiffness = system.structureStiffnessNPerM;
   const low = system.coupledFrequenciesHz[0];
   const high = system.coupledFrequenciesHz[system.coupledFrequenciesHz.length - 1];
-  const peak = findResponsePeak(system, [0.1 * Math.min(low, 1), 3 * Math.max(high, 1)], { quantity: 'structureDisplacement', samples: 12 });
-  const value = peak.value * stiffness;
-  return value > 1 ? { frequencyRatio: peak.frequencyHz, value } : { frequencyRatio: 0, value: 1 };
+  const band: [number, number] = [AMPLIFICATION_BAND_LOW_FACTOR * Math.min(low, 1), AMPLIFICATION_BAND_HIGH_FACTOR * Math.max(high, 1)];
+  const peak = findResponsePeak(system, band, { quantity: 'structureDisplacement', samples: AMPLIFICATION_GRID_SAMPLES });
+  // Below the band the amplification falls to its static value 1 at ω = 0, which is the answer when no peak rises above it.
+  return Math.max(peak.value * system.structureStiffnessNPerM, 1);
 }
 
 /**
@@ -124,7 +124,7 @@ export function meanSquareAmplification(massRatio: number, frequencyRatio: numbe
 
 /** Brent minimisation of a smooth or V-shaped unimodal function on [a, b]. */
 function minimise(fn: (x: number) => number, a: number, b: number, relativeTolerance: number): { x: number; value: number } {
-  const x0 = a + 0.3819660112501051 * (b - a);
+  const x0 = a + GOLDEN_SECTION_FRACTION * (b - a);
   const f0 = fn(x0);
   const result = brentMaximise((x) => -fn(x), a, b, x0, -f0, relativeTolerance, 0, 200);
   return { x: result.x, value: -result.value };
@@ -191,9 +191,7 @@ export function tuneH2(massRatio: number, structureDampingRatio: number): Tuning
 export function tuneTmd(method: TuningMethod, massRatio: number, structureFrequencyHz: number, structureDampingRatio = 0): TuningResult {
   checkMassRatio(massRatio);
   checkStructureDamping(structureDampingRatio);
-  if (typeof structureFrequencyHz !== 'number' || !Number.isFinite(structureFrequencyHz) || !(structureFrequencyHz > 0)) {
-    throw new EngineInputError('structureFrequencyHz', `structureFrequencyHz: must be a finite number greater than 0 (got ${structureFrequencyHz})`);
-  }
+  checkPositive(structureFrequencyHz, 'structureFrequencyHz');
   let ratios: TuningRatios;
   switch (method) {
     case 'den-hartog':

@@ -17,7 +17,9 @@ export interface TmdParameters {
   dampingRatio: number;
 }
 
-export type TuningMethod = 'den-hartog' | 'warburton-random' | 'ioi-ikeda' | 'hinf' | 'h2';
+/** The tuning methods, by their request names (tuning.ts; the `tune` command's `method`). */
+export const tuningMethods = ['den-hartog', 'warburton-random', 'ioi-ikeda', 'hinf', 'h2'] as const;
+export type TuningMethod = (typeof tuningMethods)[number];
 
 export interface TuningResult {
   frequencyRatio: number;
