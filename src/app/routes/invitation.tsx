@@ -48,7 +48,7 @@ export function InvitationRoute() {
           token={token}
           invitation={invitation.data}
           onAccepted={async () => {
-            resetCacheForPerson(queryClient, await fetchSignedInPerson(queryClient));
+            resetCacheForPerson(queryClient, await fetchSignedInPerson());
             navigate('/projects', { replace: true });
           }}
         />

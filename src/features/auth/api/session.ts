@@ -4,31 +4,31 @@ import { appConfigSchema, meSchema, type Me } from '../../../../shared/contracts
 import { apiRequest, isApiError } from '../../../lib/api-client';
 import { sessionQueryKey, signInWithCredentials, signOut } from '../../../lib/auth';
 
+const authSessionSchema = z.object({ user: z.object({}).loose().optional() }).loose().nullable();
+
 /**
- * The signed-in person, or null when nobody is signed in. Auth.js's session endpoint answers 200 either way, so a
- * visitor without a session costs no failed request; /api/me then gives the current role and organisation.
+ * Asks the server who is signed in: the person, or null when nobody is. Auth.js's session endpoint answers 200
+ * either way, so a visitor without a session costs no failed request; /api/me then gives the current role and
+ * organisation.
  */
+export async function fetchSignedInPerson(signal?: AbortSignal): Promise<Me | null> {
+  const session = await apiRequest('/api/auth/session', { schema: authSessionSchema, signal });
+  if (!session?.user) return null;
+  try {
+    return await apiRequest('/api/me', { schema: meSchema, signal });
+  } catch (error) {
+    if (isApiError(error) && error.isUnauthenticated) return null;
+    throw error;
+  }
+}
+
+/** The signed-in person (null when signed out), cached under the session key. */
 export const meQueryOptions = () =>
   queryOptions({
     queryKey: sessionQueryKey,
-    queryFn: async ({ signal }): Promise<Me | null> => {
-      if (!(await hasSession(signal))) return null;
-      try {
-        return await apiRequest('/api/me', { schema: meSchema, signal });
-      } catch (error) {
-        if (isApiError(error) && error.isUnauthenticated) return null;
-        throw error;
-      }
-    },
+    queryFn: ({ signal }) => fetchSignedInPerson(signal),
     staleTime: 60_000,
   });
-
-const authSessionSchema = z.object({ user: z.object({}).loose().optional() }).loose().nullable();
-
-async function hasSession(signal: AbortSignal): Promise<boolean> {
-  const session = await apiRequest('/api/auth/session', { schema: authSessionSchema, signal });
-  return Boolean(session?.user);
-}
 
 /** How the server runs (demo accounts, development mailbox); it does not change while the page is open. */
 export const appConfigQueryOptions = () =>
@@ -38,14 +38,10 @@ export const appConfigQueryOptions = () =>
     staleTime: Infinity,
   });
 
-/** Asks the server afresh who is signed in (after the session cookie changed). */
-export function fetchSignedInPerson(queryClient: QueryClient): Promise<Me | null> {
-  return queryClient.fetchQuery({ ...meQueryOptions(), staleTime: 0 });
-}
-
 /**
  * After a sign-in, a sign-out or joining by invitation: everything cached belonged to nobody or to somebody else, so
- * the cache starts over holding only the server's configuration (which does not change) and the person now signed in.
+ * the cache starts over holding only the server's configuration (which does not change) and the person now signed in
+ * (as `fetchSignedInPerson` answered, read outside the cache so that no page re-renders with the old cache).
  */
 export function resetCacheForPerson(queryClient: QueryClient, me: Me | null): void {
   const config = queryClient.getQueryData(appConfigQueryOptions().queryKey);
@@ -59,7 +55,7 @@ export function useSignIn() {
   return useMutation({
     mutationFn: async ({ email, password }: { email: string; password: string }) => {
       await signInWithCredentials(email, password);
-      return fetchSignedInPerson(queryClient);
+      return fetchSignedInPerson();
     },
     onSuccess: (me) => resetCacheForPerson(queryClient, me),
   });
