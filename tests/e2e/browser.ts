@@ -6,7 +6,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
-import { expect } from 'vitest';
+import { afterAll, beforeAll, expect, inject } from 'vitest';
 
 export const demoPassword = 'stillspan-demo';
 
@@ -69,12 +69,49 @@ export async function openBrowser(resultsDir: string): Promise<Browser> {
   };
 }
 
-export async function signIn(page: Page, baseUrl: string, email: string, password = demoPassword): Promise<void> {
-  await page.goto(`${baseUrl}/sign-in`);
-  await page.getByRole('heading', { name: 'Sign in', exact: true }).waitFor();
+/**
+ * One browser for the calling test file: opened before its tests and closed after them. Call it at the top level of
+ * the file; the browser's parts can be used inside the tests.
+ */
+export function browserForFile(): Browser {
+  let opened: Browser | undefined;
+  const current = (): Browser => {
+    if (!opened) throw new Error('The browser opens before the first test; use it inside a test.');
+    return opened;
+  };
+  beforeAll(async () => {
+    opened = await openBrowser(inject('resultsDir'));
+  });
+  afterAll(async () => {
+    await opened?.close();
+  });
+  return {
+    get context() {
+      return current().context;
+    },
+    get page() {
+      return current().page;
+    },
+    get consoleErrors() {
+      return current().consoleErrors;
+    },
+    shot: (name) => current().shot(name),
+    consumeExpectedResponseError: (status, pathPart) => current().consumeExpectedResponseError(status, pathPart),
+    close: () => current().close(),
+  };
+}
+
+/** Fills in the sign-in form on the page shown and submits it. */
+export async function submitSignIn(page: Page, email: string, password = demoPassword): Promise<void> {
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in', exact: true }).click();
+}
+
+export async function signIn(page: Page, baseUrl: string, email: string, password = demoPassword): Promise<void> {
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByRole('heading', { name: 'Sign in', exact: true }).waitFor();
+  await submitSignIn(page, email, password);
   await page.getByRole('heading', { level: 1, name: 'Projects' }).waitFor();
 }
 

@@ -3,21 +3,11 @@
  * and signs out; the demo fabricator signs in and is offered no way to create a project. The demo accounts and
  * password are the invented demo organisation's (seeded outside production).
  */
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { openBrowser, signIn, signOut, type Browser } from './browser';
+import { describe, expect, inject, it } from 'vitest';
+import { browserForFile, signIn, signOut, submitSignIn } from './browser';
 
 const baseUrl = inject('baseUrl');
-const resultsDir = inject('resultsDir');
-
-let browser: Browser;
-
-beforeAll(async () => {
-  browser = await openBrowser(resultsDir);
-});
-
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = browserForFile();
 
 describe('foundation in the browser', () => {
   const projectName = `Millrace footbridge ${Date.now().toString(36)}`;
@@ -34,9 +24,7 @@ describe('foundation in the browser', () => {
 
   it('refuses a wrong password with a message and stays on the sign-in page', async () => {
     const { page } = browser;
-    await page.getByLabel('E-mail').fill('engineer@demo.stillspan.test');
-    await page.getByLabel('Password').fill('not-the-password');
-    await page.getByRole('button', { name: 'Sign in', exact: true }).click();
+    await submitSignIn(page, 'engineer@demo.stillspan.test', 'not-the-password');
     await page.getByRole('alert').filter({ hasText: 'do not match an account' }).waitFor();
     expect(new URL(page.url()).pathname).toBe('/sign-in');
   });

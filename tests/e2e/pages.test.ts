@@ -3,21 +3,11 @@
  * the 404 page, a project that does not exist, the narrow-screen layout, and a session that ends while a page is
  * open. The demo accounts are the invented demo organisation's.
  */
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { openBrowser, signIn, signOut, type Browser } from './browser';
+import { describe, expect, inject, it } from 'vitest';
+import { browserForFile, signIn, signOut, submitSignIn } from './browser';
 
 const baseUrl = inject('baseUrl');
-const resultsDir = inject('resultsDir');
-
-let browser: Browser;
-
-beforeAll(async () => {
-  browser = await openBrowser(resultsDir);
-});
-
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = browserForFile();
 
 describe('pages around the main job', () => {
   it('carries the engineering caution in the footer and on the About page', async () => {
@@ -95,9 +85,7 @@ describe('pages around the main job', () => {
     browser.consumeExpectedResponseError(401, '/api/projects');
     expect(new URL(page.url()).searchParams.get('next')).toBe('/projects');
 
-    await page.getByLabel('E-mail').fill('engineer@demo.stillspan.test');
-    await page.getByLabel('Password').fill('stillspan-demo');
-    await page.getByRole('button', { name: 'Sign in', exact: true }).click();
+    await submitSignIn(page, 'engineer@demo.stillspan.test');
     await page.getByRole('heading', { level: 1, name: 'Projects' }).waitFor();
     expect(new URL(page.url()).pathname).toBe('/projects');
   });

@@ -4,24 +4,29 @@
  * the invited person follows the link caught by the development mailbox, sets a password and lands in the
  * organisation with the role given. Names and addresses are invented.
  */
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { describe, expect, inject, it } from 'vitest';
 import { projectSchema } from '../../shared/contracts';
-import { openBrowser, signIn, signOut, type Browser } from './browser';
+import type { Page } from 'playwright-core';
+import { browserForFile, signIn, signOut } from './browser';
 
 const baseUrl = inject('baseUrl');
-const resultsDir = inject('resultsDir');
 const stamp = Date.now().toString(36);
 const inviteeEmail = `hana.liddell.${stamp}@invented.example`;
 
-let browser: Browser;
+const browser = browserForFile();
 
-beforeAll(async () => {
-  browser = await openBrowser(resultsDir);
-});
-
-afterAll(async () => {
-  await browser?.close();
-});
+/** From the projects list: opens the project's members and adds the demo viewer Ruth Okonjo from the organisation. */
+async function addDemoViewerToProject(page: Page, projectName: string): Promise<void> {
+  await page.getByRole('list', { name: 'Projects' }).getByRole('link', { name: projectName }).click();
+  await page.getByRole('heading', { level: 1, name: projectName }).waitFor();
+  await page.getByRole('navigation', { name: 'Project sections' }).getByRole('link', { name: 'Members' }).click();
+  const table = page.getByRole('table', { name: 'Project members' });
+  await table.getByRole('cell', { name: 'Tomas Rennick', exact: true }).waitFor();
+  await expect(table.getByRole('cell', { name: 'Ruth Okonjo', exact: true }).count()).resolves.toBe(0);
+  await page.getByLabel('Person').selectOption({ label: 'Ruth Okonjo — Viewer (viewer@demo.stillspan.test)' });
+  await page.getByRole('button', { name: 'Add to project' }).click();
+  await table.getByRole('cell', { name: 'Ruth Okonjo', exact: true }).waitFor();
+}
 
 describe('organisation and project team in the browser', () => {
   it('lets the administrator invite a person and change a role on the members page', async () => {
@@ -54,15 +59,7 @@ describe('organisation and project team in the browser', () => {
   it('lets the administrator add an organisation member to a project', async () => {
     const { page } = browser;
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Projects' }).click();
-    await page.getByRole('list', { name: 'Projects' }).getByRole('link', { name: 'Wrenmoor Mill footbridge' }).click();
-    await page.getByRole('heading', { level: 1, name: 'Wrenmoor Mill footbridge' }).waitFor();
-    await page.getByRole('navigation', { name: 'Project sections' }).getByRole('link', { name: 'Members' }).click();
-
-    const table = page.getByRole('table', { name: 'Project members' });
-    await table.getByRole('cell', { name: 'Tomas Rennick', exact: true }).waitFor();
-    await page.getByLabel('Person').selectOption({ label: 'Ruth Okonjo — Viewer (viewer@demo.stillspan.test)' });
-    await page.getByRole('button', { name: 'Add to project' }).click();
-    await table.getByRole('cell', { name: 'Ruth Okonjo', exact: true }).waitFor();
+    await addDemoViewerToProject(page, 'Wrenmoor Mill footbridge');
     await browser.shot('team-02-project-members-admin');
 
     // A section still to come says so and shows nothing made up.
@@ -135,14 +132,7 @@ describe('organisation and project team in the browser', () => {
     const { page } = browser;
     await signOut(page);
     await signIn(page, baseUrl, 'engineer@demo.stillspan.test');
-    await page.getByRole('list', { name: 'Projects' }).getByRole('link', { name: 'Caskett Yard offices, level 3 floor' }).click();
-    await page.getByRole('heading', { level: 1, name: 'Caskett Yard offices, level 3 floor' }).waitFor();
-    await page.getByRole('navigation', { name: 'Project sections' }).getByRole('link', { name: 'Members' }).click();
-    const table = page.getByRole('table', { name: 'Project members' });
-    await table.getByRole('cell', { name: 'Tomas Rennick', exact: true }).waitFor();
-    await page.getByLabel('Person').selectOption({ label: 'Ruth Okonjo — Viewer (viewer@demo.stillspan.test)' });
-    await page.getByRole('button', { name: 'Add to project' }).click();
-    await table.getByRole('cell', { name: 'Ruth Okonjo', exact: true }).waitFor();
+    await addDemoViewerToProject(page, 'Caskett Yard offices, level 3 floor');
     await browser.shot('team-07-project-members-engineer');
     await signOut(page);
   });
