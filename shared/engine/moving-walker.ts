@@ -72,32 +72,32 @@ export function simulateMovingWalker(structure: StructureMode, tmds: readonly Tm
   const gait = input.gait ?? 'walking';
   const model = findGaitLoadModel(gait, 'vertical');
   if (!model) throw new LoadCaseError('loadCase.gait', `no vertical load model for ${gait}`);
-  const fp = input.pacingFrequencyHz ?? resonantPacingFrequencyHz(gait, structure.frequencyHz);
-  const v = input.walkingSpeedMPerS ?? strideLengthM[gait] * fp;
-  const weight = input.bodyWeightN ?? bachmannAmmannBodyWeightN;
-  const L = input.spanM;
-  const crossing = L / v;
-  const trailing = input.trailingTimeS ?? 0;
+  const pacingFrequencyHz = input.pacingFrequencyHz ?? resonantPacingFrequencyHz(gait, structure.frequencyHz);
+  const speedMPerS = input.walkingSpeedMPerS ?? strideLengthM[gait] * pacingFrequencyHz;
+  const bodyWeightN = input.bodyWeightN ?? bachmannAmmannBodyWeightN;
+  const spanM = input.spanM;
+  const crossingTimeS = spanM / speedMPerS;
+  const trailingTimeS = input.trailingTimeS ?? 0;
   const system = createModeTmdSystem(structure, tmds);
-  const fMax = Math.max(...system.coupledFrequenciesHz, ...model.harmonics.map((h) => h.frequencyMultiple * fp));
-  const dt = input.timeStepS ?? 1 / (40 * fMax);
-  const stepCount = Math.ceil((crossing + trailing) / dt);
+  const highestFrequencyHz = Math.max(...system.coupledFrequenciesHz, ...model.harmonics.map((h) => h.frequencyMultiple * pacingFrequencyHz));
+  const timeStepS = input.timeStepS ?? 1 / (40 * highestFrequencyHz);
+  const stepCount = Math.ceil((crossingTimeS + trailingTimeS) / timeStepS);
   if (stepCount > maxSteps) {
     throw new LoadCaseError('loadCase.spanM', `the crossing needs ${stepCount} time steps, more than ${maxSteps}: shorten the span or lengthen timeStepS`);
   }
   const harmonics = model.harmonics;
-  const omegaP = 2 * Math.PI * fp;
+  const pacingRadPerS = 2 * Math.PI * pacingFrequencyHz;
   const matrices = buildModeTmdMatrices(structure, tmds);
   const history = integrateNewmark({
     ...matrices,
-    timeStepS: dt,
+    timeStepS,
     stepCount,
     force: (t, out) => {
       out.fill(0);
-      if (t > crossing) return;
+      if (t > crossingTimeS) return;
       let f = 0;
-      for (let h = 0; h < harmonics.length; h++) f += harmonics[h].dynamicLoadFactor * Math.sin(harmonics[h].frequencyMultiple * omegaP * t);
-      out[0] = weight * f * Math.sin((Math.PI * v * t) / L);
+      for (let h = 0; h < harmonics.length; h++) f += harmonics[h].dynamicLoadFactor * Math.sin(harmonics[h].frequencyMultiple * pacingRadPerS * t);
+      out[0] = bodyWeightN * f * Math.sin((Math.PI * speedMPerS * t) / spanM);
     },
   });
   const n = matrices.dofCount;
@@ -105,7 +105,7 @@ export function simulateMovingWalker(structure: StructureMode, tmds: readonly Tm
   const times: number[] = new Array(count);
   const acc: number[] = new Array(count);
   const rms: number[] = new Array(count);
-  const window = Math.max(1, Math.round(1 / dt));
+  const windowSteps = Math.max(1, Math.round(1 / timeStepS));
   let sum = 0;
   let peak = 0;
   let maxRms = 0;
@@ -114,60 +114,60 @@ export function simulateMovingWalker(structure: StructureMode, tmds: readonly Tm
     times[i] = history.timesS[i];
     acc[i] = a;
     sum += a * a;
-    if (i >= window) {
-      const old = acc[i - window];
+    if (i >= windowSteps) {
+      const old = acc[i - windowSteps];
       sum -= old * old;
     }
-    const r = Math.sqrt(Math.max(sum, 0) / window);
+    const r = Math.sqrt(Math.max(sum, 0) / windowSteps);
     rms[i] = r;
     if (Math.abs(a) > peak) peak = Math.abs(a);
     if (r > maxRms) maxRms = r;
   }
-  const maxStroke = tmds.map(() => 0);
+  const maxStrokeM = tmds.map(() => 0);
   for (let i = 0; i < count; i++) {
     const xs = history.displacementM[i * n];
     for (let j = 0; j < tmds.length; j++) {
       const d = Math.abs(history.displacementM[i * n + j + 1] - xs);
-      if (d > maxStroke[j]) maxStroke[j] = d;
+      if (d > maxStrokeM[j]) maxStrokeM[j] = d;
     }
   }
   const point = createModeTmdPoint(system);
-  let steady: number | null = 0;
-  let governingForce = 0;
-  let governingFrequency = fp;
+  let steadyMPerS2: number | null = 0;
+  let governingForceN = 0;
+  let governingFrequencyHz = pacingFrequencyHz;
   for (const h of harmonics) {
-    const f = h.frequencyMultiple * fp;
-    const force = h.dynamicLoadFactor * weight;
+    const f = h.frequencyMultiple * pacingFrequencyHz;
+    const force = h.dynamicLoadFactor * bodyWeightN;
     if (unboundedResonanceHz(system, [{ loHz: f, hiHz: f, forceN: () => force, label: 'harmonic' }])) {
       // Undamped and in resonance: the steady state grows without limit (the crossing itself stays finite).
-      steady = null;
-      governingForce = force;
-      governingFrequency = f;
+      steadyMPerS2 = null;
+      governingForceN = force;
+      governingFrequencyHz = f;
       break;
     }
     const a = evaluateModeTmdSystem(system, f, point).structureAccelerationMPerS2PerN * force;
-    if (a > steady) {
-      steady = a;
-      governingForce = h.dynamicLoadFactor * weight;
-      governingFrequency = f;
+    if (a > steadyMPerS2) {
+      steadyMPerS2 = a;
+      governingForceN = h.dynamicLoadFactor * bodyWeightN;
+      governingFrequencyHz = f;
     }
   }
   const multiples = harmonics.map((h) => h.frequencyMultiple);
   const modelRange: [number, number] = [Math.min(...multiples) * model.pacingRangeHz[0], Math.max(...multiples) * model.pacingRangeHz[1]];
   return {
-    timeStepS: dt,
+    timeStepS,
     timesS: times,
     structureAccelerationMPerS2: acc,
     runningRms1sMPerS2: rms,
     peakAccelerationMPerS2: peak,
     maxRunningRms1sMPerS2: maxRms,
-    maxTmdStrokeM: maxStroke,
-    steadyStatePeakAccelerationMPerS2: steady,
-    governingHarmonicForceN: governingForce,
-    governingHarmonicFrequencyHz: governingFrequency,
+    maxTmdStrokeM: maxStrokeM,
+    steadyStatePeakAccelerationMPerS2: steadyMPerS2,
+    governingHarmonicForceN: governingForceN,
+    governingHarmonicFrequencyHz: governingFrequencyHz,
     modelRangeHz: modelRange,
-    pacingFrequencyHz: fp,
-    walkingSpeedMPerS: v,
-    crossingTimeS: crossing,
+    pacingFrequencyHz,
+    walkingSpeedMPerS: speedMPerS,
+    crossingTimeS,
   };
 }

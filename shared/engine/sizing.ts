@@ -94,6 +94,7 @@ export function worstPeakOverStructureFrequencies(
 interface Trial {
   mu: number;
   tmd: { massKg: number; frequencyHz: number; dampingRatio: number };
+  /** Worst peak acceleration over the structure-frequency band, m/s². */
   value: number;
   structureFrequencyHz: number;
 }
@@ -101,6 +102,7 @@ interface Trial {
 /** Closed-form tunings that stand in for the numerical ones while the answer is being located. */
 const proxyMethods: Partial<Record<TuningMethod, TuningMethod>> = { hinf: 'ioi-ikeda', h2: 'warburton-random' };
 
+/** Bracket width at which the search stops, in ln μ (0.2 % in μ). */
 const bracketTolerance = Math.log(1.002);
 
 /**
@@ -186,31 +188,31 @@ function refineNear(
 
 export function sizeDamper(input: SizeInput): SizeResult {
   const { structure, method, loadCase } = input;
-  const limit = input.peakAccelerationLimitMPerS2;
-  const r = input.structureFrequencyToleranceRatio ?? 0;
+  const limitMPerS2 = input.peakAccelerationLimitMPerS2;
+  const toleranceRatio = input.structureFrequencyToleranceRatio ?? 0;
   const maxMassRatio = input.maxMassRatio ?? 0.25;
   const minMassRatio = 1e-4;
-  if (!(limit > 0)) throw new LoadCaseError('peakAccelerationLimitMPerS2', 'peakAccelerationLimitMPerS2 must be greater than 0');
-  if (!(r >= 0 && r < 1)) throw new LoadCaseError('structureFrequencyToleranceRatio', 'structureFrequencyToleranceRatio must be in [0, 1)');
+  if (!(limitMPerS2 > 0)) throw new LoadCaseError('peakAccelerationLimitMPerS2', 'peakAccelerationLimitMPerS2 must be greater than 0');
+  if (!(toleranceRatio >= 0 && toleranceRatio < 1)) throw new LoadCaseError('structureFrequencyToleranceRatio', 'structureFrequencyToleranceRatio must be in [0, 1)');
   const envelope = buildLoadEnvelope(structure, loadCase);
-  const f0 = structure.frequencyHz;
-  const range: [number, number] = [f0 * (1 - r), f0 * (1 + r)];
-  const M = structure.modalMassKg;
+  const nominalFrequencyHz = structure.frequencyHz;
+  const rangeHz: [number, number] = [nominalFrequencyHz * (1 - toleranceRatio), nominalFrequencyHz * (1 + toleranceRatio)];
+  const modalMassKg = structure.modalMassKg;
   const zs = structure.dampingRatio;
   const warnings: DesignWarning[] = [];
-  warnings.push(...frequencyRangeWarnings(f0, envelope));
-  if (r > 0 && (range[0] < envelope.structureFrequencyRangeHz[0] || range[1] > envelope.structureFrequencyRangeHz[1])) {
+  warnings.push(...frequencyRangeWarnings(nominalFrequencyHz, envelope));
+  if (toleranceRatio > 0 && (rangeHz[0] < envelope.structureFrequencyRangeHz[0] || rangeHz[1] > envelope.structureFrequencyRangeHz[1])) {
     warnings.push({
       code: 'tolerance-outside-load-model',
-      message: `part of the structure-frequency band ${range[0].toPrecision(4)}–${range[1].toPrecision(4)} Hz lies outside the ${envelope.kind} load model's ${envelope.structureFrequencyRangeHz[0]}–${envelope.structureFrequencyRangeHz[1]} Hz`,
+      message: `part of the structure-frequency band ${rangeHz[0].toPrecision(4)}–${rangeHz[1].toPrecision(4)} Hz lies outside the ${envelope.kind} load model's ${envelope.structureFrequencyRangeHz[0]}–${envelope.structureFrequencyRangeHz[1]} Hz`,
     });
   }
   let evaluations = 0;
   // ζ = 0: the bare mode is unbounded wherever a structure frequency of the band meets a loaded frequency.
-  const bareUnboundedHz = zs === 0 ? unboundedBareFrequencyHz(envelope.bands, [f0, f0]) ?? unboundedBareFrequencyHz(envelope.bands, range) : null;
+  const bareUnboundedHz = zs === 0 ? unboundedBareFrequencyHz(envelope.bands, [nominalFrequencyHz, nominalFrequencyHz]) ?? unboundedBareFrequencyHz(envelope.bands, rangeHz) : null;
   const bare =
     bareUnboundedHz === null
-      ? worstPeakOverStructureFrequencies(structure, [], envelope.bands, range)
+      ? worstPeakOverStructureFrequencies(structure, [], envelope.bands, rangeHz)
       : { value: Infinity, structureFrequencyHz: bareUnboundedHz };
   if (bareUnboundedHz !== null) warnings.push(bareUnboundedWarning(bareUnboundedHz));
   const worstWith = (tuning: TuningMethod) => (mu: number): Trial => {
@@ -222,17 +224,17 @@ export function sizeDamper(input: SizeInput): SizeResult {
         `${tuning} gives the damper a damping ratio of 0 at a mass ratio of ${mu.toPrecision(3)} and the structure has none: the steady-state response of the undamped system is unbounded at its resonances`,
       );
     }
-    const tmd = { massKg: mu * M, frequencyHz: ratios.frequencyRatio * f0, dampingRatio: ratios.tmdDampingRatio };
-    return { mu, tmd, ...worstPeakOverStructureFrequencies(structure, [tmd], envelope.bands, range) };
+    const tmd = { massKg: mu * modalMassKg, frequencyHz: ratios.frequencyRatio * nominalFrequencyHz, dampingRatio: ratios.tmdDampingRatio };
+    return { mu, tmd, ...worstPeakOverStructureFrequencies(structure, [tmd], envelope.bands, rangeHz) };
   };
   const base = {
-    structureFrequencyRangeHz: range,
-    peakAccelerationLimitMPerS2: limit,
+    structureFrequencyRangeHz: rangeHz,
+    peakAccelerationLimitMPerS2: limitMPerS2,
     method,
     bareStructureWorstPeakAccelerationMPerS2: Number.isFinite(bare.value) ? bare.value : null,
     caution: designCaution,
   };
-  if (bare.value <= limit) {
+  if (bare.value <= limitMPerS2) {
     warnings.push({ code: 'no-damper-needed', message: 'the bare structure already meets the limit over the whole structure-frequency band' });
     return {
       ...base, massRatio: 0, tmd: null, worstPeakAccelerationMPerS2: bare.value, worstAtStructureFrequencyHz: bare.structureFrequencyHz,
@@ -241,10 +243,10 @@ export function sizeDamper(input: SizeInput): SizeResult {
   }
   const worstFor = worstWith(method);
   const top = worstFor(maxMassRatio);
-  if (top.value > limit) {
+  if (top.value > limitMPerS2) {
     throw new LoadCaseError(
       'peakAccelerationLimitMPerS2',
-      `no damper up to a mass ratio of ${(100 * maxMassRatio).toFixed(1)} % keeps the worst peak (${top.value.toPrecision(4)} m/s² at that mass ratio) within ${limit} m/s²`,
+      `no damper up to a mass ratio of ${(100 * maxMassRatio).toFixed(1)} % keeps the worst peak (${top.value.toPrecision(4)} m/s² at that mass ratio) within ${limitMPerS2} m/s²`,
     );
   }
   let found: Trial;
@@ -254,18 +256,16 @@ export function sizeDamper(input: SizeInput): SizeResult {
     // close relative, then bracket and polish with the method itself.
     const worstProxy = worstWith(proxy);
     const proxyTop = worstProxy(maxMassRatio);
-    const guess = proxyTop.value > limit ? top : findMassRatio(worstProxy, limit, minMassRatio, proxyTop);
-    found = refineNear(worstFor, limit, guess.mu, minMassRatio, maxMassRatio, top);
+    const guess = proxyTop.value > limitMPerS2 ? top : findMassRatio(worstProxy, limitMPerS2, minMassRatio, proxyTop);
+    found = refineNear(worstFor, limitMPerS2, guess.mu, minMassRatio, maxMassRatio, top);
   } else {
-    found = findMassRatio(worstFor, limit, minMassRatio, top);
+    found = findMassRatio(worstFor, limitMPerS2, minMassRatio, top);
   }
-  const hiMu = found.mu;
-  const hiResult = found;
-  warnings.push(...massRatioWarnings(hiMu));
+  warnings.push(...massRatioWarnings(found.mu));
   // Stroke of the chosen damper: its worst over the load band and the structure-frequency band.
-  const tmd = hiResult.tmd;
-  const stroke = worstPeakOverStructureFrequencies(structure, [tmd], envelope.bands, range, 'tmdStroke').value;
-  const hardware = buildHardwareEntry(tmd, stroke, input.hardware);
+  const tmd = found.tmd;
+  const strokeM = worstPeakOverStructureFrequencies(structure, [tmd], envelope.bands, rangeHz, 'tmdStroke').value;
+  const hardware = buildHardwareEntry(tmd, strokeM, input.hardware);
   if (hardware.strokeWithinLimit === false) {
     warnings.push({
       code: 'stroke-beyond-travel',
@@ -273,13 +273,13 @@ export function sizeDamper(input: SizeInput): SizeResult {
     });
   }
   return {
-    tmdStrokeM: stroke,
+    tmdStrokeM: strokeM,
     hardware,
     ...base,
-    massRatio: hiMu,
-    tmd: hiResult.tmd,
-    worstPeakAccelerationMPerS2: hiResult.value,
-    worstAtStructureFrequencyHz: hiResult.structureFrequencyHz,
+    massRatio: found.mu,
+    tmd: found.tmd,
+    worstPeakAccelerationMPerS2: found.value,
+    worstAtStructureFrequencyHz: found.structureFrequencyHz,
     evaluations,
     warnings,
   };
