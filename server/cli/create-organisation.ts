@@ -11,7 +11,7 @@ import { z } from 'zod';
 import { startProjectCluster, type RunningCluster } from '../db/cluster';
 import { databaseUrlGiven, EnvError, getEnv } from '../env';
 import { HttpError } from '../lib/http-error';
-import { createOrganisationWithAdmin } from '../modules/members/members.service';
+import { createOrganisationWithAdmin, invitationLifetimeMs } from '../modules/members/members.service';
 import { closeContext, createContext } from '../server';
 import { toApiIssues } from '../../shared/contracts/errors';
 
@@ -52,7 +52,7 @@ async function main(): Promise<number> {
     process.stdout.write(
       result.mailError
         ? `The invitation mail could not be sent (${result.mailError}); hand this link to ${args.data['admin-email']}:\n`
-        : `Invitation mailed to ${args.data['admin-email']}; the link, valid for 7 days:\n`,
+        : `Invitation mailed to ${args.data['admin-email']}; the link, valid for ${invitationLifetimeMs / 86_400_000} days:\n`,
     );
     process.stdout.write(`  ${result.link}\n`);
     return 0;

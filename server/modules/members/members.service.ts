@@ -27,6 +27,10 @@ export function hashInvitationToken(token: string): string {
   return createHash('sha256').update(token).digest('hex');
 }
 
+const invitationNotFound = () => notFound('The invitation', 'invitation_not_found');
+const invitationUsed = () => new HttpError(410, 'invitation_used', 'This invitation has already been used: sign in instead');
+const invitationExpired = () => new HttpError(410, 'invitation_expired', 'This invitation has expired: ask your admin for a new one');
+
 function toMember(row: repository.MemberRow): Member {
   return { userId: row.userId, email: row.email, name: row.name ?? row.email, role: row.role, joinedAt: row.joinedAt.toISOString() };
 }
@@ -83,7 +87,7 @@ export async function removeMember(db: Database, user: CurrentUser, userId: stri
 
 export async function withdrawInvitation(db: Database, user: CurrentUser, id: string): Promise<void> {
   const outcome = await repository.withdrawInvitation(db, user.organisationId, id);
-  if (outcome === 'not_found') throw notFound('The invitation', 'invitation_not_found');
+  if (outcome === 'not_found') throw invitationNotFound();
   if (outcome === 'used') throw new HttpError(409, 'invitation_used', 'This invitation has been accepted already; remove the member instead');
 }
 
@@ -165,9 +169,9 @@ export async function createOrganisationWithAdmin(
 
 async function openInvitation(db: Database, token: string) {
   const row = await repository.findInvitationByTokenHash(db, hashInvitationToken(token));
-  if (!row) throw notFound('The invitation', 'invitation_not_found');
-  if (row.acceptedAt) throw new HttpError(410, 'invitation_used', 'This invitation has already been used: sign in instead');
-  if (row.expiresAt.getTime() <= Date.now()) throw new HttpError(410, 'invitation_expired', 'This invitation has expired: ask your admin for a new one');
+  if (!row) throw invitationNotFound();
+  if (row.acceptedAt) throw invitationUsed();
+  if (row.expiresAt.getTime() <= Date.now()) throw invitationExpired();
   return row;
 }
 
@@ -176,6 +180,10 @@ export async function previewInvitation(db: Database, token: string): Promise<In
   return { email: row.email, role: row.role, organisationName: row.organisationName };
 }
 
+/**
+ * Checks the link before the password is hashed (a dead link costs no bcrypt round), then accepts it in one
+ * transaction that checks again under a row lock, since another acceptance may come in between.
+ */
 export async function acceptInvitation(db: Database, token: string, input: AcceptInvitationInput): Promise<AcceptedInvitation> {
   await openInvitation(db, token);
   const result = await repository.acceptInvitation(db, hashInvitationToken(token), { name: input.name, passwordHash: await hashPassword(input.password) });
@@ -183,11 +191,11 @@ export async function acceptInvitation(db: Database, token: string, input: Accep
     case 'accepted':
       return { userId: result.userId, email: result.email, role: result.role, organisationName: result.organisationName };
     case 'not_found':
-      throw notFound('The invitation', 'invitation_not_found');
+      throw invitationNotFound();
     case 'used':
-      throw new HttpError(410, 'invitation_used', 'This invitation has already been used: sign in instead');
+      throw invitationUsed();
     case 'expired':
-      throw new HttpError(410, 'invitation_expired', 'This invitation has expired: ask your admin for a new one');
+      throw invitationExpired();
     case 'email_taken':
       throw new HttpError(409, 'already_registered', 'This e-mail address already has an account: sign in instead');
   }

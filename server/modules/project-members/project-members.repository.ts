@@ -35,12 +35,3 @@ export async function removeProjectMember(db: Database, projectId: string, userI
     .returning({ userId: projectMembers.userId });
   return rows.length > 0;
 }
-
-export async function isOrganisationMember(db: Database, organisationId: string, userId: string): Promise<boolean> {
-  const [row] = await db
-    .select({ userId: memberships.userId })
-    .from(memberships)
-    .where(and(eq(memberships.organisationId, organisationId), eq(memberships.userId, userId)))
-    .limit(1);
-  return row !== undefined;
-}

@@ -2,15 +2,12 @@ import type { Database } from '../../db/client';
 import { invalidField, notFound } from '../../lib/http-error';
 import type { CurrentUser } from '../../middleware/auth';
 import type { ProjectMember } from '../../../shared/contracts/members';
-import { findProject } from '../projects/projects.repository';
+import { findMember } from '../members/members.repository';
+import { requireProject } from '../projects/projects.service';
 import * as repository from './project-members.repository';
 
 function toProjectMember(row: repository.ProjectMemberRow): ProjectMember {
   return { userId: row.userId, email: row.email, name: row.name ?? row.email, role: row.role, addedAt: row.addedAt.toISOString() };
-}
-
-async function requireProject(db: Database, user: CurrentUser, projectId: string): Promise<void> {
-  if (!(await findProject(db, user.organisationId, projectId))) throw notFound('The project', 'project_not_found');
 }
 
 export async function listProjectMembers(db: Database, user: CurrentUser, projectId: string): Promise<ProjectMember[]> {
@@ -26,7 +23,7 @@ export async function addProjectMember(
   userId: string,
 ): Promise<{ member: ProjectMember; created: boolean }> {
   await requireProject(db, user, projectId);
-  if (!(await repository.isOrganisationMember(db, user.organisationId, userId))) {
+  if (!(await findMember(db, user.organisationId, userId))) {
     throw invalidField('userId', 'is not a member of your organisation');
   }
   const created = await repository.addProjectMember(db, projectId, userId);

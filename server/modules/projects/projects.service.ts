@@ -18,15 +18,24 @@ export function toProject(row: repository.ProjectRow): Project {
   };
 }
 
+const projectNotFound = () => notFound('The project', 'project_not_found');
+
+/**
+ * The project's row if it belongs to the user's organisation; another organisation's project is reported as absent
+ * (404 project_not_found), the same as one that does not exist.
+ */
+export async function requireProject(db: Database, user: CurrentUser, id: string): Promise<repository.ProjectRow> {
+  const row = await repository.findProject(db, user.organisationId, id);
+  if (!row) throw projectNotFound();
+  return row;
+}
+
 export async function listProjects(db: Database, user: CurrentUser): Promise<Project[]> {
   return (await repository.listProjects(db, user.organisationId)).map(toProject);
 }
 
-/** The project if it belongs to the user's organisation; another organisation's project is reported as absent. */
 export async function getProject(db: Database, user: CurrentUser, id: string): Promise<Project> {
-  const row = await repository.findProject(db, user.organisationId, id);
-  if (!row) throw notFound('The project', 'project_not_found');
-  return toProject(row);
+  return toProject(await requireProject(db, user, id));
 }
 
 export async function createProject(db: Database, user: CurrentUser, input: CreateProjectInput): Promise<Project> {
@@ -55,8 +64,7 @@ export async function updateProject(db: Database, user: CurrentUser, id: string,
   }
   const row = await repository.updateProjectAtVersion(db, user.organisationId, id, version, changes);
   if (row) return toProject(row);
-  const current = await repository.findProject(db, user.organisationId, id);
-  if (!current) throw notFound('The project', 'project_not_found');
+  const current = await requireProject(db, user, id);
   throw new HttpError(
     409,
     'version_conflict',
@@ -67,5 +75,5 @@ export async function updateProject(db: Database, user: CurrentUser, id: string,
 
 export async function deleteProject(db: Database, user: CurrentUser, id: string): Promise<void> {
   const deleted = await repository.deleteProject(db, user.organisationId, id);
-  if (!deleted) throw notFound('The project', 'project_not_found');
+  if (!deleted) throw projectNotFound();
 }
