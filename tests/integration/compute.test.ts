@@ -35,6 +35,7 @@ describe('POST /api/compute/:command', () => {
   it('invalid JSON is 400', async () => {
     const response = await viewer.post('/api/compute/no-such-command').set('Content-Type', 'application/json').send('{');
     expect(response.status).toBe(400);
+    expect(response.body.error.code).toBe('invalid_json');
   });
 
   const names = Object.keys(computeCommands);

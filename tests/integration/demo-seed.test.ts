@@ -13,18 +13,19 @@ import { closeContext, createContext } from '../../server/server';
 import { appConfigSchema } from '../../shared/contracts/app-config';
 import { projectListSchema } from '../../shared/contracts/projects';
 import { clusterUrl, ensureDatabase } from '../support/pg-cluster';
-import { signIn, testEnv } from '../support/test-app';
+import { dropDatabase, signIn, testEnv } from '../support/test-app';
 
 let ctx: AppContext;
+const name = `seed_${randomUUID().replace(/-/g, '')}`;
 
 beforeAll(async () => {
-  const name = `seed_${randomUUID().replace(/-/g, '')}`;
   await ensureDatabase(inject('pgPort'), name, inject('pgTemplate'));
   ctx = await createContext(testEnv(clusterUrl(inject('pgPort'), name)), { seed: false });
 });
 
 afterAll(async () => {
   if (ctx) await closeContext(ctx);
+  await dropDatabase(inject('pgPort'), name);
 });
 
 describe('demo seed', () => {

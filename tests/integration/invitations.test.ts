@@ -3,6 +3,7 @@
  * the token comes from the link in it → preview → accept with a password → sign in → the role is the one given.
  * Also who may see and change the organisation's people.
  */
+import { createHash } from 'node:crypto';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
@@ -45,6 +46,8 @@ describe('invitation flow', () => {
 
     const token = await tokenFromMail('new.fabricator@example.test');
     const [stored] = await t.ctx.db.select().from(invitations).where(eq(invitations.id, invitation.id));
+    // Only the SHA-256 of the token is stored (docs/decisions/0005), computed here with Node's own crypto.
+    expect(stored.tokenHash).toBe(createHash('sha256').update(token).digest('hex'));
     expect(stored.tokenHash).not.toContain(token);
 
     const preview = invitationPreviewSchema.parse((await request(t.app).get(`/api/invitations/${token}`).expect(200)).body);

@@ -40,7 +40,8 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-async function dropDatabase(port: number, name: string): Promise<void> {
+/** Drops a test file's database (after its pool is closed). */
+export async function dropDatabase(port: number, name: string): Promise<void> {
   const client = new pg.Client({ connectionString: clusterUrl(port, 'postgres') });
   await client.connect();
   try {
