@@ -28,6 +28,7 @@ describe('solveFreeVibration', () => {
   });
 
   it('matches the single-DOF closed form x = x0 cos ωt + v0/ω sin ωt', () => {
+    // Undamped free vibration of one mass on a spring (Clough & Penzien, Dynamics of Structures, chapter 2; from memory).
     const m = 1200;
     const k = 2.3e5;
     const omega = Math.sqrt(k / m);

@@ -26,6 +26,7 @@ describe('buildModeTmdMatrices', () => {
 
 describe('solveHarmonicResponse', () => {
   it('gives the static deflection at 0 Hz and refuses an undamped resonance', () => {
+    // X = F / k at ω = 0, unbounded at ω = √(k/m) without damping: single-DOF closed forms (common practice).
     const k = 5e5;
     const result = solveHarmonicResponse({ massKg: [[100]], dampingNsPerM: [[0]], stiffnessNPerM: [[k]], forceN: [250], frequenciesHz: [0] });
     expect(result.displacementReM[0]).toBeCloseTo(250 / k, 15);
@@ -37,6 +38,7 @@ describe('solveHarmonicResponse', () => {
   });
 
   it('lags the force by 90° at resonance (single-DOF closed form: X = F / (iωc))', () => {
+    // At ω = ω_n stiffness and inertia cancel and X = F / (iωc) (Clough & Penzien, Dynamics of Structures, chapter 3; from memory).
     const m = 100;
     const k = 4e5;
     const c = 2 * 0.02 * Math.sqrt(k * m);

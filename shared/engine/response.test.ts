@@ -12,6 +12,7 @@ describe('single structure mode (no damper)', () => {
   const stiffness = structure.modalMassKg * (2 * Math.PI * structure.frequencyHz) ** 2;
 
   it('has the resonant amplitude F/(2ζK) at ω = ω_n (single-DOF closed form)', () => {
+    // Closed form of the damped single-DOF receptance at ω = ω_n (Clough & Penzien, Dynamics of Structures, chapter 3; from memory).
     const point = evaluateModeTmdSystem(system, structure.frequencyHz, createModeTmdPoint(system));
     expect(point.structureDisplacementMPerN).toBeCloseTo(1 / (2 * structure.dampingRatio * stiffness), 15);
     expect(point.structureDisplacementMPerN * stiffness).toBeCloseTo(1 / (2 * structure.dampingRatio), 9);
@@ -45,6 +46,7 @@ describe('structure with dampers', () => {
     const system = createModeTmdSystem({ modalMassKg: 30000, frequencyHz: 1.9, dampingRatio: 0.01 }, [{ massKg: 600, frequencyHz: 1.84, dampingRatio: 0 }]);
     const point = evaluateModeTmdSystem(system, 1.84, createModeTmdPoint(system));
     expect(point.structureDisplacementMPerN).toBe(0);
+    expect(Array.from(evaluateStructureReceptance(system, 1.84, new Float64Array(2)))).toEqual([0, 0]);
     // The damper's spring then carries the whole force: stroke = F / k.
     expect(point.tmdStrokeMPerN[0]).toBeCloseTo(1 / (600 * (2 * Math.PI * 1.84) ** 2), 15);
     const near = evaluateModeTmdSystem(system, 1.84 * (1 + 1e-9), createModeTmdPoint(system));
@@ -99,7 +101,7 @@ describe('structure with dampers', () => {
       const xsRe = general.displacementReM[p * 4];
       const xsIm = general.displacementImM[p * 4];
       const xs = Math.hypot(xsRe, xsIm);
-      expect(point.structureDisplacementMPerN / xs - 1).toBeLessThan(1e-10);
+      expect(Math.abs(point.structureDisplacementMPerN / xs - 1)).toBeLessThan(1e-10);
       expect(point.structureAccelerationMPerS2PerN).toBeCloseTo((2 * Math.PI * f) ** 2 * point.structureDisplacementMPerN, 15);
       evaluateStructureReceptance(system, f, receptance);
       expect(Math.abs(receptance[0] - xsRe) / xs).toBeLessThan(1e-10);

@@ -4,6 +4,7 @@ import { createModeTmdPoint, createModeTmdSystem, evaluateModeTmdSystem } from '
 
 describe('closed-form tunings (formulas as published; see tests/reference for the published behaviour)', () => {
   it('Den Hartog: f = 1/(1+μ), ζ_a = √(3μ/(8(1+μ))), referred to the damper frequency', () => {
+    // Den Hartog, Mechanical Vibrations, 4th ed. 1956 (bibliographic details from memory).
     const { frequencyRatio, tmdDampingRatio } = tuneDenHartog(0.1);
     expect(frequencyRatio).toBeCloseTo(1 / 1.1, 15);
     expect(tmdDampingRatio).toBeCloseTo(Math.sqrt(0.3 / 8.8), 15);
@@ -12,6 +13,7 @@ describe('closed-form tunings (formulas as published; see tests/reference for th
   });
 
   it('Warburton white noise and Ioi–Ikeda (which reduces to Den Hartog at ζ_s = 0)', () => {
+    // Warburton, Earthquake Eng. Struct. Dyn. 10 (1982); Ioi & Ikeda, Bulletin of the JSME 21 (1978); details from memory.
     const w = tuneWarburtonRandom(0.04);
     expect(w.frequencyRatio).toBeCloseTo(Math.sqrt(1.02) / 1.04, 15);
     expect(w.tmdDampingRatio).toBeCloseTo(Math.sqrt((0.04 * 1.03) / (4 * 1.04 * 1.02)), 15);

@@ -2,7 +2,7 @@
  * Lumped-mass beams converging to the handbook frequency parameters λ of uniform Euler–Bernoulli beams,
  * ω = λ² √(EI / (m L⁴)): fixed–fixed λ₁ = 4.730, cantilever λ₁ = 1.875, simply supported λ₁ = π
  * (R. D. Blevins, Formulas for Natural Frequency and Mode Shape, Van Nostrand Reinhold 1979, table of
- * straight-beam frequencies; the values are also given in the product's engineering brief).
+ * straight-beam frequencies; from memory).
  * The n-DOF model: N equal beam elements (exact cubic stiffness), the beam's mass lumped at the nodes
  * (m L / N per interior node), rotations condensed out statically, then solveModes on the translational DOFs.
  */
