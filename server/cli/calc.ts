@@ -128,7 +128,7 @@ export function runCalc(args: readonly string[], io: CalcIo = defaultIo): number
       return fail(io, errorCodes.invalidRequest, `Invalid ${name} request: ${error.message}`, error.issues);
     }
     const reason = error instanceof Error ? error.message : String(error);
-    return fail(io, 'internal_error', `The ${name} command failed: ${reason}`, [], 1);
+    return fail(io, errorCodes.internalError, `The ${name} command failed: ${reason}`, [], 1);
   }
   io.stdout(`${JSON.stringify(answer)}\n`);
   return 0;

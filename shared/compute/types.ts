@@ -31,4 +31,5 @@ export const errorCodes = {
   invalidRequest: 'invalid_request',
   unknownCommand: 'unknown_command',
   unreadableInput: 'unreadable_input',
+  internalError: 'internal_error',
 } as const;
