@@ -10,6 +10,7 @@ import { formatRole } from '../../../lib/format';
 import { useAcceptInvitation } from '../api/invitations';
 
 const acceptFields = ['name', 'password'] as const;
+const passwordMinLength = acceptInvitationSchema.shape.password.minLength;
 
 interface AcceptInvitationFormProps {
   token: string;
@@ -55,7 +56,7 @@ export function AcceptInvitationForm({ token, invitation, onAccepted }: AcceptIn
         label="Password"
         type="password"
         autoComplete="new-password"
-        hint="Choose one of at least 10 characters; you sign in with it and this e-mail address."
+        hint={`Choose one of at least ${passwordMinLength} characters; you sign in with it and this e-mail address.`}
         error={errors.password?.message}
         {...register('password')}
       />

@@ -7,9 +7,10 @@ import {
 } from '../../../../shared/contracts';
 import { apiRequest } from '../../../lib/api-client';
 
+/** Keys form a tree: invalidating `all` refreshes both lists of the organisation. */
 export const memberKeys = {
-  organisation: ['organisation'] as const,
-  all: ['organisation', 'members'] as const,
+  all: ['organisation'] as const,
+  membersAndInvitations: ['organisation', 'members'] as const,
   people: ['organisation', 'people'] as const,
 };
 
@@ -24,7 +25,7 @@ export const organisationPeopleQueryOptions = () =>
 /** The organisation's people and its invitations (administrators only). */
 export const organisationMembersQueryOptions = () =>
   queryOptions({
-    queryKey: memberKeys.all,
+    queryKey: memberKeys.membersAndInvitations,
     queryFn: ({ signal }) => apiRequest('/api/organisation/members', { schema: memberListSchema, signal }),
   });
 
@@ -32,7 +33,7 @@ export function useInviteMember() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: CreateInvitationInput) => apiRequest('/api/organisation/members', { method: 'POST', body: input }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: memberKeys.organisation }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: memberKeys.all }),
   });
 }
 
@@ -45,7 +46,7 @@ export function useChangeMemberRole() {
     // change with it too.
     onSuccess: () =>
       Promise.all([
-        queryClient.invalidateQueries({ queryKey: memberKeys.organisation }),
+        queryClient.invalidateQueries({ queryKey: memberKeys.all }),
         queryClient.invalidateQueries({ queryKey: ['projects'] }),
       ]),
   });
