@@ -122,13 +122,31 @@ export function meanSquareAmplification(massRatio: number, frequencyRatio: numbe
   return p[0];
 }
 
+/** Iteration cap of one Brent minimisation in the tuning search (it converges in far fewer). */
+const MINIMISE_MAX_ITERATIONS = 200;
+
 /** Brent minimisation of a smooth or V-shaped unimodal function on [a, b]. */
 function minimise(fn: (x: number) => number, a: number, b: number, relativeTolerance: number): { x: number; value: number } {
   const x0 = a + GOLDEN_SECTION_FRACTION * (b - a);
   const f0 = fn(x0);
-  const result = brentMaximise((x) => -fn(x), a, b, x0, -f0, relativeTolerance, 0, 200);
+  const result = brentMaximise((x) => -fn(x), a, b, x0, -f0, relativeTolerance, 0, MINIMISE_MAX_ITERATIONS);
   return { x: result.x, value: -result.value };
 }
+
+/** Damper damping ratios searched: from the lower of this floor and FLOOR_FRACTION × the start's, to the ceiling. */
+const SEARCH_DAMPING_RATIO_FLOOR = 1e-4;
+const SEARCH_DAMPING_RATIO_FLOOR_FRACTION = 0.05;
+const SEARCH_DAMPING_RATIO_CEILING = 0.95;
+/** Relative tolerance of the inner search, on ln ζ_a. */
+const INNER_RELATIVE_TOLERANCE = 1e-8;
+/** The inner search first tries ζ_a within ×/÷ this factor of the last best one. */
+const INNER_BRACKET_FACTOR = 1.5;
+/** An inner answer this close (× the bracket's width) to an edge of the bracket that is not an edge of the full range
+ * is searched again on the full range. */
+const INNER_BRACKET_EDGE_FRACTION = 1e-3;
+/** Frequency ratios searched: [max(1e-3, LOW × f₀), HIGH × max(f₀, 1/(1+μ))], f₀ the closed-form start. */
+const SEARCH_FREQUENCY_RATIO_LOW_FACTOR = 0.3;
+const SEARCH_FREQUENCY_RATIO_HIGH_FACTOR = 1.3;
 
 /**
  * Two-level search: for each frequency ratio the best damping ratio (log scale), then the best frequency ratio.
@@ -136,29 +154,29 @@ function minimise(fn: (x: number) => number, a: number, b: number, relativeToler
  * where the optimum is extremely sharp).
  */
 function optimise(objective: (frequencyRatio: number, tmdDampingRatio: number) => number, massRatio: number, start: TuningRatios): TuningRatios {
-  const logZetaLo = Math.log(Math.min(1e-4, 0.05 * start.tmdDampingRatio));
-  const logZetaHi = Math.log(0.95);
-  const innerTolerance = 1e-8;
+  const logZetaLo = Math.log(Math.min(SEARCH_DAMPING_RATIO_FLOOR, SEARCH_DAMPING_RATIO_FLOOR_FRACTION * start.tmdDampingRatio));
+  const logZetaHi = Math.log(SEARCH_DAMPING_RATIO_CEILING);
+  const innerTolerance = INNER_RELATIVE_TOLERANCE;
   // The objective's sensitivity to the frequency ratio grows like 1/√μ: tighten the tolerance for small μ.
   const outerTolerance = Math.max(1e-13, Math.min(1e-9, 1e-7 * massRatio));
   let bestZeta = start.tmdDampingRatio;
   // The best damping ratio moves little between neighbouring frequency ratios: search a bracket of ×/÷ 1.5 around the
   // last one first, and the whole range only when the answer lands on that bracket's edge.
-  const halfWidth = Math.log(1.5);
+  const halfWidth = Math.log(INNER_BRACKET_FACTOR);
   const inner = (f: number) => {
     const centre = Math.log(bestZeta);
     const lo = Math.max(logZetaLo, centre - halfWidth);
     const hi = Math.min(logZetaHi, centre + halfWidth);
     let found = minimise((u) => objective(f, Math.exp(u)), lo, hi, innerTolerance);
-    const edge = 1e-3 * (hi - lo);
+    const edge = INNER_BRACKET_EDGE_FRACTION * (hi - lo);
     if ((found.x - lo < edge && lo > logZetaLo) || (hi - found.x < edge && hi < logZetaHi)) {
       found = minimise((u) => objective(f, Math.exp(u)), logZetaLo, logZetaHi, innerTolerance);
     }
     bestZeta = Math.exp(found.x);
     return found.value;
   };
-  const fLo = Math.max(1e-3, 0.3 * start.frequencyRatio);
-  const fHi = 1.3 * Math.max(start.frequencyRatio, 1 / (1 + massRatio));
+  const fLo = Math.max(1e-3, SEARCH_FREQUENCY_RATIO_LOW_FACTOR * start.frequencyRatio);
+  const fHi = SEARCH_FREQUENCY_RATIO_HIGH_FACTOR * Math.max(start.frequencyRatio, 1 / (1 + massRatio));
   const outer = minimise(inner, fLo, fHi, outerTolerance);
   const value = inner(outer.x);
   const found = { frequencyRatio: outer.x, tmdDampingRatio: bestZeta };
