@@ -121,3 +121,8 @@ export function getEnv(): Env {
 export function databaseUrlGiven(): boolean {
   return Boolean(process.env.DATABASE_URL);
 }
+
+/** True when APP_URL was given (else `npm run dev` points mailed links at the Vite dev server). */
+export function appUrlGiven(): boolean {
+  return Boolean(process.env.APP_URL);
+}

@@ -5,7 +5,7 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { join } from 'node:path';
 import { repoRoot, type RunningCluster } from '../db/cluster';
-import { EnvError, getEnv } from '../env';
+import { appUrlGiven, EnvError, getEnv } from '../env';
 import { startProjectDatabaseUnlessGiven, stopOnSignals } from './project-database';
 
 const viteUrl = 'http://localhost:5173';
@@ -49,7 +49,7 @@ async function main(): Promise<void> {
     PORT: String(env.port),
     DATABASE_URL: cluster?.url ?? env.databaseUrl,
     // Links in mails go to the Vite dev server, where the client is.
-    APP_URL: process.env.APP_URL || viteUrl,
+    APP_URL: appUrlGiven() ? env.appUrl : viteUrl,
   };
   run('API', [join(repoRoot, 'node_modules', 'tsx', 'dist', 'cli.mjs'), 'watch', '--clear-screen=false', 'server/index.ts'], childEnv);
   run('Vite', [join(repoRoot, 'node_modules', 'vite', 'bin', 'vite.js')], childEnv);
