@@ -51,6 +51,14 @@ describe('serving the client', () => {
     }
   });
 
+  it('API answers are never cached (one Cache-Control for all of /api), the client shell is revalidated', async () => {
+    const app = createApp(t.ctx, { clientDir });
+    for (const path of ['/api/health', '/api/config', '/api/dev/mail', '/api/nothing-here']) {
+      expect((await request(app).get(path)).headers['cache-control'], path).toBe('no-store');
+    }
+    expect((await request(app).get('/projects/123').expect(200)).headers['cache-control']).toBe('no-cache');
+  });
+
   it('unknown /api paths get a JSON 404, never the client', async () => {
     const app = createApp(t.ctx, { clientDir });
     const response = await request(app).get('/api/nothing-here').expect(404);

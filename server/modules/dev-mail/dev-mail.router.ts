@@ -10,7 +10,7 @@ export function devMailRouter(fakeSmtp: FakeSmtp): Router {
   const router = Router();
   router.get('/', (_req, res) => {
     const body: { mails: DevMail[] } = { mails: fakeSmtp.mails() };
-    res.set('Cache-Control', 'no-store').json(body);
+    res.json(body);
   });
   router.delete('/', (_req, res) => {
     fakeSmtp.clear();

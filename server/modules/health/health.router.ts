@@ -25,7 +25,7 @@ export function healthRouter(pool: pg.Pool): Router {
   router.get('/', async (_req, res) => {
     const up = await databaseReachable(pool);
     const body: Health = up ? { status: 'ok', database: 'ok' } : { status: 'degraded', database: 'down' };
-    res.status(up ? 200 : 503).set('Cache-Control', 'no-store').json(body);
+    res.status(up ? 200 : 503).json(body);
   });
   return router;
 }
