@@ -9,7 +9,7 @@ import { applyServerIssues } from '../../../lib/form-errors';
 import { formatRole } from '../../../lib/format';
 import { useAcceptInvitation } from '../api/invitations';
 
-const acceptFields = ['name', 'password'] as const;
+const acceptFields = acceptInvitationSchema.keyof().options;
 const passwordMinLength = acceptInvitationSchema.shape.password.minLength;
 
 interface AcceptInvitationFormProps {

@@ -11,7 +11,7 @@ import { describeRole, formatRole } from '../../../lib/format';
 import { useInviteMember } from '../api/members';
 
 type InviteValues = z.input<typeof createInvitationSchema>;
-const inviteFields = ['email', 'name', 'role'] as const;
+const inviteFields = createInvitationSchema.keyof().options;
 
 export function InviteForm() {
   const invite = useInviteMember();

@@ -1,10 +1,11 @@
 import type { FieldErrors, UseFormRegister } from 'react-hook-form';
-import { projectKinds, type CreateProjectInput } from '../../../../shared/contracts';
+import { createProjectSchema, projectKinds, type CreateProjectInput } from '../../../../shared/contracts';
 import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
 import { formatProjectKind } from '../../../lib/format';
 
 export type ProjectFormValues = CreateProjectInput;
-export const projectFormFields = ['name', 'kind', 'location', 'description'] as const;
+/** The form's fields are the contract's, so a server issue always finds its field. */
+export const projectFormFields = createProjectSchema.keyof().options;
 
 export const emptyProjectForm: ProjectFormValues = { name: '', kind: 'footbridge', location: '', description: '' };
 
