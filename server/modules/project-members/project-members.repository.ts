@@ -12,14 +12,25 @@ const columns = {
 
 export type ProjectMemberRow = { userId: string; email: string; name: string | null; role: (typeof memberships.$inferSelect)['role']; addedAt: Date };
 
-export function listProjectMembers(db: Database, organisationId: string, projectId: string): Promise<ProjectMemberRow[]> {
+function selectProjectMembers(db: Database, organisationId: string) {
   return db
     .select(columns)
     .from(projectMembers)
     .innerJoin(users, eq(users.id, projectMembers.userId))
-    .innerJoin(memberships, and(eq(memberships.userId, users.id), eq(memberships.organisationId, organisationId)))
+    .innerJoin(memberships, and(eq(memberships.userId, users.id), eq(memberships.organisationId, organisationId)));
+}
+
+export function listProjectMembers(db: Database, organisationId: string, projectId: string): Promise<ProjectMemberRow[]> {
+  return selectProjectMembers(db, organisationId)
     .where(eq(projectMembers.projectId, projectId))
     .orderBy(asc(projectMembers.addedAt), asc(users.email));
+}
+
+export async function findProjectMember(db: Database, organisationId: string, projectId: string, userId: string): Promise<ProjectMemberRow | undefined> {
+  const [row] = await selectProjectMembers(db, organisationId)
+    .where(and(eq(projectMembers.projectId, projectId), eq(projectMembers.userId, userId)))
+    .limit(1);
+  return row;
 }
 
 /** Adds the person (nothing happens when they are already on the project). True when newly added. */

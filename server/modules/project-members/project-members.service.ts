@@ -27,7 +27,7 @@ export async function addProjectMember(
     throw invalidField('userId', 'is not a member of your organisation');
   }
   const created = await repository.addProjectMember(db, projectId, userId);
-  const member = (await repository.listProjectMembers(db, user.organisationId, projectId)).find((row) => row.userId === userId);
+  const member = await repository.findProjectMember(db, user.organisationId, projectId, userId);
   if (!member) throw notFound('The project member');
   return { member: toProjectMember(member), created };
 }
