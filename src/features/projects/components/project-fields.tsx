@@ -1,5 +1,5 @@
 import type { FieldErrors, UseFormRegister } from 'react-hook-form';
-import { createProjectSchema, projectKinds, type CreateProjectInput } from '../../../../shared/contracts';
+import { createProjectSchema, projectKinds, type CreateProjectInput, type UpdateProjectInput } from '../../../../shared/contracts';
 import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
 import { formatProjectKind } from '../../../lib/format';
 
@@ -9,13 +9,24 @@ export const projectFormFields = createProjectSchema.keyof().options;
 
 export const emptyProjectForm: ProjectFormValues = { name: '', kind: 'footbridge', location: '', description: '' };
 
-/** Optional text left blank is sent as absent, not as an empty string. */
+/** A new project: optional text left blank is sent as absent, not as an empty string. */
 export function cleanProjectValues(values: ProjectFormValues): ProjectFormValues {
   return {
     name: values.name,
     kind: values.kind,
-    location: values.location ? values.location : undefined,
-    description: values.description ? values.description : undefined,
+    location: values.location || undefined,
+    description: values.description || undefined,
+  };
+}
+
+/** A change of the project read at `version`: optional text left blank is sent as null, which clears it. */
+export function projectChanges(values: ProjectFormValues, version: number): UpdateProjectInput {
+  return {
+    version,
+    name: values.name,
+    kind: values.kind,
+    location: values.location || null,
+    description: values.description || null,
   };
 }
 

@@ -9,7 +9,7 @@ import { describeError, isApiError } from '../../../lib/api-client';
 import { applyServerIssues } from '../../../lib/form-errors';
 import { formatDateTime, formatProjectKind } from '../../../lib/format';
 import { useDeleteProject, useUpdateProject } from '../api/projects';
-import { ProjectFields, projectFormFields, type ProjectFormValues } from './project-fields';
+import { projectChanges, ProjectFields, projectFormFields, type ProjectFormValues } from './project-fields';
 
 interface ProjectOverviewProps {
   project: Project;
@@ -104,22 +104,13 @@ function EditProjectForm({ project, onReload, onDone }: { project: Project; onRe
   const onSubmit = handleSubmit((values) => {
     setFormError(null);
     setStale(false);
-    updateProject.mutate(
-      {
-        version: project.version,
-        name: values.name,
-        kind: values.kind,
-        location: values.location ? values.location : null,
-        description: values.description ? values.description : null,
+    updateProject.mutate(projectChanges(values, project.version), {
+      onSuccess: () => onDone(true),
+      onError: (error) => {
+        if (isApiError(error) && error.isConflict) setStale(true);
+        else setFormError(applyServerIssues(error, projectFormFields, setError));
       },
-      {
-        onSuccess: () => onDone(true),
-        onError: (error) => {
-          if (isApiError(error) && error.isConflict) setStale(true);
-          else setFormError(applyServerIssues(error, projectFormFields, setError));
-        },
-      },
-    );
+    });
   });
 
   const reload = async () => {
