@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
 import { toApiIssues, type ApiErrorBody, type ApiIssue } from '../../shared/contracts/errors';
+import { errorCodes } from '../../shared/compute/types';
 import { HttpError } from '../lib/http-error';
 
 export function errorBody(code: string, message: string, issues: ApiIssue[] = []): ApiErrorBody {
@@ -52,5 +53,5 @@ export const errorHandler: ErrorRequestHandler = (error: unknown, req, res, next
     return;
   }
   process.stderr.write(`[api] ${req.method} ${req.originalUrl}: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}\n`);
-  res.status(500).json(errorBody('internal_error', 'Something went wrong on the server; the error has been logged'));
+  res.status(500).json(errorBody(errorCodes.internalError, 'Something went wrong on the server; the error has been logged'));
 };

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { typeError } from './messages';
 
 /**
  * Requests and answers of the design compute commands `assess`, `size` and `robustness` (the same JSON through
@@ -6,17 +7,6 @@ import { z } from 'zod';
  * to the frequency of the oscillator it belongs to.
  */
 
-/** The message of a type error: "is required" when the field is missing, else the expected kind. */
-/**
- * The message of a wrong type, or "is required" when the field is missing. Other issues of the same schema (an
- * unknown key of a strict object, say) keep their own message.
- */
-const typeError = (expected: string) => (issue: { code?: string; input?: unknown }) =>
-  issue.code === undefined || issue.code === 'invalid_type' || issue.code === 'invalid_value' || issue.code === 'invalid_union'
-    ? issue.input === undefined
-      ? 'is required'
-      : expected
-    : undefined;
 const num = () => z.number({ error: typeError('must be a number') }).finite('must be a finite number');
 const int = () => z.number({ error: typeError('must be a number') }).int('must be a whole number');
 const positive = () => num().positive('must be greater than 0');

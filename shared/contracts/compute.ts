@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { SYMMETRY_TOLERANCE } from '../engine/linalg';
 import { tuningMethods } from '../engine/types';
+import { typeError } from './messages';
 
 /**
  * Requests and answers of the engine's compute commands (`modes`, `tune`, `response`, `free`), the same for the
@@ -19,17 +20,6 @@ export const MAX_FREE_VALUES = 1_000_000;
 export const MAX_TMDS = 50;
 /** Relative tolerance of the symmetry check, against the largest entry of the matrix: the engine's own. */
 export const MATRIX_SYMMETRY_TOLERANCE = SYMMETRY_TOLERANCE;
-
-/**
- * The message of a wrong type, or "is required" when the field is missing. Other issues of the same schema (an
- * unknown key of a strict object, say) keep their own message.
- */
-const typeError = (message: string) => (issue: { code?: string; input?: unknown }) =>
-  issue.code === undefined || issue.code === 'invalid_type' || issue.code === 'invalid_value' || issue.code === 'invalid_union'
-    ? issue.input === undefined
-      ? 'is required'
-      : message
-    : undefined;
 
 const finite = z.number({ error: typeError('must be a finite number') });
 const positive = finite.gt(0, { error: 'must be greater than 0' });

@@ -10,3 +10,10 @@ export const projectEditorRoles: readonly Role[] = ['admin', 'engineer'];
 export function canEditProjects(role: Role): boolean {
   return projectEditorRoles.includes(role);
 }
+
+/** Roles allowed to manage the organisation's people, roles and invitations. */
+export const memberManagerRoles: readonly Role[] = ['admin'];
+
+export function canManageMembers(role: Role): boolean {
+  return memberManagerRoles.includes(role);
+}

@@ -10,6 +10,7 @@ import {
   updateMemberRoleSchema,
   userIdParamsSchema,
 } from '../../../shared/contracts/members';
+import { memberManagerRoles } from '../../../shared/contracts/roles';
 import * as service from './members.service';
 
 /**
@@ -23,7 +24,7 @@ export function organisationRouter(ctx: AppContext): Router {
     res.json(await service.listPeople(ctx.db, currentUser(req)));
   });
 
-  router.use(requireRole('admin'));
+  router.use(requireRole(...memberManagerRoles));
 
   router.get('/members', async (req, res) => {
     res.json(await service.listMembers(ctx.db, currentUser(req)));

@@ -12,6 +12,7 @@
  * ≈ 400 ms against its 100 ms budget. This search reuses its buffers (one pair per nesting depth).
  */
 
+import { GOLDEN_SECTION_FRACTION } from '../peak';
 import { createModeTmdPoint, evaluateModeTmdSystem, type ModeTmdSystem } from '../response';
 
 /** A band of force frequencies with the modal force amplitude F(f) (N) applied at each of them. */
@@ -40,7 +41,8 @@ export interface PeakResult {
   value: number;
 }
 
-const invPhi = (Math.sqrt(5) - 1) / 2;
+/** (√5 − 1) / 2, the golden-section ratio: 1 − GOLDEN_SECTION_FRACTION. */
+const invPhi = 1 - GOLDEN_SECTION_FRACTION;
 
 function golden(fn: (x: number) => number, a0: number, b0: number, tol: number, best: PeakResult): void {
   let a = a0;

@@ -1,3 +1,4 @@
+import { canManageMembers } from '../../../shared/contracts';
 import { useQuery } from '@tanstack/react-query';
 import { Loading } from '../../components/ui/loading';
 import { Notice } from '../../components/ui/notice';
@@ -13,7 +14,7 @@ import { PageTitle } from '../../components/ui/page-title';
 
 export function MembersRoute() {
   const me = useCurrentUser();
-  const isAdmin = me.role === 'admin';
+  const isAdmin = canManageMembers(me.role);
   const list = useQuery({ ...organisationMembersQueryOptions(), enabled: isAdmin });
 
   return (

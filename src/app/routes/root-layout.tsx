@@ -1,6 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
 import { Link, Outlet, useLocation, useNavigate, useNavigation } from 'react-router-dom';
-import { canEditProjects } from '../../../shared/contracts';
+import { canEditProjects, canManageMembers } from '../../../shared/contracts';
 import { AppShell, type NavItem } from '../../components/layouts/app-shell';
 import { BrandMark } from '../../components/layouts/brand-mark';
 import { Badge } from '../../components/ui/badge';
@@ -21,7 +21,7 @@ export function RootLayoutRoute() {
   const nav: NavItem[] = [];
   if (me) {
     nav.push({ to: '/projects', label: 'Projects' });
-    if (me.role === 'admin') nav.push({ to: '/members', label: 'Members' });
+    if (canManageMembers(me.role)) nav.push({ to: '/members', label: 'Members' });
   }
   if (config?.devMailbox) nav.push({ to: '/dev/mail', label: 'Dev mailbox' });
   nav.push({ to: '/about', label: 'About' });
