@@ -34,6 +34,12 @@ export function solveHarmonicResponse(input: HarmonicResponseInput): HarmonicRes
   const forceIm = input.forceImaginaryN;
   if (!forceRe || forceRe.length !== n) throw new EngineInputError('forceN', `forceN: must have ${n} entries`);
   if (forceIm && forceIm.length !== n) throw new EngineInputError('forceImaginaryN', `forceImaginaryN: must have ${n} entries`);
+  for (let i = 0; i < n; i++) {
+    if (!Number.isFinite(forceRe[i])) throw new EngineInputError(`forceN.${i}`, `forceN: entry ${i} must be a finite number (got ${forceRe[i]})`);
+    if (forceIm && !Number.isFinite(forceIm[i])) {
+      throw new EngineInputError(`forceImaginaryN.${i}`, `forceImaginaryN: entry ${i} must be a finite number (got ${forceIm[i]})`);
+    }
+  }
   const frequencies = input.frequenciesHz;
   const count = frequencies.length;
   const outRe = new Float64Array(count * n);

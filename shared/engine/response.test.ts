@@ -196,3 +196,26 @@ describe('structure with dampers', () => {
     expect(() => createModeTmdSystem({ modalMassKg: 1, frequencyHz: 2, dampingRatio: 0 }, [{ massKg: 1, frequencyHz: -2, dampingRatio: 0.1 }])).toThrow(/tmds.0.frequencyHz/);
   });
 });
+
+describe('solveHarmonicResponse input checks', () => {
+  // Common practice (a pure engine never returns NaN quietly): a non-finite force entry is refused by name.
+  const matrices = {
+    massKg: [
+      [2, 0],
+      [0, 1],
+    ],
+    stiffnessNPerM: [
+      [300, -100],
+      [-100, 100],
+    ],
+    dampingNsPerM: [
+      [1, 0],
+      [0, 0.5],
+    ],
+    frequenciesHz: [1],
+  };
+  it('refuses a non-finite real or imaginary force entry, naming it', () => {
+    expect(() => solveHarmonicResponse({ ...matrices, forceN: [1, Number.NaN] })).toThrow(/forceN: entry 1 must be a finite number/);
+    expect(() => solveHarmonicResponse({ ...matrices, forceN: [1, 0], forceImaginaryN: [Infinity, 0] })).toThrow(/forceImaginaryN: entry 0 must be a finite number/);
+  });
+});
