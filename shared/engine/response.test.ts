@@ -1,6 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import Complex from 'complex.js';
-import { createModeTmdPoint, createModeTmdSystem, evaluateModeTmdSystem, evaluateStructureReceptance, findResponsePeak } from './response';
+import {
+  createModeTmdPoint,
+  createModeTmdSystem,
+  evaluateModeTmdSystem,
+  evaluateStructureAccelerationPerN,
+  evaluateStructureReceptance,
+  findResponsePeak,
+} from './response';
 import { buildModeTmdMatrices } from './matrices';
 import { solveHarmonicResponse } from './harmonic';
 import { solveModes } from './modal';
@@ -217,5 +224,22 @@ describe('solveHarmonicResponse input checks', () => {
   it('refuses a non-finite real or imaginary force entry, naming it', () => {
     expect(() => solveHarmonicResponse({ ...matrices, forceN: [1, Number.NaN] })).toThrow(/forceN: entry 1 must be a finite number/);
     expect(() => solveHarmonicResponse({ ...matrices, forceN: [1, 0], forceImaginaryN: [Infinity, 0] })).toThrow(/forceImaginaryN: entry 0 must be a finite number/);
+  });
+});
+
+describe('evaluateStructureAccelerationPerN', () => {
+  // Common practice (one quantity, one value): the strokes-free path gives exactly the full evaluation's acceleration,
+  // also at an undamped damper's own frequency, where the structure is at rest (Den Hartog 1956, anti-resonance).
+  it('equals evaluateModeTmdSystem exactly, damped and at an undamped anti-resonance', () => {
+    const damped = createModeTmdSystem({ modalMassKg: 30_000, frequencyHz: 2.1, dampingRatio: 0.006 }, [
+      { massKg: 600, frequencyHz: 2.05, dampingRatio: 0.07 },
+      { massKg: 300, frequencyHz: 2.2, dampingRatio: 0.05 },
+    ]);
+    const point = createModeTmdPoint(damped);
+    for (const f of [0.3, 1.7, 2.0, 2.05, 2.1, 2.4, 6]) {
+      expect(evaluateStructureAccelerationPerN(damped, f)).toBe(evaluateModeTmdSystem(damped, f, point).structureAccelerationMPerS2PerN);
+    }
+    const undamped = createModeTmdSystem({ modalMassKg: 30_000, frequencyHz: 2.1, dampingRatio: 0 }, [{ massKg: 600, frequencyHz: 2, dampingRatio: 0 }]);
+    expect(evaluateStructureAccelerationPerN(undamped, 2)).toBe(0);
   });
 });

@@ -188,6 +188,19 @@ function structureDynamicStiffness(system: ModeTmdSystem, omega: number, out: Fl
 const dynamicStiffnessScratch = new Float64Array(2);
 
 /**
+ * |acceleration| of the structure per 1 N at one frequency, the same value as
+ * `evaluateModeTmdSystem(...).structureAccelerationMPerS2PerN` without the strokes: for peak searches of the
+ * structure's response, where the strokes are not needed. Allocates nothing.
+ */
+export function evaluateStructureAccelerationPerN(system: ModeTmdSystem, frequencyHz: number): number {
+  const omega = TWO_PI * frequencyHz;
+  const d = dynamicStiffnessScratch;
+  if (structureDynamicStiffness(system, omega, d) > 0) return 0;
+  const xs = 1 / Math.sqrt(d[0] * d[0] + d[1] * d[1]);
+  return omega * omega * xs;
+}
+
+/**
  * Response magnitudes per 1 N at one frequency, written into `out` (no allocation). At an exact pole of an
  * undamped system the magnitudes are Infinity; at the exact own frequency of an undamped damper the structure
  * stands still and that damper's stroke carries the force (shared equally if several are singular there).

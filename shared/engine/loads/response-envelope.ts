@@ -13,7 +13,7 @@
  */
 
 import { GOLDEN_SECTION_FRACTION } from '../peak';
-import { createModeTmdPoint, evaluateModeTmdSystem, type ModeTmdSystem } from '../response';
+import { createModeTmdPoint, evaluateModeTmdSystem, evaluateStructureAccelerationPerN, type ModeTmdSystem } from '../response';
 
 /** A band of force frequencies with the modal force amplitude F(f) (N) applied at each of them. */
 export interface ForceBand {
@@ -181,9 +181,10 @@ export function findEnvelopePeak(
   const divisor = options.divisor;
   const point = createModeTmdPoint(system);
   const strokes = point.tmdStrokeMPerN;
+  // The structure's acceleration needs no strokes; they are evaluated only when the stroke is asked for.
   const perN =
     quantity === 'structureAcceleration'
-      ? (f: number) => evaluateModeTmdSystem(system, f, point).structureAccelerationMPerS2PerN
+      ? (f: number) => evaluateStructureAccelerationPerN(system, f)
       : (f: number) => {
           evaluateModeTmdSystem(system, f, point);
           return strokes[tmdIndex];
