@@ -58,6 +58,8 @@ const crowdFields = {
   trafficClass: z.string({ error: typeError('must be a traffic class name') }).optional(),
   deckAreaM2: positive(),
   modeShapeMean: positive().max(1, 'must be at most 1 (mean of |φ| for the unit-max mode shape)').optional(),
+  /** Pedestrian force harmonic: 1 (default) or 2 (Sétra 2006 case 3, HiVoSS 2008 second-harmonic ψ). */
+  harmonic: z.literal([1, 2], { error: typeError('must be 1 (first harmonic) or 2 (second harmonic)') }).default(1),
 };
 const crowdLoadSchema = z.strictObject({ kind: z.literal('crowd'), ...crowdFields });
 const lateralLoadSchema = z.strictObject({
