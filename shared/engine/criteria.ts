@@ -1,22 +1,29 @@
 /**
  * Comfort criteria sets the owner can choose from. Each limit is a peak acceleration (m/s², amplitude of the
- * steady-state harmonic response) and every verdict names the set, the class and the limit used.
+ * steady-state harmonic response) and every verdict names the set, the class and the limit used. Where a limit
+ * could not be checked against its published source, the verdict's caution says so in plain words.
  *
- * Sources and how sure we are of them (see docs/engine.md, "Comfort criteria"):
+ * Sources and how sure we are of them (the PRODUCT spec's table of checked values; see docs/engine.md):
  *  - `setra`: Sétra 2006 comfort ranges 1–3 (maximum, mean, minimum comfort; range 4 unacceptable). Vertical
- *    0.5 / 1.0 / 2.5 m/s², lateral 0.15 / 0.3 / 0.8 m/s² (from memory; the vertical values coincide with HiVoSS).
- *  - `hivoss`: HiVoSS 2008 comfort classes CL1–CL3 (CL4 unacceptable). Vertical 0.5 / 1.0 / 2.5 m/s², lateral
- *    0.1 / 0.3 / 0.8 m/s² (class names seen in an excerpt of the guide; the bands from memory).
+ *    0.5 / 1.0 / 2.5 m/s² confirmed; lateral 0.15 / 0.3 / 0.8 m/s² and the advice to keep lateral accelerations
+ *    below 0.10 m/s² against lock-in NOT confirmed (from memory).
+ *  - `hivoss`: HiVoSS 2008 comfort classes CL1–CL3 (CL4 unacceptable): class names confirmed; the bands, vertical
+ *    0.5 / 1.0 / 2.5 m/s² and lateral 0.1 / 0.3 / 0.8 m/s², NOT confirmed (from memory).
  *  - `en1990`: EN 1990:2002/A1:2005 Annex A2, A2.4.3.2 recommended maxima for footbridges: 0.7 m/s² vertical,
- *    0.2 m/s² horizontal in normal use, 0.4 m/s² horizontal under exceptional crowd (seen quoted in a published
- *    summary of footbridge criteria); a comfort check is needed below 5 Hz vertical and 2.5 Hz horizontal.
- *  - `dg11`: AISC Design Guide 11, Table 4-1 walking limits a0/g: offices, residences 0.5 %g; shopping malls
- *    1.5 %g; indoor footbridges 1.5 %g; outdoor footbridges 5 %g (from memory; P0 and the formula seen).
- *  - `iso10137`: ISO 10137:2007 Annex C, multiples R of the base curve (ISO 2631-2 base curve for vertical vibration:
- *    0.005 m/s² r.m.s. from 4 to 8 Hz (seen), 0.01 f^−½ from 1 to 4 Hz and 0.000625 f from 8 to 80 Hz; horizontal
- *    0.00357 m/s² r.m.s. from 1 to 2 Hz and 0.001786 f above (from memory)). Response factors for walking-induced
- *    (intermittent) vibration as used in footfall design: operating theatre 1, hospital ward 2, residential 4,
- *    office 8 (office 8 seen; the others from memory). The peak limit of a harmonic response is √2 R a_base(f).
+ *    0.2 m/s² horizontal in normal use, 0.4 m/s² horizontal under exceptional crowd; the comfort check is asked for
+ *    below 5 Hz for vertical modes and below 2.5 Hz for horizontal (lateral, longitudinal) and torsional modes
+ *    (confirmed: national-annex notes quoting it). A torsional mode is checked against the horizontal limits, as
+ *    it shares their 2.5 Hz trigger; they are the stricter values, so they also cover the vertical motion of the
+ *    deck edge when the mode shape is scaled to 1 at the point of largest motion.
+ *  - `dg11`: AISC Design Guide 11 walking limits a0/g: offices, residences, churches 0.5 %g; shopping malls and
+ *    indoor footbridges 1.5 %g; outdoor footbridges 5 %g; f_n up to about 9 Hz (confirmed). Vertical modes only.
+ *  - `iso10137`: ISO 10137:2007 Annex C, multiples R of the ISO 2631-2 base curve. Vertical base curve
+ *    0.005 m/s² r.m.s. on 4–8 Hz, 0.01/√f below, 0.000625 f above (confirmed); response factors office 8,
+ *    operating theatre 1, hospital ward 2 (confirmed: hospitals 1–2), residential 4 NOT confirmed (from memory);
+ *    horizontal base curve 0.00357 m/s² r.m.s. on 1–2 Hz and 0.001786 f above NOT confirmed (from memory).
+ *    The peak limit of a harmonic response is √2 R a_base(f).
+ * The guides' comfort tables (Sétra, HiVoSS), DG11 and ISO 10137 give no limit for a torsional mode: they refuse it
+ * with a message pointing to EN 1990 A2 or a custom limit.
  */
 
 import type { LoadDirection } from './loads/pedestrian-crowd';
@@ -67,7 +74,7 @@ export const en1990Maxima = {
 
 /** DG11 a0/g limits (fractions of g). */
 export const dg11WalkingLimitsG = {
-  office: { fractionOfG: 0.005, label: 'offices, residences, quiet spaces (0.5 %g)' },
+  office: { fractionOfG: 0.005, label: 'offices, residences, churches (0.5 %g)' },
   'shopping-mall': { fractionOfG: 0.015, label: 'shopping malls (1.5 %g)' },
   'indoor-footbridge': { fractionOfG: 0.015, label: 'indoor footbridges (1.5 %g)' },
   'outdoor-footbridge': { fractionOfG: 0.05, label: 'outdoor footbridges (5 %g)' },
@@ -93,7 +100,19 @@ export function iso10137BaseCurveRmsMPerS2(frequencyHz: number, axis: 'vertical'
   return 0.001786 * f;
 }
 
-const isHorizontal = (direction: LoadDirection) => direction !== 'vertical';
+/** Lateral and longitudinal modes: the horizontal limits (torsional modes are handled by each set). */
+const isHorizontal = (direction: LoadDirection) => direction === 'lateral' || direction === 'longitudinal';
+
+/** The caution of a limit that could not be checked against its published source. */
+const fromMemoryCaution = (what: string) =>
+  `${what} could not be checked against the published source (from memory): confirm the value before the verdict is relied on.`;
+
+/** Refusal for a set whose source gives no limit for a torsional mode. */
+function refuseTorsional(setName: string): never {
+  throw new RangeError(
+    `criteria.set: ${setName} gives no limit for a torsional mode; choose "en1990" (EN 1990 A2.4.3.2 checks torsional modes below 2.5 Hz against the horizontal limits) or a custom peakAccelerationLimitMPerS2`,
+  );
+}
 
 export type CriteriaInput =
   | { set?: 'custom'; peakAccelerationLimitMPerS2: number }
@@ -119,38 +138,52 @@ export function resolveComfortLimit(criteria: CriteriaInput, direction: LoadDire
   const horizontal = isHorizontal(direction);
   switch (criteria.set) {
     case 'setra': {
+      if (direction === 'torsional') refuseTorsional('the Sétra 2006 comfort ranges (vertical and lateral)');
       const row = setraComfortRanges[criteria.class];
       const value = horizontal ? row.horizontal : row.vertical;
+      const lockInAdvice = 'Sétra also advises keeping lateral accelerations below 0.10 m/s² to avoid lock-in.';
       return {
         set: 'setra', class: criteria.class, label: `Sétra ${row.label}, ${horizontal ? 'horizontal' : 'vertical'} ≤ ${value} m/s²`,
-        source: setraSource, limitMPerS2: constant(value), frequencyDependent: false,
+        source: horizontal ? `${setraSource} (lateral ranges from memory)` : setraSource,
+        limitMPerS2: constant(value), frequencyDependent: false,
         applicableRangeHz: horizontal ? [0.3, 1.3] : [1.0, 2.6],
-        caution: `${footbridgeCaution} Sétra also advises keeping lateral accelerations below 0.1 m/s² to avoid lock-in.`,
+        caution: horizontal
+          ? `${footbridgeCaution} ${lockInAdvice} ${fromMemoryCaution('The Sétra lateral comfort ranges 0.15 / 0.3 / 0.8 m/s² and the 0.10 m/s² lock-in advice')}`
+          : `${footbridgeCaution} ${lockInAdvice} ${fromMemoryCaution('That 0.10 m/s² advice')}`,
       };
     }
     case 'hivoss': {
+      if (direction === 'torsional') refuseTorsional('the HiVoSS 2008 comfort classes (vertical and lateral)');
       const row = hivossComfortClasses[criteria.class];
       const value = horizontal ? row.horizontal : row.vertical;
       return {
         set: 'hivoss', class: criteria.class, label: `HiVoSS ${row.label}, ${horizontal ? 'horizontal' : 'vertical'} ≤ ${value} m/s²`,
-        source: hivossSource, limitMPerS2: constant(value), frequencyDependent: false,
+        source: `${hivossSource} (bands from memory)`, limitMPerS2: constant(value), frequencyDependent: false,
         applicableRangeHz: horizontal ? [0.5, 1.2] : [1.25, 2.3],
-        caution: footbridgeCaution,
+        caution: `${footbridgeCaution} ${fromMemoryCaution(`The HiVoSS comfort-class bands (vertical 0.5 / 1.0 / 2.5, lateral 0.1 / 0.3 / 0.8 m/s²)`)}`,
       };
     }
     case 'en1990': {
+      // EN 1990 A2.4.3.2: horizontal limits and the 2.5 Hz trigger for lateral, longitudinal and torsional modes.
+      const torsional = direction === 'torsional';
+      const useHorizontal = horizontal || torsional;
       const row = en1990Maxima[criteria.class];
-      const value = horizontal ? row.horizontal : row.vertical;
+      const value = useHorizontal ? row.horizontal : row.vertical;
+      const what = torsional ? 'horizontal maximum applied to a torsional mode' : `${horizontal ? 'horizontal' : 'vertical'} maximum`;
       return {
         set: 'en1990', class: criteria.class,
-        label: `EN 1990 A2 ${horizontal ? 'horizontal' : 'vertical'} maximum, ${row.label}: ${value} m/s²`,
+        label: `EN 1990 A2 ${what}, ${row.label}: ${value} m/s²`,
         source: en1990Source, limitMPerS2: constant(value), frequencyDependent: false,
-        applicableRangeHz: horizontal ? [0, 2.5] : [0, 5],
-        caution: `${footbridgeCaution} The values are the recommended ones; the National Annex may set others.`,
+        applicableRangeHz: useHorizontal ? [0, 2.5] : [0, 5],
+        caution: torsional
+          ? `${footbridgeCaution} The values are the recommended ones; the National Annex may set others. EN 1990 A2.4.3.2 asks for the check of torsional modes below 2.5 Hz; Stillspan applies the horizontal limit to the acceleration at the point where the mode shape is 1 (the stricter value, which also covers the vertical motion of the deck edge).`
+          : `${footbridgeCaution} The values are the recommended ones; the National Annex may set others.`,
       };
     }
     case 'dg11': {
-      if (horizontal) throw new RangeError('criteria.set: dg11 limits apply to vertical modes only (structure.direction must be "vertical")');
+      if (direction !== 'vertical') {
+        throw new RangeError(`criteria.set: dg11 limits apply to vertical modes only (structure.direction must be "vertical", got "${direction}")`);
+      }
       const row = dg11WalkingLimitsG[criteria.class];
       const value = row.fractionOfG * standardGravityMPerS2;
       return {
@@ -161,16 +194,24 @@ export function resolveComfortLimit(criteria: CriteriaInput, direction: LoadDire
       };
     }
     case 'iso10137': {
+      if (direction === 'torsional') refuseTorsional('ISO 10137 (vertical and horizontal base curves)');
       const row = iso10137ResponseFactors[criteria.class];
       const r = criteria.responseFactor ?? row.responseFactor;
       if (!(r > 0)) throw new RangeError(`criteria.responseFactor must be > 0, got ${r}`);
       const axis = horizontal ? 'horizontal' : 'vertical';
+      const unconfirmed = [
+        ...(criteria.class === 'residential' && criteria.responseFactor === undefined ? ['The residential response factor R = 4'] : []),
+        ...(horizontal ? ['The horizontal base curve (0.00357 m/s² r.m.s. on 1–2 Hz, 0.001786 f above)'] : []),
+      ];
       return {
         set: 'iso10137', class: criteria.class,
         label: `ISO 10137 ${row.label}: R = ${r} × base curve (${axis}), peak limit √2 R a_base(f)`,
-        source: isoSource, limitMPerS2: (f) => Math.SQRT2 * r * iso10137BaseCurveRmsMPerS2(f, axis),
+        source: unconfirmed.length ? `${isoSource} (${unconfirmed.map((u) => u.replace(/^The /, '')).join('; ')}: from memory)` : isoSource,
+        limitMPerS2: (f) => Math.SQRT2 * r * iso10137BaseCurveRmsMPerS2(f, axis),
         frequencyDependent: true, applicableRangeHz: [1, 80],
-        caution: `${footbridgeCaution} The response factor compares the r.m.s. of the steady harmonic response with the base curve.`,
+        caution:
+          `${footbridgeCaution} The response factor compares the r.m.s. of the steady harmonic response with the base curve.` +
+          unconfirmed.map((u) => ` ${fromMemoryCaution(u)}`).join(''),
       };
     }
   }
@@ -178,6 +219,7 @@ export function resolveComfortLimit(criteria: CriteriaInput, direction: LoadDire
 
 /** The comfort class the peak falls in, for the sets that grade comfort (Sétra ranges 1–4, HiVoSS CL1–CL4). */
 export function gradeComfort(set: 'setra' | 'hivoss', direction: LoadDirection, peakAccelerationMPerS2: number): string {
+  if (direction === 'torsional') throw new RangeError(`direction: the ${set === 'setra' ? 'Sétra' : 'HiVoSS'} comfort grades have no torsional range`);
   const table = set === 'setra' ? setraComfortRanges : hivossComfortClasses;
   const horizontal = isHorizontal(direction);
   for (const [name, row] of Object.entries(table)) {

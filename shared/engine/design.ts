@@ -273,7 +273,7 @@ export function assessDesign(input: AssessInput): AssessResult {
   if (!Number.isFinite(peak.value) || (barePeak.value !== null && !Number.isFinite(barePeak.value))) {
     throw new LoadCaseError('structure.dampingRatio', 'the response is unbounded: the system has no damping at a resonance inside the load band');
   }
-  warnings.push(...frequencyRangeWarnings(structure.frequencyHz, envelope));
+  warnings.push(...frequencyRangeWarnings(structure.frequencyHz, envelope), ...envelope.warnings);
   if (bareUnbounded) warnings.push(bareUnboundedWarning(structure.frequencyHz));
   const result: AssessResult = {
     peakAccelerationMPerS2: peak.value,

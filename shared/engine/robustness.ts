@@ -38,7 +38,7 @@ export function mapRobustness(input: RobustnessInput): RobustnessResult {
   let firstUnboundedHz = 0;
   // Which field leaves a cell without any damping (structure ζ = 0): the dampers' own ratios, or a factor of 0.
   const allTmdsUndamped = tmds.every((t) => t.dampingRatio === 0);
-  const warnings: DesignWarning[] = [];
+  const warnings: DesignWarning[] = [...envelope.warnings];
   const [lo, hi] = envelope.structureFrequencyRangeHz;
   const factors = input.structureFrequencyFactors;
   const fMin = structure.frequencyHz * Math.min(...factors);

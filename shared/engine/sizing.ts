@@ -200,7 +200,7 @@ export function sizeDamper(input: SizeInput): SizeResult {
   const modalMassKg = structure.modalMassKg;
   const zs = structure.dampingRatio;
   const warnings: DesignWarning[] = [];
-  warnings.push(...frequencyRangeWarnings(nominalFrequencyHz, envelope));
+  warnings.push(...frequencyRangeWarnings(nominalFrequencyHz, envelope), ...envelope.warnings);
   if (toleranceRatio > 0 && (rangeHz[0] < envelope.structureFrequencyRangeHz[0] || rangeHz[1] > envelope.structureFrequencyRangeHz[1])) {
     warnings.push({
       code: 'tolerance-outside-load-model',

@@ -1,7 +1,12 @@
 /**
  * One walker / jogger: dynamic load factors of ONE set only, H. Bachmann & W. Ammann, "Vibrations in Structures
- * Induced by Man and Machines", IABSE Structural Engineering Documents 3e (1987): G = 800 N; walking (1.6–2.4 Hz)
- * α1 = 0.4, α2 = α3 = 0.1, lateral α1/2 = 0.1; running (2.0–3.5 Hz) α1 = 1.6, α2 = 0.7, α3 = 0.2 — all from memory.
+ * Induced by Man and Machines", IABSE Structural Engineering Documents 3e (1987).
+ *  - walking, vertical α1 = 0.4, α2 = α3 = 0.1: confirmed (the values the Sétra 2006 guide quotes);
+ *  - walking, lateral α½ = 0.039 (3.9 % of body weight at half the pacing frequency): confirmed — Bachmann &
+ *    Ammann's value as tabulated in J. H. G. Macdonald, Proc. R. Soc. A 465 (2009), table 2, beside the 4 % of
+ *    Dallard et al., "The London Millennium Footbridge", The Structural Engineer 79(22), 2001;
+ *  - from memory (not confirmed): G = 800 N, the pacing bands 1.6–2.4 Hz (walking) and 2.0–3.5 Hz (running), the
+ *    running factors α = 1.6, 0.7, 0.2.
  * DG11's factors (floor walking) are a separate set and never enter these cases.
  */
 import { describe, expect, it } from 'vitest';
@@ -12,7 +17,8 @@ describe('Bachmann & Ammann (1987) walking and running forces', () => {
   it('the factors of the set', () => {
     expect(findGaitLoadModel('walking', 'vertical')?.harmonics.map((h) => h.dynamicLoadFactor)).toEqual([0.4, 0.1, 0.1]);
     expect(findGaitLoadModel('jogging', 'vertical')?.harmonics.map((h) => h.dynamicLoadFactor)).toEqual([1.6, 0.7, 0.2]);
-    expect(findGaitLoadModel('walking', 'lateral')?.harmonics).toEqual([{ frequencyMultiple: 0.5, dynamicLoadFactor: 0.1 }]);
+    // Lateral: 3.9 % of body weight (Bachmann & Ammann via Macdonald 2009, table 2), not 10 %.
+    expect(findGaitLoadModel('walking', 'lateral')?.harmonics).toEqual([{ frequencyMultiple: 0.5, dynamicLoadFactor: 0.039 }]);
     expect(findGaitLoadModel('walking', 'vertical')?.pacingRangeHz).toEqual([1.6, 2.4]);
     expect(findGaitLoadModel('jogging', 'vertical')?.pacingRangeHz).toEqual([2.0, 3.5]);
     expect(findGaitLoadModel('jogging', 'lateral')).toBeUndefined();

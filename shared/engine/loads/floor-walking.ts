@@ -2,24 +2,28 @@
  * Walking on floors: the resonant walking criterion of AISC Steel Design Guide 11, "Vibrations of Steel-Framed
  * Structural Systems Due to Human Activity" (Murray, Allen, Ungar, Davis; 2nd ed. 2016), §2.2 and chapter 4:
  *   a_p / g = P0 · exp(−0.35 f_n) / (β W)
- * for floors with f_n up to about 9 Hz (chapter 4 excerpt seen: "low-frequency floors, f_n ≤ 9 Hz", and
- * P0 = 65 lb = 0.29 kN for floors with the reduction factor R = 0.5; 0.41 kN for footbridges with R = 0.7).
+ * for floors with f_n up to about 9 Hz. Confirmed (the PRODUCT spec's table: engineering scripts and a damping
+ * table citing the guide): the formula, P0 = 0.29 kN for floors and 0.41 kN for footbridges, f_n ≲ 9 Hz.
  * The formula is the steady resonant response of the mode to the harmonic force P0 exp(−0.35 f) with the effective
  * panel weight W = 2 g M (W/g is twice the modal mass of a unit-max half-sine panel), which is how the coupled
  * structure + damper system is loaded here: the force amplitude P0 exp(−0.35 f) at every force frequency f of the
- * walking harmonics, i × (1.6 … 2.2 Hz) for i = 1…4 (DG11 Table 1-1 step frequencies; from memory).
+ * walking harmonics, i × (1.6 … 2.2 Hz) for i = 1…4.
+ * NOT confirmed (from memory): that step band 1.6–2.2 Hz with four harmonics, and the 3 Hz lower bound of the
+ * floors the criterion covers; a floor-walking load case carries a warning saying so.
  */
 
 export const standardGravityMPerS2 = 9.80665;
 
-/** DG11 constant force P0, N: floors 0.29 kN (seen), footbridges 0.41 kN (seen in the PRODUCT table). */
+/** DG11 constant force P0, N: floors 0.29 kN, footbridges 0.41 kN (confirmed). */
 export const dg11ConstantForceN = { floor: 290, footbridge: 410 } as const;
 
-/** DG11 step-frequency range and the number of walking harmonics it considers (from memory). */
+/** DG11 step-frequency range and the number of walking harmonics it considers (from memory, not confirmed). */
 export const dg11StepFrequencyRangeHz = [1.6, 2.2] as const;
 export const dg11HarmonicCount = 4;
-/** Upper limit of the low-frequency floor criterion, Hz (DG11 §4.1, seen). */
+/** Upper limit of the low-frequency floor criterion, Hz (DG11 §4.1, confirmed). */
 export const dg11MaximumFrequencyHz = 9;
+/** Lower end of the floor frequencies the walking load model is used for, Hz (from memory, not confirmed). */
+export const dg11MinimumFrequencyHz = 3;
 
 /** The equivalent harmonic force amplitude P0 e^(−0.35 f), N, at force frequency f. */
 export function dg11ForceAmplitudeN(constantForceN: number, frequencyHz: number): number {

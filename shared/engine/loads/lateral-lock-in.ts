@@ -2,7 +2,9 @@
  * Lateral lock-in: the critical number of walking people above which their lateral force, proportional to the deck
  * velocity, overcomes the damping of a lateral mode (P. Dallard, A. J. Fitzpatrick, A. Flint et al., "The London
  * Millennium Footbridge", The Structural Engineer 79(22), 2001):
- *   N_L = 8 π ζ f M / k,   k ≈ 300 N s/m per person (the paper's value for 0.5–1.0 Hz; from memory).
+ *   N_L = 8 π ζ f M / k,   k ≈ 300 N s/m per person on 0.5–1.0 Hz, for a half-sine mode
+ * (confirmed: J. H. G. Macdonald, Proc. R. Soc. A 465, 2009, which quotes the formula
+ * and k).
  * The formula amounts to a negative modal damping of N k / 2 per mode (pedestrians spread uniformly along a half
  * sine: mean φ² = 1/2). With dampers, the same negative damping is put on the structure DOF of the coupled system
  * and N_L is the smallest N at which one of its eigenvalues crosses into the right half plane (found by bisection
@@ -12,7 +14,7 @@
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import type { StructureMode, TmdParameters } from '../types';
 
-/** Lateral force coefficient per pedestrian, N s/m (Dallard et al. 2001; from memory). */
+/** Lateral force coefficient per pedestrian, N s/m, on 0.5–1.0 Hz (Dallard et al. 2001; confirmed via Macdonald 2009). */
 export const dallardLateralCoefficientNsPerM = 300;
 
 /** N_L = 8 π ζ f M / k for the bare mode. */

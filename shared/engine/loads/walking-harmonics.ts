@@ -6,15 +6,20 @@
  * The set of AISC Design Guide 11 (α_i = 0.5, 0.2, 0.1, 0.05 …) belongs to the floor-walking case and is never
  * mixed with this one.
  *
- * Values (all from memory of Bachmann & Ammann 1987, Table 2.x; the PRODUCT spec lists them as to be checked):
- *  - body weight G = 800 N;
- *  - walking, pacing 1.6–2.4 Hz: vertical α1 = 0.4 (the guide quotes 0.4 at 2.0 Hz rising to 0.5 at 2.4 Hz; the
- *    lower value is used throughout), α2 = 0.1, α3 = 0.1; lateral α1/2 = 0.1 at half the pacing frequency;
- *    longitudinal α1/2 = 0.1, α1 = 0.2;
- *  - running (jogging), pacing 2.0–3.5 Hz: vertical α1 = 1.6, α2 = 0.7, α3 = 0.2.
+ * Values and how sure we are of them (the PRODUCT spec's table of checked values):
+ *  - walking, vertical α1 = 0.4, α2 = 0.1, α3 = 0.1: confirmed (the values the Sétra 2006 guide quotes, with its
+ *    700 N reference pedestrian);
+ *  - walking, lateral α½ = 0.039 at half the pacing frequency: confirmed — Bachmann & Ammann's 3.9 % of body
+ *    weight, as tabulated by J. H. G. Macdonald, Proc. R. Soc. A 465 (2009),
+ *    table 2, next to the 4 % of P. Dallard et al., "The London Millennium
+ *    Footbridge", The Structural Engineer 79(22), 2001. (An older value of 0.1 is not the published one.)
+ *  - NOT confirmed (from memory): the body weight G = 800 N, the pacing bands 1.6–2.4 Hz (walking) and 2.0–3.5 Hz
+ *    (jogging), the longitudinal factors α½ = 0.1, α1 = 0.2 and the jogging factors α = 1.6, 0.7, 0.2. Load cases
+ *    that use them carry a warning saying so (`notConfirmed`).
+ * A torsional mode is loaded by the vertical force on the mode shape's vertical ordinate where the person walks.
  */
 
-import type { LoadDirection } from './pedestrian-crowd';
+import { forceDirectionOf, type ForceDirection, type LoadDirection } from './pedestrian-crowd';
 
 export type Gait = 'walking' | 'jogging';
 
@@ -27,16 +32,27 @@ export interface GaitHarmonic {
 export interface GaitLoadModel {
   set: 'bachmann-ammann';
   gait: Gait;
-  direction: LoadDirection;
+  direction: ForceDirection;
   pacingRangeHz: readonly [number, number];
   harmonics: readonly GaitHarmonic[];
+  /** The values of this model that could not be checked against a published source (from memory). */
+  notConfirmed: readonly string[];
 }
 
-/** Body weight of the design pedestrian, N (Bachmann & Ammann 1987; from memory). */
+/** Body weight of the design pedestrian, N (Bachmann & Ammann 1987; from memory, not confirmed). */
 export const bachmannAmmannBodyWeightN = 800;
+
+/**
+ * Lateral dynamic load factor of walking at half the pacing frequency: 3.9 % of body weight (Bachmann & Ammann, as
+ * tabulated in Macdonald, Proc. R. Soc. A 465, 2009, table 2; Dallard et al. 2001 use 4 %). Confirmed.
+ */
+export const bachmannAmmannLateralLoadFactor = 0.039;
 
 const walkingRangeHz = [1.6, 2.4] as const;
 const joggingRangeHz = [2.0, 3.5] as const;
+
+const bodyWeightNote = 'the body weight G = 800 N (Sétra 2006 takes a 700 N pedestrian)';
+const walkingBandNote = 'the walking pacing band 1.6–2.4 Hz';
 
 const models: readonly GaitLoadModel[] = [
   {
@@ -46,10 +62,12 @@ const models: readonly GaitLoadModel[] = [
       { frequencyMultiple: 2, dynamicLoadFactor: 0.1 },
       { frequencyMultiple: 3, dynamicLoadFactor: 0.1 },
     ],
+    notConfirmed: [bodyWeightNote, walkingBandNote],
   },
   {
     set: 'bachmann-ammann', gait: 'walking', direction: 'lateral', pacingRangeHz: walkingRangeHz,
-    harmonics: [{ frequencyMultiple: 0.5, dynamicLoadFactor: 0.1 }],
+    harmonics: [{ frequencyMultiple: 0.5, dynamicLoadFactor: bachmannAmmannLateralLoadFactor }],
+    notConfirmed: [bodyWeightNote, walkingBandNote],
   },
   {
     set: 'bachmann-ammann', gait: 'walking', direction: 'longitudinal', pacingRangeHz: walkingRangeHz,
@@ -57,6 +75,7 @@ const models: readonly GaitLoadModel[] = [
       { frequencyMultiple: 0.5, dynamicLoadFactor: 0.1 },
       { frequencyMultiple: 1, dynamicLoadFactor: 0.2 },
     ],
+    notConfirmed: ['the longitudinal load factors 0.1 (half the pacing frequency) and 0.2', bodyWeightNote, walkingBandNote],
   },
   {
     set: 'bachmann-ammann', gait: 'jogging', direction: 'vertical', pacingRangeHz: joggingRangeHz,
@@ -65,12 +84,17 @@ const models: readonly GaitLoadModel[] = [
       { frequencyMultiple: 2, dynamicLoadFactor: 0.7 },
       { frequencyMultiple: 3, dynamicLoadFactor: 0.2 },
     ],
+    notConfirmed: ['the jogging load factors 1.6 / 0.7 / 0.2', bodyWeightNote, 'the jogging pacing band 2.0–3.5 Hz'],
   },
 ];
 
-/** The load model of a gait and direction, or undefined where the set gives none (jogging sideways). */
+/**
+ * The load model of a gait and mode direction, or undefined where the set gives none (jogging sideways). A torsional
+ * mode gets the vertical model.
+ */
 export function findGaitLoadModel(gait: Gait, direction: LoadDirection): GaitLoadModel | undefined {
-  return models.find((m) => m.gait === gait && m.direction === direction);
+  const force = forceDirectionOf(direction);
+  return models.find((m) => m.gait === gait && m.direction === force);
 }
 
 /** The band of force frequencies one harmonic covers over a pacing range. */
