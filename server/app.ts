@@ -16,6 +16,11 @@ import { meRouter } from './modules/me/me.router';
 import { invitationsRouter, organisationRouter } from './modules/members/members.router';
 import { projectMembersRouter } from './modules/project-members/project-members.router';
 import { projectsRouter } from './modules/projects/projects.router';
+import { comfortCriteriaRouter } from './modules/comfort-criteria/comfort-criteria.router';
+import { loadCasesRouter } from './modules/load-cases/load-cases.router';
+import { lumpedModelsRouter } from './modules/lumped-models/lumped-models.router';
+import { modesRouter } from './modules/modes/modes.router';
+import { structuresRouter } from './modules/structures/structures.router';
 
 /**
  * Headers for every answer: no MIME sniffing, no framing by other sites, no referrer outside the site (invitation
@@ -61,6 +66,11 @@ export function createApp(ctx: AppContext, options: { clientDir?: string | null 
   app.use(['/api/me', '/api/projects', '/api/organisation', '/api/compute'], requireUser(ctx.db, ctx.authConfig));
   app.use('/api/me', meRouter(ctx.db));
   app.use('/api/projects/:id/members', projectMembersRouter(ctx));
+  app.use('/api/projects/:projectId/structures/:structureId/modes', modesRouter(ctx));
+  app.use('/api/projects/:projectId/structures/:structureId/models', lumpedModelsRouter(ctx));
+  app.use('/api/projects/:projectId/structures', structuresRouter(ctx));
+  app.use('/api/projects/:projectId/load-cases', loadCasesRouter(ctx));
+  app.use('/api/projects/:projectId/comfort-criteria', comfortCriteriaRouter(ctx));
   app.use('/api/projects', projectsRouter(ctx));
   app.use('/api/organisation', organisationRouter(ctx));
   app.use('/api/compute', computeRouter());

@@ -1,0 +1,61 @@
+import type { Database } from '../../db/client';
+import { notFound } from '../../lib/http-error';
+import { givenFields, nothingToChange, versionConflict } from '../../lib/versioned';
+import type { CurrentUser } from '../../middleware/auth';
+import { createLoadCaseSchema, updateLoadCaseSchema, type SavedLoadCase } from '../../../shared/contracts/model';
+import type { z } from 'zod';
+import { requireProjectScope } from '../structures/structures.service';
+import * as repository from './load-cases.repository';
+
+type CreateLoadCaseParsed = z.output<typeof createLoadCaseSchema>;
+type UpdateLoadCaseParsed = z.output<typeof updateLoadCaseSchema>;
+
+export function toSavedLoadCase(row: repository.LoadCaseRow): SavedLoadCase {
+  return {
+    id: row.id,
+    projectId: row.projectId,
+    name: row.name,
+    spec: row.spec,
+    version: row.version,
+    createdBy: row.createdBy,
+    createdAt: row.createdAt.toISOString(),
+    updatedAt: row.updatedAt.toISOString(),
+  };
+}
+
+const loadCaseNotFound = () => notFound('The load case', 'load_case_not_found');
+
+export async function listLoadCases(db: Database, user: CurrentUser, projectId: string): Promise<SavedLoadCase[]> {
+  const scope = await requireProjectScope(db, user, projectId);
+  return (await repository.listLoadCases(db, scope)).map(toSavedLoadCase);
+}
+
+export async function getLoadCase(db: Database, user: CurrentUser, projectId: string, id: string): Promise<SavedLoadCase> {
+  const scope = await requireProjectScope(db, user, projectId);
+  const row = await repository.findLoadCase(db, scope, id);
+  if (!row) throw loadCaseNotFound();
+  return toSavedLoadCase(row);
+}
+
+/** The spec is stored as the engine's schema parsed it (its defaults filled in). */
+export async function createLoadCase(db: Database, user: CurrentUser, projectId: string, input: CreateLoadCaseParsed): Promise<SavedLoadCase> {
+  const scope = await requireProjectScope(db, user, projectId);
+  return toSavedLoadCase(await repository.insertLoadCase(db, scope, user.id, { name: input.name, spec: input.spec }));
+}
+
+export async function updateLoadCase(db: Database, user: CurrentUser, projectId: string, id: string, input: UpdateLoadCaseParsed): Promise<SavedLoadCase> {
+  const scope = await requireProjectScope(db, user, projectId);
+  const { version, ...fields } = input;
+  const changes = givenFields(fields);
+  if (Object.keys(changes).length === 0) throw nothingToChange(['name', 'spec']);
+  const row = await repository.updateLoadCaseAtVersion(db, scope, id, version, changes);
+  if (row) return toSavedLoadCase(row);
+  const current = await repository.findLoadCase(db, scope, id);
+  if (!current) throw loadCaseNotFound();
+  throw versionConflict('The load case', version, current.version);
+}
+
+export async function deleteLoadCase(db: Database, user: CurrentUser, projectId: string, id: string): Promise<void> {
+  const scope = await requireProjectScope(db, user, projectId);
+  if (!(await repository.deleteLoadCase(db, scope, id))) throw loadCaseNotFound();
+}
