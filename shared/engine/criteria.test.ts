@@ -49,3 +49,48 @@ describe('comfort criteria', () => {
     expect(gradeComfort('setra', 'lateral', 0.9)).toBe('unacceptable');
   });
 });
+
+describe('torsional modes', () => {
+  it('EN 1990 A2: the horizontal limits and the 2.5 Hz trigger', () => {
+    // EN 1990 A2.4.3.2 asks for the check below 2.5 Hz for horizontal and torsional modes (details in
+    // tests/reference/loads-torsional.test.ts).
+    const normal = resolveComfortLimit({ set: 'en1990', class: 'normal-use' }, 'torsional');
+    expect(normal.limitMPerS2(2)).toBe(0.2);
+    expect(normal.applicableRangeHz).toEqual([0, 2.5]);
+    expect(normal.label).toMatch(/torsional/);
+    expect(resolveComfortLimit({ set: 'en1990', class: 'crowd' }, 'torsional').limitMPerS2(2)).toBe(0.4);
+  });
+
+  it('the sets without a torsional limit refuse it and point to EN 1990 or a custom limit', () => {
+    for (const c of [
+      { set: 'setra', class: 'mean' },
+      { set: 'hivoss', class: 'CL1' },
+      { set: 'dg11', class: 'office' },
+      { set: 'iso10137', class: 'office' },
+    ] as const) {
+      expect(() => resolveComfortLimit(c, 'torsional')).toThrow(/criteria\.set: .*(torsional|vertical modes only)/);
+    }
+    expect(() => resolveComfortLimit({ set: 'hivoss', class: 'CL1' }, 'torsional')).toThrow(/en1990/);
+    expect(resolveComfortLimit({ peakAccelerationLimitMPerS2: 0.3 }, 'torsional').limitMPerS2(2)).toBe(0.3);
+    expect(() => gradeComfort('hivoss', 'torsional', 0.2)).toThrow(RangeError);
+  });
+});
+
+describe('limits from memory say so in the verdict', () => {
+  it('Sétra lateral ranges, HiVoSS bands, ISO residential factor and horizontal curve', () => {
+    expect(resolveComfortLimit({ set: 'setra', class: 'mean' }, 'lateral').caution).toMatch(/0\.15 \/ 0\.3 \/ 0\.8 .*from memory/);
+    expect(resolveComfortLimit({ set: 'hivoss', class: 'CL2' }, 'vertical').caution).toMatch(/from memory/);
+    expect(resolveComfortLimit({ set: 'iso10137', class: 'residential' }, 'vertical').caution).toMatch(/R = 4 .*from memory/);
+    expect(resolveComfortLimit({ set: 'iso10137', class: 'office' }, 'lateral').caution).toMatch(/horizontal base curve .*from memory/);
+  });
+
+  it('confirmed limits carry no such caution', () => {
+    // Sétra vertical ranges, EN 1990 A2, DG11, ISO office R = 8 on the vertical curve: confirmed (PRODUCT table).
+    expect(resolveComfortLimit({ set: 'setra', class: 'mean' }, 'vertical').caution).not.toMatch(/ranges .*from memory/);
+    for (const c of [{ set: 'en1990', class: 'crowd' }, { set: 'dg11', class: 'office' }, { set: 'iso10137', class: 'office' }] as const) {
+      expect(resolveComfortLimit(c, 'vertical').caution).not.toMatch(/from memory/);
+    }
+    // An engineer's own response factor replaces the unconfirmed residential one.
+    expect(resolveComfortLimit({ set: 'iso10137', class: 'residential', responseFactor: 4 }, 'vertical').caution).not.toMatch(/from memory/);
+  });
+});

@@ -1,13 +1,16 @@
 /**
- * Crowd load models of the Sétra (2006) and HiVoSS (2008) footbridge guides.
+ * Crowd load models of the Sétra (2006) and HiVoSS (2008) footbridge guides (first harmonic; the second is in
+ * loads-second-harmonic.test.ts).
  *  - Sétra/AFGC, "Footbridges: assessment of vibrational behaviour of footbridges under pedestrian loading",
- *    technical guide, October 2006 — traffic classes III (0.5 P/m²) and II (0.8 P/m²), n' = 10.8 √(ξ n), and the
- *    first-harmonic ψ breakpoints 1.0 / 1.7 / 2.1 / 2.6 Hz vertical and 0.3 / 0.5 / 1.1 / 1.3 Hz lateral were read
- *    in an excerpt of the guide; class I (1.0 P/m²) with n' = 1.85 √n is from memory.
- *  - HiVoSS, "Design of footbridges — Guideline" (RFS2-CT-2007-00033, 2008) — traffic classes TC2–TC5
- *    (0.2 / 0.5 / 1.0 / 1.5 P/m²) seen in a published summary; TC1 (15 persons), the ψ breakpoints
- *    1.25 / 1.7 / 2.1 / 2.3 Hz (vertical, longitudinal) and 0.5 / 0.7 / 1.0 / 1.2 Hz (lateral) are from memory.
- *  - Per-person first-harmonic amplitudes 280 N vertical, 140 N longitudinal, 35 N lateral: from memory of both guides.
+ *    technical guide, October 2006 — traffic classes III (0.5 P/m²), II (0.8 P/m²) and I (1.0 P/m²),
+ *    n' = 10.8 √(ξ n) (classes III, II) and 1.85 √n (class I), the first-harmonic ψ breakpoints 1.0 / 1.7 / 2.1 /
+ *    2.6 Hz vertical and 0.3 / 0.5 / 1.1 / 1.3 Hz lateral: confirmed (a reproduction of the guide's tables); the
+ *    linear ramps between the breakpoints are read from the guide's figure.
+ *  - HiVoSS, "Design of footbridges — Guideline" (RFS2-CT-2007-00033, 2008) — TC1 (15 persons on the deck),
+ *    TC2–TC5 (0.2 / 0.5 / 1.0 / 1.5 P/m²), ψ breakpoints 1.25 / 1.7 / 2.1 / 2.3 Hz vertical and 0.5 / 0.7 / 1.0 /
+ *    1.2 Hz lateral: confirmed (research code citing the guide's tables 4-6 and 4-7).
+ *  - Per-person first-harmonic amplitudes 280 N vertical, 140 N longitudinal, 35 N lateral: confirmed (both).
+ *  - The use of the vertical ψ for longitudinal modes (both guides): from memory.
  * The expected numbers below are evaluated by hand from those published formulas.
  */
 import { describe, expect, it } from 'vitest';
@@ -33,7 +36,7 @@ describe('Sétra 2006 ψ (first harmonic)', () => {
   });
 });
 
-describe('HiVoSS 2008 ψ (from memory)', () => {
+describe('HiVoSS 2008 ψ', () => {
   it('vertical: 1.25 / 1.7 / 2.1 / 2.3 Hz', () => {
     expectPsi('hivoss', 'vertical', [[1.25, 0], [1.475, 0.5], [1.9, 1], [2.2, 0.5], [2.3, 0]]);
     expectPsi('hivoss', 'longitudinal', [[2.2, 0.5]]);

@@ -1,7 +1,8 @@
 /**
  * Lateral lock-in: P. Dallard, A. J. Fitzpatrick, A. Flint, S. Le Bourva, A. Low, R. M. Ridsdill Smith and
  * M. Willford, "The London Millennium Footbridge", The Structural Engineer 79(22), 2001:
- * N_L = 8 π ζ f M / k with k ≈ 300 N s/m (the formula as quoted in the PRODUCT spec and in HiVoSS; k from memory).
+ * N_L = 8 π ζ f M / k for a half-sine mode, k ≈ 300 N s/m per person on 0.5–1.0 Hz — confirmed (J. H. G. Macdonald,
+ * Proc. R. Soc. A 465, 2009, quoting the formula and k).
  */
 import { describe, expect, it } from 'vitest';
 import { criticalPedestrians, criticalPedestriansBare } from '../../shared/engine/loads/lateral-lock-in';

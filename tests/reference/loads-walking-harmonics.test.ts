@@ -31,6 +31,27 @@ describe('Bachmann & Ammann (1987) walking and running forces', () => {
     expect(a.modalForceAmplitudeN).toBe(320);
   });
 
+  it('walker on a lateral mode: α½ G / (2 ζ M) with α½ = 0.039, i.e. about 4 % of body weight', () => {
+    // Bachmann & Ammann 3.9 % (Macdonald, Proc. R. Soc. A 465, 2009, table 2); Dallard et al. 2001 take 4 %.
+    // Invented lateral mode at 0.95 Hz (half of a 1.9 Hz pace), M = 60 t, ζ = 0.7 %: 31.2 / 840 = 0.03714 m/s².
+    const structure = { modalMassKg: 60000, frequencyHz: 0.95, dampingRatio: 0.007, direction: 'lateral' as const };
+    const a = assessDesign({ structure, tmds: [], loadCase: { kind: 'walker' } });
+    expect(a.modalForceAmplitudeN).toBeCloseTo(0.039 * 800, 12);
+    const closed = (0.039 * 800) / (2 * 0.007 * 60000);
+    expect(closed).toBeCloseTo(0.03714, 5);
+    expect(a.peakAccelerationMPerS2 / closed).toBeCloseTo(1 / Math.sqrt(1 - 0.007 ** 2), 6);
+    // Within 2.5 % of Dallard's 4 % of body weight.
+    expect(Math.abs(a.modalForceAmplitudeN / (0.04 * 800) - 1)).toBeLessThan(0.026);
+  });
+
+  it('the answer names the values that are from memory (G = 800 N, the pacing band; the jogging factors)', () => {
+    const structure = { modalMassKg: 18000, frequencyHz: 2.1, dampingRatio: 0.005, direction: 'vertical' as const };
+    const walker = assessDesign({ structure, tmds: [], loadCase: { kind: 'walker' } });
+    expect(walker.warnings.find((w) => w.code === 'load-value-from-memory')?.message).toMatch(/800 N/);
+    const jogger = assessDesign({ structure, tmds: [], loadCase: { kind: 'jogger' } });
+    expect(jogger.warnings.find((w) => w.code === 'load-value-from-memory')?.message).toMatch(/jogging load factors/);
+  });
+
   it('jogger on a 5.4 Hz mode: the second harmonic (0.7 G) at 2.7 Hz pacing governs', () => {
     const structure = { modalMassKg: 18000, frequencyHz: 5.4, dampingRatio: 0.005, direction: 'vertical' as const };
     const a = assessDesign({ structure, tmds: [], loadCase: { kind: 'jogger' } });
