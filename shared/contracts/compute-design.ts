@@ -1,5 +1,22 @@
 import { z } from 'zod';
 import { typeError } from './messages';
+import {
+  MAX_FORCE_N,
+  MAX_FREQUENCY_HZ,
+  MIN_FREQUENCY_HZ,
+  checkTotalMassRatio,
+  designWarningSchema,
+  directionSchema,
+  formatNumber,
+  frequencyHzSchema,
+  structureModeSchema,
+  tmdListSchema,
+  tmdSchema,
+  tuningMethodSchema,
+} from './compute-shapes';
+
+export { designWarningSchema, directionSchema, tuningMethodSchema };
+export type { DesignWarning, Direction } from './compute-shapes';
 
 /**
  * Requests and answers of the design compute commands `assess`, `size` and `robustness` (the same JSON through
@@ -11,35 +28,20 @@ const num = () => z.number({ error: typeError('must be a number') }).finite('mus
 const int = () => z.number({ error: typeError('must be a number') }).int('must be a whole number');
 const positive = () => num().positive('must be greater than 0');
 const nonNegative = () => num().min(0, 'must be 0 or greater');
-const fraction = () => num().min(0, 'must be 0 or greater').lt(1, 'must be less than 1');
 const bandHz = () =>
   z
-    .tuple([positive(), positive()], { error: typeError('must be a pair [lowHz, highHz] of numbers') })
+    .tuple([frequencyHzSchema('a frequency of the band'), frequencyHzSchema('a frequency of the band')], { error: typeError('must be a pair [lowHz, highHz] of numbers') })
     .refine(([lo, hi]) => lo <= hi, 'the first frequency must not exceed the second');
 
-export const directionSchema = z.enum(['vertical', 'lateral', 'longitudinal'], {
-  error: typeError('must be "vertical", "lateral" or "longitudinal"'),
-});
-
-export const designStructureSchema = z.strictObject({
-  modalMassKg: positive(),
-  frequencyHz: positive(),
-  /** [0, 1) like the engine's commands; 0 is refused only where a load model needs the structure's damping. */
-  dampingRatio: fraction(),
-  direction: directionSchema.default('vertical'),
-});
-
-export const designTmdSchema = z.strictObject({
-  massKg: positive(),
-  frequencyHz: positive(),
-  dampingRatio: fraction(),
-});
+/** The structure mode and the damper of every command (compute-shapes.ts): the design commands' names for them. */
+export const designStructureSchema = structureModeSchema;
+export const designTmdSchema = tmdSchema;
 
 export const crowdGuideSchema = z.enum(['setra', 'hivoss'], { error: typeError('must be "setra" or "hivoss"') });
 
 const harmonicLoadSchema = z.strictObject({
   kind: z.literal('harmonic'),
-  modalForceAmplitudeN: positive(),
+  modalForceAmplitudeN: positive().max(MAX_FORCE_N, `must be at most ${formatNumber(MAX_FORCE_N)} N (a modal force amplitude)`),
   pacingRangeHz: bandHz(),
 });
 
@@ -80,7 +82,7 @@ const movingWalkerLoadSchema = z.strictObject({
   kind: z.literal('moving-walker'),
   spanM: positive(),
   gait: z.enum(['walking', 'jogging'], { error: typeError('must be "walking" or "jogging"') }).optional(),
-  pacingFrequencyHz: positive().optional(),
+  pacingFrequencyHz: frequencyHzSchema('a pacing frequency').optional(),
   walkingSpeedMPerS: positive().optional(),
   bodyWeightN: positive().optional(),
   timeStepS: positive().optional(),
@@ -141,12 +143,18 @@ export const criteriaSchema = z.preprocess(
 );
 
 export const hardwareOptionsSchema = z.strictObject({
+  /** Number of equal units the moving mass is split over (default 1). */
   unitCount: int().min(1, 'must be at least 1').max(100, 'must be at most 100').optional(),
+  /** Springs in parallel per unit (default 4, one per corner: common practice). */
   springsPerUnit: int().min(1, 'must be at least 1').max(64, 'must be at most 64').optional(),
+  /** Design stroke / computed maximum stroke (default 1.5, our choice). */
   strokeMarginFactor: num().min(1, 'must be at least 1').max(10, 'must be at most 10').optional(),
+  /** Travel the hardware allows, zero to peak, m (warning when the design stroke exceeds it). */
   strokeLimitM: positive().optional(),
+  /** Half-width of the site tuning range as a fraction of the damper frequency (default 0.15). */
   tuningRangeRatio: num().min(0, 'must be 0 or greater').max(0.5, 'must be at most 0.5').optional(),
 });
+export type HardwareOptions = z.infer<typeof hardwareOptionsSchema>;
 
 function checkLoadCaseAgainstStructure(
   value: { structure: { direction: string }; loadCase: Record<string, unknown> & { kind: string } },
@@ -169,25 +177,38 @@ function checkLoadCaseAgainstStructure(
   if (lc.kind === 'lateral' && value.structure.direction !== 'lateral') {
     ctx.addIssue({ code: 'custom', path: ['structure', 'direction'], message: 'must be "lateral" for a lateral load case' });
   }
-  if ((lc.kind === 'floor-walking' || lc.kind === 'jogger' || lc.kind === 'moving-walker') && value.structure.direction !== 'vertical') {
+  if ((lc.kind === 'floor-walking' || lc.kind === 'moving-walker') && value.structure.direction !== 'vertical') {
     ctx.addIssue({ code: 'custom', path: ['structure', 'direction'], message: `must be "vertical" for a ${lc.kind} load case` });
   }
+  // A torsional mode is loaded by the vertical force on its eccentric mode shape; nobody jogs sideways.
+  if (lc.kind === 'jogger' && value.structure.direction !== 'vertical' && value.structure.direction !== 'torsional') {
+    ctx.addIssue({
+      code: 'custom',
+      path: ['structure', 'direction'],
+      message: 'must be "vertical" or "torsional" for a jogger load case (the Bachmann & Ammann set gives no horizontal jogging force)',
+    });
+  }
+}
+
+/** The checks of a structure and its dampers against a load case: the load case's rules and the dampers' total mass. */
+function checkDesignRequest(
+  value: { structure: { direction: string; modalMassKg: number }; tmds?: ReadonlyArray<{ massKg: number }>; loadCase: Record<string, unknown> & { kind: string } },
+  ctx: z.RefinementCtx,
+): void {
+  checkLoadCaseAgainstStructure(value, ctx);
+  if (value.tmds) checkTotalMassRatio({ structure: value.structure, tmds: value.tmds }, ctx);
 }
 
 export const assessRequestSchema = z
   .strictObject({
     structure: designStructureSchema,
-    tmds: z.array(designTmdSchema, { error: typeError('must be an array of dampers') }).max(50, 'must hold at most 50 dampers').default([]),
+    tmds: tmdListSchema().default([]),
     loadCase: loadCaseSchema,
     criteria: criteriaSchema.optional(),
     hardware: hardwareOptionsSchema.optional(),
   })
-  .superRefine(checkLoadCaseAgainstStructure);
+  .superRefine(checkDesignRequest);
 export type AssessRequest = z.infer<typeof assessRequestSchema>;
-
-export const tuningMethodSchema = z.enum(['den-hartog', 'warburton-random', 'ioi-ikeda', 'hinf', 'h2'], {
-  error: typeError('must be "den-hartog", "warburton-random", "ioi-ikeda", "hinf" or "h2"'),
-});
 
 export const sizeRequestSchema = z
   .strictObject({
@@ -202,6 +223,12 @@ export const sizeRequestSchema = z
   .superRefine(checkLoadCaseAgainstStructure);
 export type SizeRequest = z.infer<typeof sizeRequestSchema>;
 
+/**
+ * Largest cells × dampers of one robustness map (each cell is a continuous peak search of a system with every damper):
+ * about 1.3 s on the development machine at the heaviest (see docs/engine.md, "Limits of work").
+ */
+export const MAX_ROBUSTNESS_WORK = 60_000;
+
 const factorList = (what: string) =>
   z
     .array(nonNegative(), { error: typeError(`must be an array of ${what}`) })
@@ -211,13 +238,31 @@ const factorList = (what: string) =>
 export const robustnessRequestSchema = z
   .strictObject({
     structure: designStructureSchema,
-    tmds: z.array(designTmdSchema, { error: typeError('must be an array of dampers') }).min(1, 'must hold one damper').max(50, 'must hold at most 50 dampers'),
+    tmds: tmdListSchema(1),
     loadCase: steadyLoadCaseSchema,
     structureFrequencyFactors: factorList('structure frequency factors').refine((a) => a.every((v) => v > 0), 'every factor must be greater than 0'),
     tmdDampingFactors: factorList('damper damping factors'),
   })
-  .superRefine(checkLoadCaseAgainstStructure)
+  .superRefine(checkDesignRequest)
   .superRefine((value, ctx) => {
+    value.structureFrequencyFactors.forEach((factor, i) => {
+      const f = factor * value.structure.frequencyHz;
+      if (factor > 0 && (f < MIN_FREQUENCY_HZ || f > MAX_FREQUENCY_HZ)) {
+        ctx.addIssue({
+          code: 'custom',
+          path: ['structureFrequencyFactors', i],
+          message: `moves the structure frequency to ${formatNumber(f)} Hz: it must stay between ${formatNumber(MIN_FREQUENCY_HZ)} and ${formatNumber(MAX_FREQUENCY_HZ)} Hz (a natural frequency)`,
+        });
+      }
+    });
+    const cells = value.structureFrequencyFactors.length * value.tmdDampingFactors.length;
+    if (cells * value.tmds.length > MAX_ROBUSTNESS_WORK) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['structureFrequencyFactors'],
+        message: `cells × dampers must be at most ${MAX_ROBUSTNESS_WORK.toLocaleString('en-GB')} (got ${value.structureFrequencyFactors.length} × ${value.tmdDampingFactors.length} cells × ${value.tmds.length} dampers = ${(cells * value.tmds.length).toLocaleString('en-GB')}); use fewer factors or dampers, or split the map into several requests`,
+      });
+    }
     value.tmds.forEach((t, j) => {
       value.tmdDampingFactors.forEach((factor, i) => {
         if (t.dampingRatio * factor >= 1) {
@@ -229,8 +274,6 @@ export const robustnessRequestSchema = z
 export type RobustnessRequest = z.infer<typeof robustnessRequestSchema>;
 
 // ---- answers ----
-
-export const designWarningSchema = z.object({ code: z.string(), message: z.string() });
 
 export const criterionSchema = z.object({
   set: z.string(),
@@ -266,12 +309,15 @@ export const hardwareEntrySchema = z.object({
     ratio: z.number(),
     minFrequencyHz: z.number(),
     maxFrequencyHz: z.number(),
+    /** Spring rate of the whole damper at constant moving mass, for the low and high end. */
     minSpringRateNPerM: z.number(),
     maxSpringRateNPerM: z.number(),
+    /** Moving mass at constant springs for the high and low end (mass blocks). */
     minMovingMassKg: z.number(),
     maxMovingMassKg: z.number(),
   }),
 });
+export type HardwareSheetEntry = z.infer<typeof hardwareEntrySchema>;
 
 export const assessResponseSchema = z.object({
   peakAccelerationMPerS2: z.number(),

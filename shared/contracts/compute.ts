@@ -1,7 +1,26 @@
 import { z } from 'zod';
 import { SYMMETRY_TOLERANCE } from '../engine/linalg';
-import { tuningMethods } from '../engine/types';
 import { typeError } from './messages';
+import {
+  MAX_DIAGONAL_RATIO,
+  MAX_DISPLACEMENT_M,
+  MAX_MASS_KG,
+  MAX_STIFFNESS_N_PER_M,
+  MAX_TIME_S,
+  MAX_VELOCITY_M_PER_S,
+  MIN_MASS_KG,
+  checkTotalMassRatio,
+  formatNumber,
+  frequencyHzSchema,
+  rangeText,
+  structureModeSchema,
+  tmdListSchema,
+  tuningMethodSchema,
+  forceNSchema,
+} from './compute-shapes';
+
+/** The engine's shapes (mode, damper, direction, tuning method, physical ranges), re-exported for the commands' users. */
+export * from './compute-shapes';
 
 /**
  * Requests and answers of the engine's compute commands (`modes`, `tune`, `response`, `free`), the same for the
@@ -16,16 +35,22 @@ export const MAX_POINTS = 100_000;
 export const MAX_FREE_WORK = 200_000_000;
 /** Largest times × DOF of one `free` request (the number of values in the answer). */
 export const MAX_FREE_VALUES = 1_000_000;
-/** Largest number of dampers on one mode in a `response` request. */
-export const MAX_TMDS = 50;
+/**
+ * Largest frequencies × dampers of one `response` request (each damper adds a stroke to every point): about half a
+ * second of work and an answer under 20 MB.
+ */
+export const MAX_RESPONSE_WORK = 400_000;
 /** Relative tolerance of the symmetry check, against the largest entry of the matrix: the engine's own. */
 export const MATRIX_SYMMETRY_TOLERANCE = SYMMETRY_TOLERANCE;
 
 const finite = z.number({ error: typeError('must be a finite number') });
 const positive = finite.gt(0, { error: 'must be greater than 0' });
 const dampingRatio = finite
-  .min(0, { error: 'must be a damping ratio in [0, 1): at least 0' })
+  .min(0, { error: 'must be a damping ratio in [0, 1): 0 or greater' })
   .lt(1, { error: 'must be a damping ratio in [0, 1): less than 1' });
+/** |value| ≤ limit, for entries that may be negative (coupling terms, initial conditions, times). */
+const bounded = (limit: number, unit: string, what: string) =>
+  finite.refine((value) => Math.abs(value) <= limit, { error: `must be between −${formatNumber(limit)} and ${formatNumber(limit)} ${unit} (${what})` });
 
 const matrix = z
   .array(z.array(finite, { error: typeError('must be an array of numbers (a matrix row)') }), { error: typeError('must be an array of rows (a square matrix)') })
@@ -62,18 +87,68 @@ function checkSquareSymmetric(value: number[][], field: string, ctx: Issues): nu
   return n;
 }
 
+/** Refuses entries beyond ±limit, naming the lower-triangle entry (the upper one must equal it). */
+function checkEntryMagnitudes(value: number[][], field: string, limit: number, unit: string, ctx: Issues): void {
+  for (let i = 0; i < value.length; i++) {
+    for (let j = 0; j <= i; j++) {
+      const entry = value[i][j];
+      if (Math.abs(entry) > limit) {
+        ctx.addIssue({ code: 'custom', path: [field, i, j], message: `must be between −${formatNumber(limit)} and ${formatNumber(limit)} ${unit} (an entry of the matrix; got ${entry})` });
+      }
+    }
+  }
+}
+
+/**
+ * The condition of a mass or stiffness matrix: its (non-zero) diagonal entries must lie within MAX_DIAGONAL_RATIO of
+ * each other, else the small ones lose their digits beside the large ones (and a stiff DOF beside a soft one reads
+ * as a rigid-body mode). Names the smallest entry.
+ */
+function checkDiagonalSpread(value: number[][], field: string, unit: string, ctx: Issues): void {
+  let largest = 0;
+  let largestAt = 0;
+  let smallest = Infinity;
+  let smallestAt = 0;
+  value.forEach((row, i) => {
+    const d = row[i];
+    if (!(d > 0)) return;
+    if (d > largest) {
+      largest = d;
+      largestAt = i;
+    }
+    if (d < smallest) {
+      smallest = d;
+      smallestAt = i;
+    }
+  });
+  if (largest > 0 && largest / smallest > MAX_DIAGONAL_RATIO) {
+    ctx.addIssue({
+      code: 'custom',
+      path: [field, smallestAt, smallestAt],
+      message: `must be at least ${formatNumber(largest / MAX_DIAGONAL_RATIO)} ${unit}, 1/${formatNumber(MAX_DIAGONAL_RATIO)} of the largest diagonal entry (${largest} ${unit} at (${largestAt}, ${largestAt})); got ${smallest}: entries spread over more orders of magnitude leave the small ones too few digits for trustworthy modes`,
+    });
+  }
+}
+
 function checkMassAndStiffness(value: { massMatrixKg: number[][]; stiffnessMatrixNPerM: number[][] }, ctx: Issues): number | null {
   const n = checkSquareSymmetric(value.massMatrixKg, 'massMatrixKg', ctx);
   const nk = checkSquareSymmetric(value.stiffnessMatrixNPerM, 'stiffnessMatrixNPerM', ctx);
   if (n !== null) {
     value.massMatrixKg.forEach((row, i) => {
       if (!(row[i] > 0)) ctx.addIssue({ code: 'custom', path: ['massMatrixKg', i, i], message: `must be greater than 0 (a diagonal mass; got ${row[i]})` });
+      else if (row[i] < MIN_MASS_KG || row[i] > MAX_MASS_KG) {
+        ctx.addIssue({ code: 'custom', path: ['massMatrixKg', i, i], message: `must be ${rangeText(MIN_MASS_KG, MAX_MASS_KG, 'kg', 'a diagonal mass')}; got ${row[i]}` });
+      }
     });
+    checkEntryMagnitudes(value.massMatrixKg, 'massMatrixKg', MAX_MASS_KG, 'kg', ctx);
+    checkDiagonalSpread(value.massMatrixKg, 'massMatrixKg', 'kg', ctx);
   }
   if (nk !== null) {
     value.stiffnessMatrixNPerM.forEach((row, i) => {
       if (row[i] < 0) ctx.addIssue({ code: 'custom', path: ['stiffnessMatrixNPerM', i, i], message: `must be at least 0 (a diagonal stiffness; got ${row[i]})` });
     });
+    checkEntryMagnitudes(value.stiffnessMatrixNPerM, 'stiffnessMatrixNPerM', MAX_STIFFNESS_N_PER_M, 'N/m', ctx);
+    checkDiagonalSpread(value.stiffnessMatrixNPerM, 'stiffnessMatrixNPerM', 'N/m', ctx);
   }
   if (n !== null && nk !== null && n !== nk) {
     ctx.addIssue({ code: 'custom', path: ['stiffnessMatrixNPerM'], message: `must be ${n}×${n} like massMatrixKg (got ${nk}×${nk})` });
@@ -96,11 +171,10 @@ export const modeSchema = z.object({
 export const modesResponseSchema = z.object({ modes: z.array(modeSchema) });
 
 // ---------- tune ----------
-export const tuningMethodSchema = z.enum(tuningMethods, { error: typeError(`must be one of ${tuningMethods.join(', ')}`) });
 export const tuneRequestSchema = z.strictObject({
   method: tuningMethodSchema,
   massRatio: positive.max(1, { error: 'must be at most 1 (the damper heavier than the modal mass)' }),
-  structureFrequencyHz: positive,
+  structureFrequencyHz: frequencyHzSchema('a natural frequency', 'must be a finite number'),
   structureDampingRatio: dampingRatio.default(0),
 });
 export const tuneResponseSchema = z.object({
@@ -111,33 +185,28 @@ export const tuneResponseSchema = z.object({
 });
 
 // ---------- response ----------
-export const structureModeSchema = z.strictObject(
-  {
-    modalMassKg: positive,
-    frequencyHz: positive,
-    dampingRatio,
-    /** Accepted so that one structure object serves every command; the response does not depend on it. */
-    direction: z.enum(['vertical', 'lateral', 'longitudinal', 'torsional'], { error: 'must be "vertical", "lateral", "longitudinal" or "torsional"' }).optional(),
-  },
-  { error: typeError('must be an object { modalMassKg, frequencyHz, dampingRatio }') },
-);
-export const tmdSchema = z.strictObject(
-  {
-    massKg: positive,
-    frequencyHz: positive,
-    dampingRatio,
-  },
-  { error: typeError('must be an object { massKg, frequencyHz, dampingRatio }') },
-);
-export const responseRequestSchema = z.strictObject({
-  structure: structureModeSchema,
-  tmds: z.array(tmdSchema, { error: typeError('must be an array of dampers (it may be empty)') }).max(MAX_TMDS, { error: `must have at most ${MAX_TMDS} dampers` }),
-  forceAmplitudeN: positive,
-  frequenciesHz: z
-    .array(positive, { error: typeError('must be an array of frequencies in Hz') })
-    .min(1, { error: 'must have at least one frequency' })
-    .max(MAX_POINTS, { error: `must have at most ${MAX_POINTS} frequencies` }),
-});
+// The structure mode and the damper are those of every command (compute-shapes.ts, re-exported above).
+export const responseRequestSchema = z
+  .strictObject({
+    structure: structureModeSchema,
+    tmds: tmdListSchema(),
+    forceAmplitudeN: forceNSchema('a force amplitude', 'must be a finite number'),
+    frequenciesHz: z
+      .array(frequencyHzSchema('a forcing frequency', 'must be a finite number'), { error: typeError('must be an array of frequencies in Hz') })
+      .min(1, { error: 'must have at least one frequency' })
+      .max(MAX_POINTS, { error: `must have at most ${MAX_POINTS} frequencies` }),
+  })
+  .superRefine((value, ctx) => {
+    checkTotalMassRatio(value, ctx);
+    const work = value.frequenciesHz.length * Math.max(1, value.tmds.length);
+    if (work > MAX_RESPONSE_WORK) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['frequenciesHz'],
+        message: `frequencies × dampers must be at most ${MAX_RESPONSE_WORK.toLocaleString('en-GB')} (got ${value.frequenciesHz.length.toLocaleString('en-GB')} × ${value.tmds.length} = ${work.toLocaleString('en-GB')}); split the frequencies into several requests`,
+      });
+    }
+  });
 export const responsePointSchema = z.object({
   frequencyHz: z.number(),
   structureDisplacementM: z.number(),
@@ -154,10 +223,10 @@ export const freeRequestSchema = z
   .strictObject({
     massMatrixKg: matrix,
     stiffnessMatrixNPerM: matrix,
-    initialDisplacementM: z.array(finite, { error: typeError('must be an array of displacements in m, one per DOF') }),
-    initialVelocityMPerS: z.array(finite, { error: typeError('must be an array of velocities in m/s, one per DOF') }),
+    initialDisplacementM: z.array(bounded(MAX_DISPLACEMENT_M, 'm', 'an initial displacement'), { error: typeError('must be an array of displacements in m, one per DOF') }),
+    initialVelocityMPerS: z.array(bounded(MAX_VELOCITY_M_PER_S, 'm/s', 'an initial velocity'), { error: typeError('must be an array of velocities in m/s, one per DOF') }),
     timesS: z
-      .array(finite, { error: typeError('must be an array of times in s') })
+      .array(bounded(MAX_TIME_S, 's', 'a time'), { error: typeError('must be an array of times in s') })
       .min(1, { error: 'must have at least one time' })
       .max(MAX_POINTS, { error: `must have at most ${MAX_POINTS} times` }),
   })

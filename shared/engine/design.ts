@@ -5,8 +5,8 @@
  * displacement; the verdict compares the peak with the chosen limit and names the set and the limit.
  */
 
-import type { StructureMode, TmdParameters } from './types';
-import type { LoadDirection } from './loads/pedestrian-crowd';
+import type { ModeDirection, StructureMode, TmdParameters } from './types';
+import type { AssessResponse, DesignWarning } from '../contracts/compute-design';
 import { buildLoadEnvelope, LoadCaseError, type LoadEnvelope, type SteadyLoadCase } from './loads/load-envelope';
 import { createModeTmdSystem, type ModeTmdSystem } from './response';
 import { findEnvelopePeak, unboundedBareFrequencyHz, unboundedResonanceHz, type ForceBand } from './loads/response-envelope';
@@ -14,18 +14,15 @@ import { criticalPedestrians, criticalPedestriansBare } from './loads/lateral-lo
 import { dg11PeakAccelerationMPerS2 } from './loads/floor-walking';
 import { gradeComfort, resolveComfortLimit, type ComfortLimit, type CriteriaInput } from './criteria';
 import { buildHardwareEntry, type HardwareOptions, type HardwareSheetEntry } from './hardware';
-import { simulateMovingWalker, type MovingWalkerInput, type MovingWalkerHistory } from './moving-walker';
+import { simulateMovingWalker, type MovingWalkerInput } from './moving-walker';
 
 export interface DesignStructure extends StructureMode {
-  direction: LoadDirection;
+  direction: ModeDirection;
 }
 
 export type DesignLoadCase = SteadyLoadCase | ({ kind: 'moving-walker' } & MovingWalkerInput);
 
-export interface DesignWarning {
-  code: string;
-  message: string;
-}
+export type { DesignWarning };
 
 export interface AssessInput {
   structure: DesignStructure;
@@ -121,7 +118,7 @@ function utilisationOf(
 
 function evaluateCriterion(
   criteria: CriteriaInput,
-  direction: LoadDirection,
+  direction: ModeDirection,
   structureFrequencyHz: number,
   withDampers: { system: ModeTmdSystem; peak: { value: number; frequencyHz: number } },
   bare: { system: ModeTmdSystem; peak: { value: number | null; frequencyHz: number } },
@@ -165,41 +162,8 @@ function evaluateCriterion(
   return answer;
 }
 
-export interface AssessResult {
-  peakAccelerationMPerS2: number;
-  atFrequencyHz: number;
-  /** null when unbounded: ζ = 0 and the structure frequency in the loaded band (warning `bare-structure-unbounded`). */
-  bareStructurePeakAccelerationMPerS2: number | null;
-  bareStructureAtFrequencyHz: number;
-  tmdStrokeM: number[];
-  tmdStrokeAtFrequencyHz: number[];
-  modalForceAmplitudeN: number;
-  equivalentPedestrians?: number;
-  pedestrianCount?: number;
-  massRatio: number;
-  verdict?: 'pass' | 'fail';
-  utilisation?: number;
-  bareStructureVerdict?: 'pass' | 'fail';
-  bareStructureUtilisation?: number | null;
-  criterion?: CriterionAnswer['criterion'];
-  comfortClass?: string;
-  bareStructureComfortClass?: string;
-  loadModel: { kind: string; source: string; bandsHz: Array<[number, number]>; structureFrequencyRangeHz: [number, number] };
-  lockIn?: {
-    coefficientNsPerM: number;
-    expectedPedestrians: number;
-    criticalPedestrians: number;
-    bareStructureCriticalPedestrians: number;
-    lockInExpected: boolean;
-    source: string;
-  };
-  /** formulaPeakAccelerationMPerS2 is null for β = 0 (the formula divides by the damping ratio). */
-  dg11?: { effectiveWeightN: number; constantForceN: number; formulaPeakAccelerationMPerS2: number | null };
-  timeHistory?: MovingWalkerHistory & { bareStructurePeakAccelerationMPerS2: number; bareStructureMaxRunningRms1sMPerS2: number };
-  hardware: HardwareSheetEntry[];
-  warnings: DesignWarning[];
-  caution: string;
-}
+/** The answer of `assess`: the type of its contract (compute-design.ts), not a copy of it. */
+export type AssessResult = AssessResponse;
 
 function strokeWarnings(hardware: readonly HardwareSheetEntry[]): DesignWarning[] {
   const out: DesignWarning[] = [];

@@ -12,53 +12,14 @@
  */
 
 import type { TmdParameters } from './types';
+import type { HardwareOptions, HardwareSheetEntry } from '../contracts/compute-design';
 import { standardGravityMPerS2 } from './loads/floor-walking';
 
-export interface HardwareOptions {
-  /** Number of equal units the moving mass is split over (default 1). */
-  unitCount?: number;
-  /** Springs in parallel per unit (default 4, one per corner: common practice). */
-  springsPerUnit?: number;
-  /** Design stroke / computed maximum stroke (default 1.5, our choice). */
-  strokeMarginFactor?: number;
-  /** Travel the hardware allows, zero to peak, m (warning when the design stroke exceeds it). */
-  strokeLimitM?: number;
-  /** Half-width of the site tuning range as a fraction of the damper frequency (default 0.15). */
-  tuningRangeRatio?: number;
-}
-
-export interface HardwareSheetEntry {
-  movingMassKg: number;
-  frequencyHz: number;
-  dampingRatio: number;
-  springRateNPerM: number;
-  damperCoefficientNsPerM: number;
-  staticDeflectionM: number;
-  maximumStrokeM: number;
-  strokeMarginFactor: number;
-  designStrokeM: number;
-  strokeLimitM: number | null;
-  strokeWithinLimit: boolean | null;
-  unitCount: number;
-  springsPerUnit: number;
-  perUnit: {
-    movingMassKg: number;
-    springRateNPerM: number;
-    springRatePerSpringNPerM: number;
-    damperCoefficientNsPerM: number;
-  };
-  tuningRange: {
-    ratio: number;
-    minFrequencyHz: number;
-    maxFrequencyHz: number;
-    /** Spring rate of the whole damper at constant moving mass, for the low and high end. */
-    minSpringRateNPerM: number;
-    maxSpringRateNPerM: number;
-    /** Moving mass at constant springs for the high and low end (mass blocks). */
-    minMovingMassKg: number;
-    maxMovingMassKg: number;
-  };
-}
+/**
+ * Options of the hardware numbers (unit count, springs per unit, stroke margin and limit, tuning range) and one
+ * damper's entry of the hardware sheet: the types of their contracts (compute-design.ts).
+ */
+export type { HardwareOptions, HardwareSheetEntry };
 
 export function springRateNPerM(massKg: number, frequencyHz: number): number {
   const w = 2 * Math.PI * frequencyHz;

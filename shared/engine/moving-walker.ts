@@ -10,6 +10,7 @@
  */
 
 import type { StructureMode, TmdParameters } from './types';
+import type { AssessResponse } from '../contracts/compute-design';
 import { buildModeTmdMatrices } from './matrices';
 import { integrateNewmark } from './newmark';
 import { bachmannAmmannBodyWeightN, findGaitLoadModel, type Gait } from './loads/walking-harmonics';
@@ -27,33 +28,28 @@ export interface MovingWalkerInput {
   trailingTimeS?: number;
 }
 
-export interface MovingWalkerHistory {
-  timeStepS: number;
-  timesS: number[];
-  structureAccelerationMPerS2: number[];
-  runningRms1sMPerS2: number[];
-  peakAccelerationMPerS2: number;
-  maxRunningRms1sMPerS2: number;
-  /** Largest |x_j − x_s| of each damper over the history, m. */
-  maxTmdStrokeM: number[];
-  /**
-   * Steady state of the governing harmonic at the antinode; null when it is unbounded (no damping anywhere and the
-   * harmonic at a natural frequency). The time history of one crossing stays finite either way.
-   */
-  steadyStatePeakAccelerationMPerS2: number | null;
-  /** Force amplitude α_h G of the harmonic that governs the steady state, N. */
-  governingHarmonicForceN: number;
-  /** Force frequency of that harmonic, h × f_p, Hz. */
-  governingHarmonicFrequencyHz: number;
-  /** Structure frequencies the gait's harmonics cover, Hz. */
-  modelRangeHz: [number, number];
-  pacingFrequencyHz: number;
-  walkingSpeedMPerS: number;
-  crossingTimeS: number;
-}
+/**
+ * The time history of one crossing: the answer's `timeHistory` without the bare structure's figures, the type of its
+ * contract (compute-design.ts). `steadyStatePeakAccelerationMPerS2` is null when the steady state of the governing
+ * harmonic is unbounded (no damping anywhere and the harmonic at a natural frequency); the crossing stays finite.
+ */
+export type MovingWalkerHistory = Omit<
+  NonNullable<AssessResponse['timeHistory']>,
+  'bareStructurePeakAccelerationMPerS2' | 'bareStructureMaxRunningRms1sMPerS2'
+>;
 
 export const strideLengthM: Readonly<Record<Gait, number>> = { walking: 0.75, jogging: 1.25 };
-const maxSteps = 400_000;
+/** Most time steps of one crossing: the answer carries three values a step (times, acceleration, r.m.s.), under 20 MB. */
+export const MAX_WALKER_STEPS = 300_000;
+/**
+ * Largest time steps × (1 + dampers)² of one crossing: each Newmark step costs about (1 + dampers)² operations; about
+ * 1.5 s on the development machine at the limit (see docs/engine.md, "Limits of work").
+ */
+export const MAX_WALKER_WORK = 200_000_000;
+/** Fewest time steps per period of the fastest motion (a coupled natural frequency or a harmonic of the pace). */
+export const MIN_STEPS_PER_PERIOD = 20;
+/** Steps per period of the fastest motion when no time step is given. */
+export const DEFAULT_STEPS_PER_PERIOD = 40;
 
 /** The pacing frequency that puts a harmonic of the gait on the structure frequency (lowest harmonic first). */
 export function resonantPacingFrequencyHz(gait: Gait, structureFrequencyHz: number): number {
@@ -80,10 +76,27 @@ export function simulateMovingWalker(structure: StructureMode, tmds: readonly Tm
   const trailingTimeS = input.trailingTimeS ?? 0;
   const system = createModeTmdSystem(structure, tmds);
   const highestFrequencyHz = Math.max(...system.coupledFrequenciesHz, ...model.harmonics.map((h) => h.frequencyMultiple * pacingFrequencyHz));
-  const timeStepS = input.timeStepS ?? 1 / (40 * highestFrequencyHz);
+  const coarsestStepS = 1 / (MIN_STEPS_PER_PERIOD * highestFrequencyHz);
+  if (input.timeStepS !== undefined && !(input.timeStepS <= coarsestStepS)) {
+    throw new LoadCaseError(
+      'loadCase.timeStepS',
+      `must be finer than the motion: at most 1/(${MIN_STEPS_PER_PERIOD} × ${highestFrequencyHz.toPrecision(4)} Hz) = ${coarsestStepS.toPrecision(3)} s, ${MIN_STEPS_PER_PERIOD} steps per period of the highest frequency involved (a coupled natural frequency or a harmonic of the pace; got ${input.timeStepS} s)`,
+    );
+  }
+  const timeStepS = input.timeStepS ?? 1 / (DEFAULT_STEPS_PER_PERIOD * highestFrequencyHz);
   const stepCount = Math.ceil((crossingTimeS + trailingTimeS) / timeStepS);
-  if (stepCount > maxSteps) {
-    throw new LoadCaseError('loadCase.spanM', `the crossing needs ${stepCount} time steps, more than ${maxSteps}: shorten the span or lengthen timeStepS`);
+  if (!(stepCount <= MAX_WALKER_STEPS)) {
+    throw new LoadCaseError(
+      input.timeStepS !== undefined ? 'loadCase.timeStepS' : 'loadCase.spanM',
+      `the crossing (${crossingTimeS.toPrecision(4)} s at ${speedMPerS.toPrecision(3)} m/s, plus ${trailingTimeS} s after it) needs ${stepCount} time steps of ${timeStepS.toPrecision(3)} s, more than ${MAX_WALKER_STEPS.toLocaleString('en-GB')}: shorten the span or the trailing time, or lengthen timeStepS`,
+    );
+  }
+  const dofCount = 1 + tmds.length;
+  if (stepCount * dofCount * dofCount > MAX_WALKER_WORK) {
+    throw new LoadCaseError(
+      'tmds',
+      `time steps × (1 + dampers)² must be at most ${MAX_WALKER_WORK.toLocaleString('en-GB')} (got ${stepCount} × ${dofCount}² = ${(stepCount * dofCount * dofCount).toLocaleString('en-GB')}): use fewer dampers (equal dampers can be lumped into one) or a shorter span`,
+    );
   }
   const harmonics = model.harmonics;
   const pacingRadPerS = 2 * Math.PI * pacingFrequencyHz;

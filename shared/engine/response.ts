@@ -10,7 +10,7 @@
  * The kernel works on Float64Arrays and allocates nothing per frequency point.
  */
 import type { StructureMode, TmdParameters } from './types';
-import { checkDampingRatio, checkPositive } from './linalg';
+import { checkStructureMode, checkTmdParameters, withPathPrefix } from './input-paths';
 import { symmetricEigen } from './symmetric-eigen';
 import { maximiseOnInterval } from './peak';
 
@@ -69,9 +69,7 @@ const HINT_DAMPING_RATIO_CEILING = 0.3;
 export function createModeTmdSystem(structure: StructureMode, tmds: readonly TmdParameters[]): ModeTmdSystem {
   if (structure === null || typeof structure !== 'object') throw new TypeError('structure: must be an object');
   if (!Array.isArray(tmds)) throw new TypeError('tmds: must be an array');
-  checkPositive(structure.modalMassKg, 'structure.modalMassKg');
-  checkPositive(structure.frequencyHz, 'structure.frequencyHz');
-  checkDampingRatio(structure.dampingRatio, 'structure.dampingRatio');
+  withPathPrefix('structure', () => checkStructureMode(structure));
   const n = tmds.length;
   const tmdMassKg = new Float64Array(n);
   const tmdStiffnessNPerM = new Float64Array(n);
@@ -80,9 +78,7 @@ export function createModeTmdSystem(structure: StructureMode, tmds: readonly Tmd
   for (let j = 0; j < n; j++) {
     const tmd = tmds[j];
     if (tmd === null || typeof tmd !== 'object') throw new TypeError(`tmds.${j}: must be an object`);
-    checkPositive(tmd.massKg, `tmds.${j}.massKg`);
-    checkPositive(tmd.frequencyHz, `tmds.${j}.frequencyHz`);
-    checkDampingRatio(tmd.dampingRatio, `tmds.${j}.dampingRatio`);
+    withPathPrefix(`tmds.${j}`, () => checkTmdParameters(tmd));
     const omega = TWO_PI * tmd.frequencyHz;
     tmdMassKg[j] = tmd.massKg;
     tmdStiffnessNPerM[j] = tmd.massKg * (omega * omega);

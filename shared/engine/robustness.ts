@@ -6,6 +6,7 @@
  */
 
 import type { TmdParameters } from './types';
+import type { RobustnessResponse } from '../contracts/compute-design';
 import { buildLoadEnvelope, type SteadyLoadCase } from './loads/load-envelope';
 import { findEnvelopePeak, unboundedBareFrequencyHz } from './loads/response-envelope';
 import { createModeTmdSystem } from './response';
@@ -19,14 +20,8 @@ export interface RobustnessInput {
   tmdDampingFactors: readonly number[];
 }
 
-export interface RobustnessResult {
-  structureFrequencyFactors: number[];
-  tmdDampingFactors: number[];
-  peakAccelerationMPerS2: number[][];
-  /** null where unbounded (ζ = 0 and the row's structure frequency in the loaded band). */
-  bareStructurePeakAccelerationMPerS2: Array<number | null>;
-  warnings: DesignWarning[];
-}
+/** The answer of `robustness`: the type of its contract (compute-design.ts). */
+export type RobustnessResult = RobustnessResponse;
 
 export function mapRobustness(input: RobustnessInput): RobustnessResult {
   const { structure, tmds, loadCase } = input;

@@ -9,6 +9,7 @@
  */
 
 import type { StructureMode, TmdParameters, TuningMethod } from './types';
+import type { SizeResponse } from '../contracts/compute-design';
 import { tuneDenHartog, tuneH2, tuneHInfinity, tuneIoiIkeda, tuneWarburtonRandom, type TuningRatios } from './tuning';
 import { buildLoadEnvelope, LoadCaseError, type SteadyLoadCase } from './loads/load-envelope';
 import {
@@ -19,7 +20,7 @@ import {
   type ForceBand,
 } from './loads/response-envelope';
 import { createModeTmdSystem } from './response';
-import { buildHardwareEntry, type HardwareOptions, type HardwareSheetEntry } from './hardware';
+import { buildHardwareEntry, type HardwareOptions } from './hardware';
 import {
   bareUnboundedWarning,
   designCaution,
@@ -40,22 +41,8 @@ export interface SizeInput {
   hardware?: HardwareOptions;
 }
 
-export interface SizeResult {
-  massRatio: number;
-  tmd: { massKg: number; frequencyHz: number; dampingRatio: number } | null;
-  worstPeakAccelerationMPerS2: number;
-  worstAtStructureFrequencyHz: number;
-  /** null when unbounded (ζ = 0 and a structure frequency of the band in the loaded band). */
-  bareStructureWorstPeakAccelerationMPerS2: number | null;
-  structureFrequencyRangeHz: [number, number];
-  peakAccelerationLimitMPerS2: number;
-  method: TuningMethod;
-  tmdStrokeM: number | null;
-  hardware: HardwareSheetEntry | null;
-  evaluations: number;
-  warnings: DesignWarning[];
-  caution: string;
-}
+/** The answer of `size`: the type of its contract (compute-design.ts), not a copy of it. */
+export type SizeResult = SizeResponse;
 
 /** Tuning ratios of one damper by a method of the engine (adapter over shared/engine/tuning). */
 export function tuningRatios(method: TuningMethod, massRatio: number, structureDampingRatio: number): TuningRatios {

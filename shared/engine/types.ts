@@ -3,6 +3,13 @@
  * Every damping ratio is referred to the frequency of the oscillator it belongs to.
  */
 
+/**
+ * Directions a structure mode can move in: the one list for every command and stored mode. A torsional mode
+ * (a deck twisting about its axis) is checked with the horizontal comfort limits (EN 1990 A2.4.3.2).
+ */
+export const modeDirections = ['vertical', 'lateral', 'longitudinal', 'torsional'] as const;
+export type ModeDirection = (typeof modeDirections)[number];
+
 /** One structural mode, modal mass for the mode shape scaled to 1 at the damper's position. */
 export interface StructureMode {
   modalMassKg: number;
