@@ -4,9 +4,23 @@
  */
 import { count } from 'drizzle-orm';
 import { hashPassword } from '../auth/password';
+import {
+  createComfortCriteriaSchema,
+  createLoadCaseSchema,
+  createLumpedModelSchema,
+  createModeSchema,
+  createStructureSchema,
+  type CreateComfortCriteriaInput,
+  type CreateLoadCaseInput,
+  type CreateLumpedModelInput,
+  type CreateModeInput,
+  type CreateStructureInput,
+} from '../../shared/contracts/model';
 import type { Role } from '../../shared/contracts/roles';
+import { deriveModeValues } from '../modules/modes/modes.service';
 import type { Database } from './client';
-import { memberships, organisations, projectMembers, projects, users } from './schema';
+import type { Executor } from './executor';
+import { comfortCriteria, loadCases, lumpedModels, memberships, organisations, projectMembers, projects, structureModes, structures, users } from './schema';
 
 export const demoPassword = 'stillspan-demo';
 
@@ -40,6 +54,165 @@ export const demoProjects = [
   },
 ];
 
+/**
+ * The structural model of each demo project: invented structures, modes, load cases and comfort criteria (every number
+ * is made up for the demo, chosen only to be plausible). A mode's `source` names a lumped model by its position in
+ * `models` (`model: 0`); the seed puts in its id. The beam-derived and model-derived numbers are derived by the
+ * server's own code, as if the engineer had entered the source.
+ */
+interface DemoModel {
+  structure: CreateStructureInput;
+  models: CreateLumpedModelInput[];
+  modes: (Omit<CreateModeInput, 'source'> & { source?: CreateModeInput['source'] | { kind: 'lumped-model'; model: number; modeNumber: number; dofIndex: number } })[];
+  loadCases: CreateLoadCaseInput[];
+  comfortCriteria: CreateComfortCriteriaInput[];
+}
+
+// Invented footbridge girder: 46 m simply supported, EI 1.18e10 N m², 1800 kg/m (about 1.9 Hz, modal mass about 41 t).
+const footbridgeBeam = { lengthM: 46, bendingStiffnessNM2: 1.18e10, massPerLengthKgPerM: 1800 };
+const footbridgeDeckAreaM2 = 46 * 3.2;
+
+export const demoStructuralModels: Record<(typeof demoProjects)[number]['kind'], DemoModel> = {
+  footbridge: {
+    structure: {
+      name: 'Main span',
+      kind: 'footbridge-span',
+      spanM: 46,
+      widthM: 3.2,
+      deckAreaM2: footbridgeDeckAreaM2,
+      notes: 'Invented demo structure: single-span steel box girder on elastomeric bearings.',
+    },
+    models: [
+      {
+        // The invented girder lumped at its quarter points (mass mL/4 each; stiffness from the beam's flexibility there).
+        name: 'Girder lumped at quarter points (invented)',
+        massMatrixKg: [
+          [20_700, 0, 0],
+          [0, 20_700, 0],
+          [0, 0, 20_700],
+        ],
+        stiffnessMatrixNPerM: [
+          [7.648e7, -7.315e7, 2.993e7],
+          [-7.315e7, 1.064e8, -7.315e7],
+          [2.993e7, -7.315e7, 7.648e7],
+        ],
+        dofLabels: ['quarter span', 'midspan', 'three-quarter span'],
+      },
+    ],
+    modes: [
+      {
+        label: 'First vertical (FE model, invented)',
+        direction: 'vertical',
+        frequencyHz: 1.87,
+        modalMassKg: 42_500,
+        dampingRatio: 0.005,
+        modeShapeMean: 0.63,
+      },
+      {
+        label: 'First lateral (FE model, invented)',
+        direction: 'lateral',
+        frequencyHz: 0.92,
+        modalMassKg: 44_000,
+        dampingRatio: 0.006,
+        modeShapeMean: 0.63,
+      },
+      {
+        label: 'First vertical (beam estimate)',
+        direction: 'vertical',
+        dampingRatio: 0.005,
+        source: { kind: 'beam', support: 'simply-supported', ...footbridgeBeam },
+      },
+      {
+        label: 'First vertical (lumped model, damper at midspan)',
+        direction: 'vertical',
+        dampingRatio: 0.005,
+        source: { kind: 'lumped-model', model: 0, modeNumber: 1, dofIndex: 1 },
+      },
+    ],
+    loadCases: [
+      { name: 'Crowd, Sétra class II', spec: { kind: 'crowd', guide: 'setra', trafficClass: 'II', deckAreaM2: footbridgeDeckAreaM2 } },
+      { name: 'Single walker', spec: { kind: 'walker' } },
+      { name: 'Lateral crowd, HiVoSS TC3', spec: { kind: 'lateral', guide: 'hivoss', trafficClass: 'TC3', deckAreaM2: footbridgeDeckAreaM2 } },
+    ],
+    comfortCriteria: [{ name: 'Sétra mean comfort', spec: { set: 'setra', class: 'mean' } }],
+  },
+  floor: {
+    structure: {
+      name: 'Bay C4',
+      kind: 'floor-bay',
+      spanM: 13.5,
+      widthM: 9,
+      deckAreaM2: 121.5,
+      notes: 'Invented demo structure: composite slab on long-span secondary beams at 3 m centres.',
+    },
+    models: [],
+    modes: [
+      {
+        label: 'First vertical (FE model, invented)',
+        direction: 'vertical',
+        frequencyHz: 5.6,
+        modalMassKg: 28_000,
+        dampingRatio: 0.03,
+      },
+      {
+        label: 'Secondary beam (beam estimate)',
+        direction: 'vertical',
+        dampingRatio: 0.03,
+        source: { kind: 'beam', support: 'simply-supported', lengthM: 13.5, bendingStiffnessNM2: 4.4e8, massPerLengthKgPerM: 1050 },
+      },
+    ],
+    loadCases: [{ name: 'Floor walking (DG11)', spec: { kind: 'floor-walking' } }],
+    comfortCriteria: [{ name: 'DG11 office', spec: { set: 'dg11', class: 'office' } }],
+  },
+};
+
+/** Seeds one project's structural model through the same contract checks and derivations as the API. */
+async function seedStructuralModel(tx: Executor, organisationId: string, projectId: string, createdBy: string, demo: DemoModel): Promise<void> {
+  const [structure] = await tx
+    .insert(structures)
+    .values({ ...createStructureSchema.parse(demo.structure), projectId, createdBy })
+    .returning();
+  const scope = { organisationId, projectId, structureId: structure.id };
+  const modelIds: string[] = [];
+  for (const model of demo.models) {
+    const input = createLumpedModelSchema.parse(model);
+    const [row] = await tx
+      .insert(lumpedModels)
+      .values({ ...input, dofLabels: input.dofLabels ?? null, structureId: structure.id, createdBy })
+      .returning();
+    modelIds.push(row.id);
+  }
+  for (const mode of demo.modes) {
+    let source: CreateModeInput['source'];
+    if (mode.source && 'model' in mode.source) {
+      const { model, ...rest } = mode.source;
+      source = { ...rest, modelId: modelIds[model] };
+    } else {
+      source = mode.source;
+    }
+    const input = createModeSchema.parse({ ...mode, source });
+    const derived = await deriveModeValues(tx, scope, input.source);
+    await tx.insert(structureModes).values({
+      structureId: structure.id,
+      createdBy,
+      label: input.label,
+      direction: input.direction,
+      frequencyHz: derived?.frequencyHz ?? input.frequencyHz!,
+      modalMassKg: derived?.modalMassKg ?? input.modalMassKg!,
+      dampingRatio: input.dampingRatio,
+      modeShapeMean: derived?.modeShapeMean ?? input.modeShapeMean ?? null,
+      source: input.source,
+      lumpedModelId: derived?.lumpedModelId ?? null,
+    });
+  }
+  for (const loadCase of demo.loadCases) {
+    await tx.insert(loadCases).values({ ...createLoadCaseSchema.parse(loadCase), projectId, createdBy });
+  }
+  for (const criteria of demo.comfortCriteria) {
+    await tx.insert(comfortCriteria).values({ ...createComfortCriteriaSchema.parse(criteria), projectId, createdBy });
+  }
+}
+
 /** True when the database holds no organisation yet. */
 export async function databaseIsEmpty(db: Database): Promise<boolean> {
   const [row] = await db.select({ n: count() }).from(organisations);
@@ -63,7 +236,8 @@ export async function seedDemoIfEmpty(db: Database): Promise<boolean> {
     const rows = await tx
       .insert(projects)
       .values(demoProjects.map((project) => ({ ...project, organisationId: organisation.id, createdBy: engineerId })))
-      .returning({ id: projects.id });
+      .returning({ id: projects.id, kind: projects.kind });
+    for (const project of rows) await seedStructuralModel(tx, organisation.id, project.id, engineerId, demoStructuralModels[project.kind]);
     const team = ['engineer@demo.stillspan.test', 'owner@demo.stillspan.test', 'fabricator@demo.stillspan.test'].map((email) => idByEmail.get(email)!);
     await tx.insert(projectMembers).values(rows.flatMap((project) => team.map((userId) => ({ projectId: project.id, userId }))));
   });
