@@ -94,3 +94,11 @@ describe('limits from memory say so in the verdict', () => {
     expect(resolveComfortLimit({ set: 'iso10137', class: 'residential', responseFactor: 4 }, 'vertical').caution).not.toMatch(/from memory/);
   });
 });
+
+describe('frequency ranges where the guides ask for a check', () => {
+  it('Sétra reaches 5 Hz vertical (its range 3, second harmonic) and HiVoSS 4.6 Hz', () => {
+    // Sétra 2006 range 3 is 2.6–5 Hz (confirmed); HiVoSS 2008 second-harmonic ψ ends at 4.6 Hz (confirmed).
+    expect(resolveComfortLimit({ set: 'setra', class: 'mean' }, 'vertical').applicableRangeHz).toEqual([1.0, 5.0]);
+    expect(resolveComfortLimit({ set: 'hivoss', class: 'CL2' }, 'vertical').applicableRangeHz).toEqual([1.25, 4.6]);
+  });
+});

@@ -146,7 +146,9 @@ export function resolveComfortLimit(criteria: CriteriaInput, direction: LoadDire
         set: 'setra', class: criteria.class, label: `Sétra ${row.label}, ${horizontal ? 'horizontal' : 'vertical'} ≤ ${value} m/s²`,
         source: horizontal ? `${setraSource} (lateral ranges from memory)` : setraSource,
         limitMPerS2: constant(value), frequencyDependent: false,
-        applicableRangeHz: horizontal ? [0.3, 1.3] : [1.0, 2.6],
+        // Sétra's frequency ranges 1–3: vertical 1.0–5 Hz (range 3, 2.6–5 Hz, for its second-harmonic case),
+        // lateral 0.3–2.5 Hz (the lateral range 3 from memory).
+        applicableRangeHz: horizontal ? [0.3, 2.5] : [1.0, 5.0],
         caution: horizontal
           ? `${footbridgeCaution} ${lockInAdvice} ${fromMemoryCaution('The Sétra lateral comfort ranges 0.15 / 0.3 / 0.8 m/s² and the 0.10 m/s² lock-in advice')}`
           : `${footbridgeCaution} ${lockInAdvice} ${fromMemoryCaution('That 0.10 m/s² advice')}`,
@@ -159,7 +161,8 @@ export function resolveComfortLimit(criteria: CriteriaInput, direction: LoadDire
       return {
         set: 'hivoss', class: criteria.class, label: `HiVoSS ${row.label}, ${horizontal ? 'horizontal' : 'vertical'} ≤ ${value} m/s²`,
         source: `${hivossSource} (bands from memory)`, limitMPerS2: constant(value), frequencyDependent: false,
-        applicableRangeHz: horizontal ? [0.5, 1.2] : [1.25, 2.3],
+        // HiVoSS critical ranges: vertical 1.25–2.3 Hz and, for the second harmonic, up to 4.6 Hz; lateral 0.5–1.2 Hz.
+        applicableRangeHz: horizontal ? [0.5, 1.2] : [1.25, 4.6],
         caution: `${footbridgeCaution} ${fromMemoryCaution(`The HiVoSS comfort-class bands (vertical 0.5 / 1.0 / 2.5, lateral 0.1 / 0.3 / 0.8 m/s²)`)}`,
       };
     }

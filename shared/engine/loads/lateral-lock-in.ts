@@ -16,6 +16,8 @@ import type { StructureMode, TmdParameters } from '../types';
 
 /** Lateral force coefficient per pedestrian, N s/m, on 0.5–1.0 Hz (Dallard et al. 2001; confirmed via Macdonald 2009). */
 export const dallardLateralCoefficientNsPerM = 300;
+/** The lateral-mode frequencies that coefficient was found for, Hz (Dallard et al. 2001; confirmed via Macdonald 2009). */
+export const dallardCoefficientRangeHz = [0.5, 1.0] as const;
 
 /** N_L = 8 π ζ f M / k for the bare mode. */
 export function criticalPedestriansBare(structure: StructureMode, coefficientNsPerM = dallardLateralCoefficientNsPerM): number {

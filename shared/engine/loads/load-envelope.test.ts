@@ -62,6 +62,14 @@ describe('crowd: harmonic 1 by default, harmonic 2 on request', () => {
     expect(() => buildLoadEnvelope(vertical, { kind: 'crowd', guide: 'setra', densityPerM2: 0.8, deckAreaM2: 400, harmonic: 2 })).not.toThrow();
   });
 
+  it('the lateral case outside 0.5–1.0 Hz says that k = 300 N s/m is extrapolated (Dallard et al. 2001)', () => {
+    const high = { ...lateral, frequencyHz: 1.9 };
+    expect(codes(high, { kind: 'lateral', guide: 'setra', trafficClass: 'II', deckAreaM2: 400, harmonic: 2 })).toContain('lock-in-coefficient-range');
+    expect(codes(lateral, { kind: 'lateral', guide: 'setra', trafficClass: 'II', deckAreaM2: 400 })).not.toContain('lock-in-coefficient-range');
+    expect(codes(high, { kind: 'lateral', guide: 'setra', trafficClass: 'II', deckAreaM2: 400, harmonic: 2, lockInCoefficientNsPerM: 150 }))
+      .not.toContain('lock-in-coefficient-range');
+  });
+
   it('longitudinal modes carry the caution that the vertical ψ is used for them', () => {
     const mode = { ...vertical, frequencyHz: 1.9, direction: 'longitudinal' as const };
     expect(codes(mode, { kind: 'crowd', guide: 'hivoss', densityPerM2: 0.5, deckAreaM2: 400 })).toContain('load-value-from-memory');

@@ -34,7 +34,7 @@ import {
   dg11StepFrequencyRangeHz,
   standardGravityMPerS2,
 } from './floor-walking';
-import { dallardLateralCoefficientNsPerM } from './lateral-lock-in';
+import { dallardCoefficientRangeHz, dallardLateralCoefficientNsPerM } from './lateral-lock-in';
 import type { ForceBand } from './response-envelope';
 
 export interface EnvelopeStructure {
@@ -238,6 +238,16 @@ export function buildLoadEnvelope(structure: EnvelopeStructure, loadCase: Steady
         warnings.push({
           code: 'second-harmonic-range',
           message: `the structure frequency ${structure.frequencyHz.toPrecision(4)} Hz lies in the ${guideNames[guide]} second-harmonic range ${second.psi.zeroBelowHz}–${second.psi.zeroAboveHz} Hz, where the first harmonic does not load it: assess the crowd with harmonic 2`,
+        });
+      }
+      if (
+        loadCase.kind === 'lateral' &&
+        loadCase.lockInCoefficientNsPerM === undefined &&
+        (structure.frequencyHz < dallardCoefficientRangeHz[0] || structure.frequencyHz > dallardCoefficientRangeHz[1])
+      ) {
+        warnings.push({
+          code: 'lock-in-coefficient-range',
+          message: `the lock-in coefficient k = ${dallardLateralCoefficientNsPerM} N s/m per person is Dallard et al.'s value for lateral modes of ${dallardCoefficientRangeHz[0]}–${dallardCoefficientRangeHz[1]} Hz; at ${structure.frequencyHz.toPrecision(4)} Hz the critical number of pedestrians is an extrapolation (give lockInCoefficientNsPerM if a value for this frequency is known)`,
         });
       }
       if (model.forceDirection === 'longitudinal') {
