@@ -70,4 +70,17 @@ describe('calc assess / size / robustness', () => {
     expect(error.issues[0].path).toBe('structure.dampingRatio');
     expect(error.issues[0].message).toMatch(/10\.8 √\(ζ n\)/);
   }, 30_000);
+
+  it('the second harmonic: a harmonic other than 1 or 2 and a Sétra class outside II and I are refused by field', () => {
+    const wrong = calc('assess', { structure, tmds: [], loadCase: { ...crowd, harmonic: 3 } });
+    expect(wrong.status).toBe(2);
+    const wrongIssue = JSON.parse(wrong.stderr.trim().split('\n').at(-1) as string).error.issues[0];
+    expect(wrongIssue.path).toBe('loadCase.harmonic');
+    // Sétra 2006 applies its second-harmonic case 3 to traffic classes II and I only.
+    const classIII = calc('assess', { structure: { ...structure, frequencyHz: 3.8 }, tmds: [], loadCase: { kind: 'crowd', guide: 'setra', trafficClass: 'III', deckAreaM2: 300, harmonic: 2 } });
+    expect(classIII.status).toBe(2);
+    const issue = JSON.parse(classIII.stderr.trim().split('\n').at(-1) as string).error.issues[0];
+    expect(issue.path).toBe('loadCase.trafficClass');
+    expect(issue.message).toMatch(/classes II and I only/);
+  }, 30_000);
 });
