@@ -53,3 +53,28 @@ export function formatDateTime(iso: string): string {
   const date = new Date(iso);
   return Number.isNaN(date.getTime()) ? iso : dateTimeFormat.format(date);
 }
+
+const significantFormats = new Map<number, Intl.NumberFormat>();
+
+/** A number to `significant` significant digits, grouped in thousands ("45,000", "1.873", "0.00512"). */
+export function formatNumber(value: number, significant = 4): string {
+  if (!Number.isFinite(value)) return value > 0 ? '∞' : value < 0 ? '−∞' : '—';
+  const magnitude = Math.abs(value);
+  if (magnitude !== 0 && (magnitude < 1e-4 || magnitude >= 1e12)) return value.toExponential(significant - 1).replace('-', '−');
+  let format = significantFormats.get(significant);
+  if (!format) {
+    format = new Intl.NumberFormat('en-GB', { maximumSignificantDigits: significant });
+    significantFormats.set(significant, format);
+  }
+  return format.format(value).replace('-', '−');
+}
+
+/** A number with its SI unit: "1.873 Hz", "45,000 kg". */
+export function formatQuantity(value: number, unit: string, significant = 4): string {
+  return `${formatNumber(value, significant)} ${unit}`;
+}
+
+/** A ratio as a percentage: 0.006 → "0.6 %". */
+export function formatPercent(ratio: number, significant = 3): string {
+  return `${formatNumber(ratio * 100, significant)} %`;
+}

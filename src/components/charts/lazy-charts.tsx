@@ -1,0 +1,25 @@
+/**
+ * The plots load on demand (Chart.js is the client's largest library), each behind a quiet placeholder, so the pages
+ * without plots stay light.
+ */
+import { lazy, Suspense, type ComponentProps } from 'react';
+import { Loading } from '../ui/loading';
+
+const ModeShapeChartLazy = lazy(() => import('./mode-shape-chart'));
+const TimeHistoryChartLazy = lazy(() => import('./time-history-chart'));
+
+export function ModeShapeChart(props: ComponentProps<typeof ModeShapeChartLazy>) {
+  return (
+    <Suspense fallback={<Loading label="Loading the plot…" />}>
+      <ModeShapeChartLazy {...props} />
+    </Suspense>
+  );
+}
+
+export function TimeHistoryChart(props: ComponentProps<typeof TimeHistoryChartLazy>) {
+  return (
+    <Suspense fallback={<Loading label="Loading the plot…" />}>
+      <TimeHistoryChartLazy {...props} />
+    </Suspense>
+  );
+}

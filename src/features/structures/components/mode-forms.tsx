@@ -1,0 +1,309 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useState, type ReactNode } from 'react';
+import { get, useForm, useWatch, type FieldErrors, type Path, type UseFormRegister } from 'react-hook-form';
+import { createModeSchema, type CreateModeInput, type LumpedModel, type ModeSourceInput } from '../../../../shared/contracts';
+import { beamSupports, deriveBeamMode, MAX_BEAM_MODE_NUMBER } from '../../../../shared/engine/beam';
+import { Button } from '../../../components/ui/button';
+import { SelectField, TextField } from '../../../components/ui/field';
+import { Notice } from '../../../components/ui/notice';
+import { applyServerIssues } from '../../../lib/form-errors';
+import { numberOrUndefined } from '../../../lib/form-values';
+import { formatNumber, formatPercent, formatQuantity } from '../../../lib/format';
+import { useCreateMode } from '../api/structures';
+import { describeEngineError } from './lumped-model-analysis';
+import { modalMassAtDofKg } from './lumped-model-math';
+import { beamSupportLabels, directionLabels } from './labels';
+
+type ModeFormValues = CreateModeInput;
+type BeamSourceInput = Extract<ModeSourceInput, { kind: 'beam' }>;
+type ModelSourceInput = Extract<ModeSourceInput, { kind: 'lumped-model' }>;
+
+/** Every path a server issue about a mode may name, in form order. */
+const modeFormFields = [
+  'label',
+  'direction',
+  'frequencyHz',
+  'modalMassKg',
+  'dampingRatio',
+  'modeShapeMean',
+  'source.support',
+  'source.lengthM',
+  'source.bendingStiffnessNM2',
+  'source.massPerLengthKgPerM',
+  'source.modeNumber',
+  'source.modelId',
+  'source.dofIndex',
+  'source',
+] as const satisfies readonly Path<ModeFormValues>[];
+
+const number = { setValueAs: numberOrUndefined };
+const errorAt = (errors: FieldErrors<ModeFormValues>, path: string): string | undefined =>
+  (get(errors, path) as { message?: string } | undefined)?.message;
+
+/** One form to add a mode, whatever its source: the shared fields, the source's own, and the submit. */
+function useModeForm(projectId: string, structureId: string, defaultValues: ModeFormValues, onAdded: () => void) {
+  const createMode = useCreateMode(projectId, structureId);
+  const [formError, setFormError] = useState<string | null>(null);
+  const form = useForm({ resolver: zodResolver(createModeSchema), defaultValues });
+  const onSubmit = form.handleSubmit((values) => {
+    setFormError(null);
+    createMode.mutate(values, {
+      onSuccess: () => {
+        form.reset(defaultValues);
+        onAdded();
+      },
+      onError: (error) => setFormError(applyServerIssues(error, modeFormFields, form.setError)),
+    });
+  });
+  return { form, onSubmit, formError, busy: createMode.isPending };
+}
+
+function CommonModeFields({ register, errors, idPrefix }: { register: UseFormRegister<ModeFormValues>; errors: FieldErrors<ModeFormValues>; idPrefix: string }) {
+  return (
+    <>
+      <TextField id={`${idPrefix}-label`} label="Mode label" autoComplete="off" error={errorAt(errors, 'label')} {...register('label')} />
+      <SelectField id={`${idPrefix}-direction`} label="Direction" error={errorAt(errors, 'direction')} {...register('direction')}>
+        {Object.entries(directionLabels).map(([value, label]) => (
+          <option key={value} value={value}>
+            {label}
+          </option>
+        ))}
+      </SelectField>
+      <TextField
+        id={`${idPrefix}-damping`}
+        label="Damping ratio ζ [–]"
+        inputMode="decimal"
+        hint="A fraction of critical damping: 0.006 is 0.6 %, the composite footbridge value of the ISO 10137 / BS 5400 tables; steel about 0.005 and concrete 0.008 (from memory)."
+        error={errorAt(errors, 'dampingRatio')}
+        {...register('dampingRatio', number)}
+      />
+    </>
+  );
+}
+
+function FormFrame({ label, formError, busy, submitLabel, onSubmit, children }: { label: string; formError: string | null; busy: boolean; submitLabel: string; onSubmit: () => void; children: ReactNode }) {
+  return (
+    <form
+      noValidate
+      aria-label={label}
+      className="flex flex-col gap-5"
+      onSubmit={(event) => {
+        event.preventDefault();
+        onSubmit();
+      }}
+    >
+      {formError ? (
+        <Notice tone="error" title="The mode was not added">
+          {formError}
+        </Notice>
+      ) : null}
+      {children}
+      <div>
+        <Button type="submit" busy={busy}>
+          {submitLabel}
+        </Button>
+      </div>
+    </form>
+  );
+}
+
+const typedDefaults: ModeFormValues = { label: '', direction: 'vertical', dampingRatio: undefined as unknown as number, source: { kind: 'typed' } };
+
+/** A mode typed in from a finite-element model or a measurement: frequency, modal mass, damping, direction. */
+export function TypedModeForm({ projectId, structureId, onAdded }: { projectId: string; structureId: string; onAdded: () => void }) {
+  const { form, onSubmit, formError, busy } = useModeForm(projectId, structureId, typedDefaults, onAdded);
+  const { register, formState } = form;
+  const errors = formState.errors;
+  return (
+    <FormFrame label="Type a mode" formError={formError} busy={busy} submitLabel="Add mode" onSubmit={() => void onSubmit()}>
+      <div className="grid gap-4 sm:grid-cols-2">
+        <CommonModeFields register={register} errors={errors} idPrefix="typed-mode" />
+        <TextField id="typed-mode-frequency" label="Natural frequency [Hz]" inputMode="decimal" error={errorAt(errors, 'frequencyHz')} {...register('frequencyHz', number)} />
+        <TextField
+          id="typed-mode-modal-mass"
+          label="Modal mass [kg]"
+          inputMode="decimal"
+          hint="For the mode shape scaled to 1 where the damper will sit."
+          error={errorAt(errors, 'modalMassKg')}
+          {...register('modalMassKg', number)}
+        />
+        <TextField
+          id="typed-mode-shape-mean"
+          label="Mean |φ| over the deck [–]"
+          optional
+          inputMode="decimal"
+          hint="Used by crowd load cases; 2/π ≈ 0.637 for a half sine."
+          error={errorAt(errors, 'modeShapeMean')}
+          {...register('modeShapeMean', number)}
+        />
+      </div>
+    </FormFrame>
+  );
+}
+
+const beamDefaults: ModeFormValues = {
+  label: '',
+  direction: 'vertical',
+  dampingRatio: undefined as unknown as number,
+  source: {
+    kind: 'beam',
+    support: 'simply-supported',
+    lengthM: undefined as unknown as number,
+    bendingStiffnessNM2: undefined as unknown as number,
+    massPerLengthKgPerM: undefined as unknown as number,
+    modeNumber: 1,
+  },
+};
+
+/** A mode of a uniform beam: the engine derives frequency, modal mass and mean |φ| as the engineer types. */
+export function BeamModeForm({ projectId, structureId, onAdded }: { projectId: string; structureId: string; onAdded: () => void }) {
+  const { form, onSubmit, formError, busy } = useModeForm(projectId, structureId, beamDefaults, onAdded);
+  const { register, control, formState } = form;
+  const errors = formState.errors;
+  const source = useWatch({ control, name: 'source' }) as BeamSourceInput;
+  const derived = (() => {
+    const { support, lengthM, bendingStiffnessNM2, massPerLengthKgPerM, modeNumber } = source;
+    if ([lengthM, bendingStiffnessNM2, massPerLengthKgPerM].some((value) => value === undefined)) return null;
+    try {
+      return { ok: true as const, mode: deriveBeamMode({ support, lengthM, bendingStiffnessNM2, massPerLengthKgPerM, modeNumber: modeNumber ?? 1 }) };
+    } catch (error) {
+      return { ok: false as const, problem: describeEngineError(error) };
+    }
+  })();
+
+  return (
+    <FormFrame label="Derive a mode from a beam" formError={formError} busy={busy} submitLabel="Add beam mode" onSubmit={() => void onSubmit()}>
+      <div className="grid gap-4 sm:grid-cols-2">
+        <CommonModeFields register={register} errors={errors} idPrefix="beam-mode" />
+        <SelectField id="beam-support" label="Supports" error={errorAt(errors, 'source.support')} {...register('source.support')}>
+          {beamSupports.map((support) => (
+            <option key={support} value={support}>
+              {beamSupportLabels[support]}
+            </option>
+          ))}
+        </SelectField>
+        <TextField id="beam-length" label="Length L [m]" inputMode="decimal" error={errorAt(errors, 'source.lengthM')} {...register('source.lengthM', number)} />
+        <TextField
+          id="beam-stiffness"
+          label="Bending stiffness EI [N·m²]"
+          inputMode="decimal"
+          hint="E × I of the whole cross-section, e.g. 2.1e9."
+          error={errorAt(errors, 'source.bendingStiffnessNM2')}
+          {...register('source.bendingStiffnessNM2', number)}
+        />
+        <TextField
+          id="beam-mass"
+          label="Mass per length m [kg/m]"
+          inputMode="decimal"
+          hint="Structure and permanent finishes."
+          error={errorAt(errors, 'source.massPerLengthKgPerM')}
+          {...register('source.massPerLengthKgPerM', number)}
+        />
+        <TextField
+          id="beam-mode-number"
+          label="Mode number"
+          inputMode="numeric"
+          hint={`1 for the fundamental, up to ${MAX_BEAM_MODE_NUMBER}.`}
+          error={errorAt(errors, 'source.modeNumber')}
+          {...register('source.modeNumber', number)}
+        />
+      </div>
+      <section aria-label="Derived from the beam" aria-live="polite" className="rounded-plate border border-tide-200 bg-tide-50 px-4 py-3 text-small text-tide-900">
+        <p className="font-semibold">Derived from the beam</p>
+        {derived === null ? (
+          <p className="mt-1">Give the length, EI and mass per length to see the mode.</p>
+        ) : derived.ok ? (
+          <dl className="mt-2 grid gap-x-6 gap-y-1 sm:grid-cols-2">
+            <div>
+              <dt className="inline">Natural frequency: </dt>
+              <dd className="inline font-semibold tabular-nums">{formatQuantity(derived.mode.frequencyHz, 'Hz')}</dd>
+            </div>
+            <div>
+              <dt className="inline">Modal mass: </dt>
+              <dd className="inline font-semibold tabular-nums">
+                {formatQuantity(derived.mode.modalMassKg, 'kg')} ({formatNumber(derived.mode.modalMassFraction, 3)} m L)
+              </dd>
+            </div>
+            <div>
+              <dt className="inline">Mean |φ| over the length: </dt>
+              <dd className="inline font-semibold tabular-nums">{formatNumber(derived.mode.modeShapeMean, 3)}</dd>
+            </div>
+            <div>
+              <dt className="inline">λ: </dt>
+              <dd className="inline font-semibold tabular-nums">{formatNumber(derived.mode.eigenvalueParameter, 5)}</dd>
+            </div>
+          </dl>
+        ) : (
+          <p className="mt-1 text-signal-error">{derived.problem}</p>
+        )}
+        <p className="mt-2 text-caption text-ink-soft">
+          f = λ² / (2π L²) · √(EI / m), modal mass for the shape scaled to 1 at its largest value (mL/2 simply supported). The
+          server derives the stored numbers with the same engine.
+        </p>
+      </section>
+    </FormFrame>
+  );
+}
+
+/** "Use this mode at this DOF": a design mode taken from a saved lumped model, its numbers derived by the server. */
+export function ModelModeForm({ projectId, structureId, model, onAdded }: { projectId: string; structureId: string; model: LumpedModel; onAdded: () => void }) {
+  const defaults: ModeFormValues = {
+    label: '',
+    direction: 'vertical',
+    dampingRatio: undefined as unknown as number,
+    source: { kind: 'lumped-model', modelId: model.id, modeNumber: 1, dofIndex: model.massMatrixKg.length - 1 },
+  };
+  const { form, onSubmit, formError, busy } = useModeForm(projectId, structureId, defaults, onAdded);
+  const { register, control, formState } = form;
+  const errors = formState.errors;
+  const source = useWatch({ control, name: 'source' }) as ModelSourceInput;
+  const dofLabel = (index: number) => model.dofLabels?.[index] ?? `DOF ${index + 1}`;
+  const chosen = model.modes[source.modeNumber - 1];
+  const shapeValue = chosen?.shape[source.dofIndex];
+  const atNode = chosen !== undefined && shapeValue !== undefined && Math.abs(shapeValue) < 1e-9 * Math.max(...chosen.shape.map(Math.abs));
+
+  return (
+    <FormFrame label="Use a mode of this model" formError={formError} busy={busy} submitLabel="Add as a design mode" onSubmit={() => void onSubmit()}>
+      <div className="grid gap-4 sm:grid-cols-2">
+        <SelectField id="model-mode-number" label="Mode of the model" error={errorAt(errors, 'source.modeNumber')} {...register('source.modeNumber', { valueAsNumber: true })}>
+          {model.modes.map((mode, index) => (
+            <option key={index} value={index + 1}>
+              Mode {index + 1}: {formatQuantity(mode.frequencyHz, 'Hz')}
+            </option>
+          ))}
+        </SelectField>
+        <SelectField
+          id="model-mode-dof"
+          label="Damper at"
+          hint="The degree of freedom where the damper would sit; the modal mass is for the shape scaled to 1 there."
+          error={errorAt(errors, 'source.dofIndex')}
+          {...register('source.dofIndex', { valueAsNumber: true })}
+        >
+          {model.massMatrixKg.map((_, index) => (
+            <option key={index} value={index}>
+              {dofLabel(index)}
+            </option>
+          ))}
+        </SelectField>
+        <CommonModeFields register={register} errors={errors} idPrefix="model-mode" />
+      </div>
+      {chosen && shapeValue !== undefined ? (
+        atNode ? (
+          <Notice tone="caution" title="This degree of freedom is a node of the mode">
+            The mode does not move there, so a damper at {dofLabel(source.dofIndex)} would not act on it.
+          </Notice>
+        ) : (
+          <p className="text-small text-ink-soft" aria-live="polite">
+            Design mode: {formatQuantity(chosen.frequencyHz, 'Hz')}, modal mass {formatQuantity(modalMassAtDofKg(chosen.shape, source.dofIndex), 'kg')} (1/φ² of
+            the mass-normalised shape at that degree of freedom).
+          </p>
+        )
+      ) : null}
+    </FormFrame>
+  );
+}
+
+/** The damping ratio in words with its percentage, for tables. */
+export function formatDampingRatio(ratio: number): string {
+  return `${formatNumber(ratio, 3)} (${formatPercent(ratio)})`;
+}

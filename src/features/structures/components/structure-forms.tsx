@@ -1,0 +1,105 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { createStructureSchema, type Structure } from '../../../../shared/contracts';
+import { Button } from '../../../components/ui/button';
+import { Notice } from '../../../components/ui/notice';
+import { isApiError } from '../../../lib/api-client';
+import { applyServerIssues } from '../../../lib/form-errors';
+import { useCreateStructure, useUpdateStructure } from '../api/structures';
+import {
+  cleanStructureValues,
+  emptyStructureForm,
+  structureChanges,
+  StructureFields,
+  structureFormFields,
+  structureToForm,
+  type StructureFormValues,
+} from './structure-fields';
+
+export function CreateStructureForm({ projectId, onCreated, onCancel }: { projectId: string; onCreated: (structure: Structure) => void; onCancel: () => void }) {
+  const createStructure = useCreateStructure(projectId);
+  const [formError, setFormError] = useState<string | null>(null);
+  const {
+    register,
+    handleSubmit,
+    setError,
+    formState: { errors },
+  } = useForm<StructureFormValues>({ resolver: zodResolver(createStructureSchema), defaultValues: emptyStructureForm });
+
+  const onSubmit = handleSubmit((values) => {
+    setFormError(null);
+    createStructure.mutate(cleanStructureValues(values), {
+      onSuccess: onCreated,
+      onError: (error) => setFormError(applyServerIssues(error, structureFormFields, setError)),
+    });
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate aria-label="New structure" className="flex flex-col gap-5">
+      {formError ? (
+        <Notice tone="error" title="The structure was not added">
+          {formError}
+        </Notice>
+      ) : null}
+      <StructureFields register={register} errors={errors} idPrefix="new-structure" />
+      <div className="flex flex-wrap gap-3">
+        <Button type="submit" busy={createStructure.isPending}>
+          Add structure
+        </Button>
+        <Button tone="quiet" onClick={onCancel}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}
+
+export function EditStructureForm({ structure, onDone }: { structure: Structure; onDone: (saved: boolean) => void }) {
+  const updateStructure = useUpdateStructure(structure.projectId, structure.id);
+  const [formError, setFormError] = useState<string | null>(null);
+  const [stale, setStale] = useState(false);
+  const {
+    register,
+    handleSubmit,
+    setError,
+    formState: { errors, isDirty },
+  } = useForm<StructureFormValues>({ resolver: zodResolver(createStructureSchema), defaultValues: structureToForm(structure) });
+
+  const onSubmit = handleSubmit((values) => {
+    setFormError(null);
+    setStale(false);
+    updateStructure.mutate(structureChanges(values, structure.version), {
+      onSuccess: () => onDone(true),
+      onError: (error) => {
+        if (isApiError(error) && error.isConflict) setStale(true);
+        else setFormError(applyServerIssues(error, structureFormFields, setError));
+      },
+    });
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate aria-label="Edit structure" className="flex flex-col gap-5">
+      {stale ? (
+        <Notice tone="caution" title="Changed by someone else">
+          Someone changed this structure after you opened it, so your changes were not saved. Cancel to see the latest
+          details, then make your change again.
+        </Notice>
+      ) : null}
+      {formError ? (
+        <Notice tone="error" title="The changes were not saved">
+          {formError}
+        </Notice>
+      ) : null}
+      <StructureFields register={register} errors={errors} idPrefix="edit-structure" />
+      <div className="flex flex-wrap gap-3">
+        <Button type="submit" busy={updateStructure.isPending} disabled={!isDirty}>
+          Save changes
+        </Button>
+        <Button tone="quiet" onClick={() => onDone(false)}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}
