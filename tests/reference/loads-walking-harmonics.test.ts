@@ -12,6 +12,8 @@
 import { describe, expect, it } from 'vitest';
 import { findGaitLoadModel } from '../../shared/engine/loads/walking-harmonics';
 import { assessDesign } from '../../shared/engine/design';
+import { sizeDamper } from '../../shared/engine/sizing';
+import { mapRobustness } from '../../shared/engine/robustness';
 
 describe('Bachmann & Ammann (1987) walking and running forces', () => {
   it('the factors of the set', () => {
@@ -50,6 +52,18 @@ describe('Bachmann & Ammann (1987) walking and running forces', () => {
     expect(walker.warnings.find((w) => w.code === 'load-value-from-memory')?.message).toMatch(/800 N/);
     const jogger = assessDesign({ structure, tmds: [], loadCase: { kind: 'jogger' } });
     expect(jogger.warnings.find((w) => w.code === 'load-value-from-memory')?.message).toMatch(/jogging load factors/);
+  });
+
+  it('size and robustness pass the from-memory note on with their answers', () => {
+    // Invented floor-like span at 2.8 Hz under a jogger (factors 1.6 / 0.7 / 0.2 from memory).
+    const structure = { modalMassKg: 40000, frequencyHz: 2.8, dampingRatio: 0.01, direction: 'vertical' as const };
+    const sized = sizeDamper({ structure, method: 'den-hartog', loadCase: { kind: 'jogger' }, peakAccelerationLimitMPerS2: 1.0 });
+    expect(sized.warnings.map((w) => w.code)).toContain('load-value-from-memory');
+    const map = mapRobustness({
+      structure, tmds: [{ massKg: 800, frequencyHz: 2.75, dampingRatio: 0.08 }], loadCase: { kind: 'jogger' },
+      structureFrequencyFactors: [1], tmdDampingFactors: [1],
+    });
+    expect(map.warnings.map((w) => w.code)).toContain('load-value-from-memory');
   });
 
   it('jogger on a 5.4 Hz mode: the second harmonic (0.7 G) at 2.7 Hz pacing governs', () => {
