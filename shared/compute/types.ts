@@ -1,5 +1,6 @@
 import type { z } from 'zod';
 import type { ApiIssue } from '../contracts/errors';
+import { prefixIssues, prefixMessage } from '../contracts/paths';
 
 /**
  * One compute command: the zod schema of its request (the same for `calc` and POST /api/compute/<name>),
@@ -23,6 +24,15 @@ export class ComputeInputError extends Error {
     super(message);
     this.name = 'ComputeInputError';
     this.issues = issues;
+  }
+
+  /**
+   * The same refusal with `prefix` in front of every path, for a caller that holds the request inside something of
+   * its own (a stored mode's `dampingRatio` under the form field that holds the mode).
+   */
+  prefixed(prefix: string): ComputeInputError {
+    const issues = prefixIssues(prefix, this.issues);
+    return new ComputeInputError(issues.length === 1 ? issues[0].message : prefixMessage(prefix, '', this.message), issues);
   }
 }
 

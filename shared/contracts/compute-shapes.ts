@@ -39,7 +39,7 @@ export const MAX_MASS_RATIO = 1;
 export const MAX_TMDS = 50;
 
 /** A limit as the messages write it: 0.001, 1000, 1e12, 1e-3 … */
-export const formatNumber = (value: number): string => (Math.abs(value) >= 1e5 || (value !== 0 && Math.abs(value) < 1e-2) ? value.toExponential().replace('e+', 'e') : String(value));
+export const formatNumber = (value: number): string => (Math.abs(value) >= 1e5 || (value !== 0 && Math.abs(value) < 1e-3) ? value.toExponential().replace('e+', 'e') : String(value));
 
 /** "between 0.001 and 1e12 kg (a modal mass)": the range as the messages word it. */
 export function rangeText(min: number, max: number, unit: string, what: string): string {

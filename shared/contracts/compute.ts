@@ -37,9 +37,9 @@ export const MAX_FREE_WORK = 200_000_000;
 export const MAX_FREE_VALUES = 1_000_000;
 /**
  * Largest frequencies × dampers of one `response` request (each damper adds a stroke to every point): about half a
- * second of work and an answer under 20 MB.
+ * second of work and an answer of at most about 20 MB.
  */
-export const MAX_RESPONSE_WORK = 400_000;
+export const MAX_RESPONSE_WORK = 350_000;
 /** Relative tolerance of the symmetry check, against the largest entry of the matrix: the engine's own. */
 export const MATRIX_SYMMETRY_TOLERANCE = SYMMETRY_TOLERANCE;
 
