@@ -148,9 +148,9 @@ export function buildLoadEnvelope(structure: EnvelopeStructure, loadCase: Steady
         ? `; torsional mode: vertical force on the mode shape's vertical ordinate where the person walks (|φ| = ${phi})`
         : '';
       // Values given in the request replace the set's own (and their caution).
-      const notConfirmed = model.notConfirmed.filter(
-        (note) => !(loadCase.bodyWeightN !== undefined && note.includes('body weight')) && !(loadCase.pacingRangeHz && note.includes('pacing band')),
-      );
+      const notConfirmed = model.notConfirmed
+        .filter((v) => !(v.about === 'body-weight' && loadCase.bodyWeightN !== undefined) && !(v.about === 'pacing-band' && loadCase.pacingRangeHz))
+        .map((v) => v.note);
       return {
         kind: loadCase.kind,
         source: `Bachmann & Ammann (1987) dynamic load factors for ${gait} (${model.direction}: ${model.harmonics.map((h) => h.dynamicLoadFactor).join(' / ')}), G = ${weight} N, pacing ${range[0]}–${range[1]} Hz${torsional}`,

@@ -36,7 +36,13 @@ export interface GaitLoadModel {
   pacingRangeHz: readonly [number, number];
   harmonics: readonly GaitHarmonic[];
   /** The values of this model that could not be checked against a published source (from memory). */
-  notConfirmed: readonly string[];
+  notConfirmed: readonly UnconfirmedValue[];
+}
+
+/** A value from memory, tagged with what it is so that a value given in the request can replace it. */
+export interface UnconfirmedValue {
+  about: 'body-weight' | 'pacing-band' | 'load-factors';
+  note: string;
 }
 
 /** Body weight of the design pedestrian, N (Bachmann & Ammann 1987; from memory, not confirmed). */
@@ -51,8 +57,8 @@ export const bachmannAmmannLateralLoadFactor = 0.039;
 const walkingRangeHz = [1.6, 2.4] as const;
 const joggingRangeHz = [2.0, 3.5] as const;
 
-const bodyWeightNote = 'the body weight G = 800 N (Sétra 2006 takes a 700 N pedestrian)';
-const walkingBandNote = 'the walking pacing band 1.6–2.4 Hz';
+const bodyWeightNote: UnconfirmedValue = { about: 'body-weight', note: 'the body weight G = 800 N (Sétra 2006 takes a 700 N pedestrian)' };
+const walkingBandNote: UnconfirmedValue = { about: 'pacing-band', note: 'the walking pacing band 1.6–2.4 Hz' };
 
 const models: readonly GaitLoadModel[] = [
   {
@@ -75,7 +81,11 @@ const models: readonly GaitLoadModel[] = [
       { frequencyMultiple: 0.5, dynamicLoadFactor: 0.1 },
       { frequencyMultiple: 1, dynamicLoadFactor: 0.2 },
     ],
-    notConfirmed: ['the longitudinal load factors 0.1 (half the pacing frequency) and 0.2', bodyWeightNote, walkingBandNote],
+    notConfirmed: [
+      { about: 'load-factors', note: 'the longitudinal load factors 0.1 (half the pacing frequency) and 0.2' },
+      bodyWeightNote,
+      walkingBandNote,
+    ],
   },
   {
     set: 'bachmann-ammann', gait: 'jogging', direction: 'vertical', pacingRangeHz: joggingRangeHz,
@@ -84,7 +94,11 @@ const models: readonly GaitLoadModel[] = [
       { frequencyMultiple: 2, dynamicLoadFactor: 0.7 },
       { frequencyMultiple: 3, dynamicLoadFactor: 0.2 },
     ],
-    notConfirmed: ['the jogging load factors 1.6 / 0.7 / 0.2', bodyWeightNote, 'the jogging pacing band 2.0–3.5 Hz'],
+    notConfirmed: [
+      { about: 'load-factors', note: 'the jogging load factors 1.6 / 0.7 / 0.2' },
+      bodyWeightNote,
+      { about: 'pacing-band', note: 'the jogging pacing band 2.0–3.5 Hz' },
+    ],
   },
 ];
 
