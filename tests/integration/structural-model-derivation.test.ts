@@ -271,6 +271,14 @@ describe('a beam-derived mode', () => {
     expect(cantilever.modalMassKg / beamMass).toBeCloseTo(0.25, 6);
   });
 
+  it('a beam whose numbers fall outside the engine’s ranges for a mode is refused, naming `source`', async () => {
+    // A 0.1 m stiff rod: its first frequency is far above the 1000 Hz the engine accepts.
+    const source = { kind: 'beam', support: 'cantilever', lengthM: 0.1, bendingStiffnessNM2: 1e9, massPerLengthKgPerM: 1 };
+    const response = await engineer.post(`${base()}/modes`).send({ label: 'Rod', dampingRatio: 0.01, source }).expect(400);
+    expect(issuePaths(response.body)).toEqual(['source']);
+    expect(apiErrorSchema.parse(response.body).error.message).toContain('Hz');
+  });
+
   it('is re-derived when its source changes; its derived numbers cannot be typed over while it stays derived', async () => {
     const mode = await createMode({ label: 'Beam to lengthen', dampingRatio: 0.005, source: { kind: 'beam', support: 'simply-supported', ...beam } });
     const longer = { kind: 'beam', support: 'simply-supported', ...beam, lengthM: 2 * beam.lengthM };

@@ -6,6 +6,7 @@ import { HttpError } from '../../lib/http-error';
 import { solveModes, type ModalSolution } from '../../../shared/engine/modal';
 import { EngineInputError } from '../../../shared/engine/linalg';
 import { lumpedMatrixIssues, type LumpedModel } from '../../../shared/contracts/model';
+import { designStructureSchema } from '../../../shared/contracts/compute-design';
 import type { ApiIssue } from '../../../shared/contracts/errors';
 
 /**
@@ -70,5 +71,21 @@ export function deriveFromLumpedModel(solution: ModalSolution, modeNumber: numbe
   if (Math.abs(atDof) <= NODE_TOLERANCE * largest) {
     return { ok: false, field: 'dofIndex', message: `is a node of mode ${modeNumber} (φ ≈ 0 there): a damper at this DOF does not move in that mode` };
   }
-  return { ok: true, frequencyHz, modalMassKg: 1 / (atDof * atDof) };
+  const modalMassKg = 1 / (atDof * atDof);
+  const outside = derivedNumbersProblem(frequencyHz, modalMassKg);
+  if (outside) return { ok: false, field: outside.field === 'frequencyHz' ? 'modeNumber' : 'dofIndex', message: outside.message };
+  return { ok: true, frequencyHz, modalMassKg };
+}
+
+/**
+ * A derived frequency or modal mass outside the ranges the engine accepts for a mode (its structure-mode schema),
+ * named and worded; null when both are inside.
+ */
+export function derivedNumbersProblem(frequencyHz: number, modalMassKg: number): { field: 'frequencyHz' | 'modalMassKg'; message: string } | null {
+  const fields = designStructureSchema.shape;
+  const frequency = fields.frequencyHz.safeParse(frequencyHz);
+  if (!frequency.success) return { field: 'frequencyHz', message: `gives a frequency of ${frequencyHz} Hz, which ${frequency.error.issues[0].message}` };
+  const mass = fields.modalMassKg.safeParse(modalMassKg);
+  if (!mass.success) return { field: 'modalMassKg', message: `gives a modal mass of ${modalMassKg} kg, which ${mass.error.issues[0].message}` };
+  return null;
 }

@@ -7,7 +7,7 @@ import { derivedModeFields, type CreateModeParsed, type ModeSource, type SavedMo
 import { deriveBeamMode } from '../../../shared/engine/beam';
 import { EngineInputError } from '../../../shared/engine/linalg';
 import { solveModes } from '../../../shared/engine/modal';
-import { deriveFromLumpedModel } from '../lumped-models/lumped-model-modes';
+import { deriveFromLumpedModel, derivedNumbersProblem } from '../lumped-models/lumped-model-modes';
 import { findLumpedModel, type StructureScope } from '../lumped-models/lumped-models.repository';
 import { requireStructure } from '../structures/structures.service';
 import * as repository from './modes.repository';
@@ -50,6 +50,8 @@ export async function deriveModeValues(db: Executor, scope: StructureScope, sour
   if (source.kind === 'beam') {
     try {
       const beam = deriveBeamMode(source);
+      const outside = derivedNumbersProblem(beam.frequencyHz, beam.modalMassKg);
+      if (outside) throw invalidField('source', `the beam ${outside.message}`);
       return { frequencyHz: beam.frequencyHz, modalMassKg: beam.modalMassKg, modeShapeMean: beam.modeShapeMean, lumpedModelId: null };
     } catch (error) {
       if (error instanceof EngineInputError) throw invalidField(`source.${error.field}`, error.message.replace(/^[^:]*:\s*/, ''));
