@@ -105,6 +105,28 @@ describe('POST /api/compute/:command', () => {
     expect(api.body).toEqual(JSON.parse(cli.stdout));
   });
 
+  // Requests that used to answer nonsense or to run for minutes (a 501 × 501 map with 50 dampers ran 215 s) are
+  // refused at once with 400 naming the field and the rule (docs/engine.md, "Physical ranges", "Limits of work").
+  it('a non-physical request is 400 naming the field and the range', async () => {
+    const response = await viewer.post('/api/compute/free').send({ ...samples.free, initialDisplacementM: [1e308, 0] });
+    expect(response.status).toBe(400);
+    expect(response.body.error.issues).toContainEqual({
+      path: 'initialDisplacementM.0',
+      message: 'initialDisplacementM.0: must be between −1000 and 1000 m (an initial displacement)',
+    });
+  });
+
+  it('a request beyond the work limit is 400 naming the field', async () => {
+    const factors = Array.from({ length: 501 }, (_, i) => 0.8 + (0.4 * i) / 500);
+    const tmds = Array.from({ length: 50 }, () => ({ massKg: 14, frequencyHz: 1.97, dampingRatio: 0.075 }));
+    const response = await viewer
+      .post('/api/compute/robustness')
+      .send({ structure, tmds, loadCase: crowd, structureFrequencyFactors: factors, tmdDampingFactors: factors });
+    expect(response.status).toBe(400);
+    const issue = response.body.error.issues.find((i: { path: string }) => i.path === 'structureFrequencyFactors');
+    expect(issue.message).toMatch(/cells × dampers must be at most 60,000/);
+  });
+
   it('GET /api/compute lists the registered commands', async () => {
     const response = await viewer.get('/api/compute').expect(200);
     expect(response.body.commands.map((c: { name: string }) => c.name).sort()).toEqual(names.sort());
