@@ -256,6 +256,15 @@ describe.each(resources)('$name: role × route', (resource) => {
     await agents.engineer.delete(path).expect(204);
   });
 
+  it('of simultaneous changes at the same version exactly one wins; the others get 409', async () => {
+    const created = (await agents.engineer.post(resource.collection(mine)).send(resource.create).expect(201)).body as { id: string };
+    const path = `${resource.collection(mine)}/${created.id}`;
+    const attempts = await Promise.all([0, 1, 2, 3].map((i) => (i % 2 === 0 ? agents.engineer : agents.admin).patch(path).send({ version: 1, ...resource.change })));
+    expect(attempts.map((response) => response.status).sort()).toEqual([200, 409, 409, 409]);
+    expect(((await agents.engineer.get(path).expect(200)).body as { version: number }).version).toBe(2);
+    await agents.engineer.delete(path).expect(204);
+  });
+
   it('a PATCH without a version names `version`; one with nothing to change is refused', async () => {
     expect(issuePaths((await agents.engineer.patch(resource.item(mine)).send(resource.change).expect(400)).body)).toEqual(['version']);
     const current = (await agents.engineer.get(resource.item(mine)).expect(200)).body as { version: number };
