@@ -98,7 +98,8 @@ export const beamModeSourceSchema = z.strictObject({
  */
 export const lumpedModelModeSourceSchema = z.strictObject({
   kind: z.literal('lumped-model'),
-  modelId: uuid('a model'),
+  /** Stored in lower case, the way PostgreSQL writes a uuid. */
+  modelId: uuid('a model').transform((id) => id.toLowerCase()),
   /** 1-based, modes in ascending frequency. */
   modeNumber: wholeNumber().min(1, 'must be at least 1').max(MAX_DOF, `must be at most ${MAX_DOF}`),
   /** 0-based DOF where the damper sits. */

@@ -212,6 +212,10 @@ describe('a mode taken from a lumped model', () => {
     const elsewhere = await createModel({ name: 'Other structure’s model', massMatrixKg: massKg, stiffnessMatrixNPerM: stiffnessNPerM }, otherStructureId);
     expect(issuePaths((await post({ ...source, modelId: elsewhere.id }).expect(400)).body)).toEqual(['source.modelId']);
     expect(issuePaths((await post({ ...source, modelId: 'model-1' }).expect(400)).body)).toEqual(['source.modelId']);
+    // An id in capitals names the same model (stored in lower case).
+    const capitals = await createMode({ label: 'Capitals', dampingRatio: 0.006, source: { ...source, modelId: model.id.toUpperCase() } });
+    expect(capitals.source).toEqual(source);
+    await engineer.delete(`${base()}/modes/${capitals.id}`).expect(204);
     // The derived numbers are the server's: sending them is refused by name.
     expect(issuePaths((await post(source, { modalMassKg: 1000 }).expect(400)).body)).toEqual(['modalMassKg']);
     // A free-floating model's first mode is a rigid-body mode (0 Hz).
