@@ -18,6 +18,17 @@ const members = () => import('./routes/members').then((module) => ({ Component: 
 const projectLayout = () => import('./routes/project-layout').then((module) => ({ Component: module.ProjectLayoutRoute }));
 const projectOverview = () => import('./routes/project-overview').then((module) => ({ Component: module.ProjectOverviewRoute }));
 const projectMembers = () => import('./routes/project-members').then((module) => ({ Component: module.ProjectMembersRoute }));
+const projectStructures = () =>
+  import('./routes/project-structures').then((module) => ({ Component: module.ProjectStructuresRoute, loader: module.projectStructuresLoader }));
+const projectStructure = () =>
+  import('./routes/project-structure').then((module) => ({ Component: module.ProjectStructureRoute, loader: module.projectStructureLoader }));
+const projectLoadCases = () =>
+  import('./routes/project-load-cases').then((module) => ({ Component: module.ProjectLoadCasesRoute, loader: module.projectLoadCasesLoader }));
+const projectComfortCriteria = () =>
+  import('./routes/project-comfort-criteria').then((module) => ({
+    Component: module.ProjectComfortCriteriaRoute,
+    loader: module.projectComfortCriteriaLoader,
+  }));
 const projectSection = (slug: string) => () =>
   import('./routes/project-section').then((module) => ({ Component: module.projectSectionRoute(slug) }));
 
@@ -53,6 +64,10 @@ export const router = createBrowserRouter([
                     children: [
                       { index: true, lazy: projectOverview },
                       { path: 'members', lazy: projectMembers },
+                      { path: 'structures', lazy: projectStructures },
+                      { path: 'structures/:structureId', lazy: projectStructure },
+                      { path: 'load-cases', lazy: projectLoadCases },
+                      { path: 'comfort-criteria', lazy: projectComfortCriteria },
                       ...projectSections
                         .filter((entry) => !entry.available)
                         .map((entry) => ({ path: entry.slug, lazy: projectSection(entry.slug) })),

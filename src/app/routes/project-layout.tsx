@@ -88,7 +88,7 @@ export function ProjectLayoutRoute() {
               <li key={section.slug || 'overview'}>
                 <NavLink
                   to={section.slug ? `/projects/${projectId}/${section.slug}` : `/projects/${projectId}`}
-                  end
+                  end={!section.slug}
                   className={sectionLinkClass(section.available)}
                 >
                   {section.label}

@@ -1,4 +1,4 @@
-/** The pages a project will hold. Overview and members work now; the engineering pages follow. */
+/** The pages a project holds. Those not yet available say what they will hold. */
 export interface ProjectSection {
   slug: string;
   label: string;
@@ -11,22 +11,22 @@ export const projectSections: ProjectSection[] = [
   { slug: '', label: 'Overview', available: true, purpose: 'The project’s name, structure kind, place and description.' },
   { slug: 'members', label: 'Members', available: true, purpose: 'The people who work on the project.' },
   {
-    slug: 'modes',
-    label: 'Modes',
-    available: false,
+    slug: 'structures',
+    label: 'Structures and modes',
+    available: true,
     purpose:
-      'The structure’s modes — natural frequency, modal mass, damping ratio and direction — typed in from a finite-element model or derived from a simple beam.',
+      'The structures and their modes — natural frequency, modal mass, damping ratio and direction — typed in from a finite-element model, derived from a simple beam or taken from a lumped model.',
   },
   {
     slug: 'load-cases',
     label: 'Load cases',
-    available: false,
+    available: true,
     purpose: 'Single walker, group, crowd by density class, jogger, lateral crowd and floor walking, each from a named guide.',
   },
   {
     slug: 'comfort-criteria',
     label: 'Comfort criteria',
-    available: false,
+    available: true,
     purpose: 'The acceleration limits the owner accepts: a guide’s comfort class, a code limit or custom values.',
   },
   {

@@ -1,0 +1,137 @@
+import { useState } from 'react';
+import { get, useForm, useWatch, type FieldErrors, type Path } from 'react-hook-form';
+import { createComfortCriteriaSchema, type CreateComfortCriteriaInput } from '../../../../shared/contracts';
+import { Button } from '../../../components/ui/button';
+import { SelectField, TextField } from '../../../components/ui/field';
+import { Notice } from '../../../components/ui/notice';
+import { applyServerIssues } from '../../../lib/form-errors';
+import { bodyResolver, dropBlank } from '../../../lib/form-resolver';
+import { numberOrUndefined } from '../../../lib/form-values';
+import { useCreateComfortCriteria } from '../api/comfort-criteria';
+import { criteriaClasses, criteriaSetLabels, describeCriteria, type CriteriaSet, type CriteriaSpec } from './criteria-info';
+import { LimitLines } from './limit-lines';
+
+export interface CriteriaFormValues {
+  name: string;
+  spec: { set: CriteriaSet; class?: string; peakAccelerationLimitMPerS2?: number; responseFactor?: number };
+}
+
+const sets: CriteriaSet[] = ['setra', 'hivoss', 'en1990', 'dg11', 'iso10137', 'custom'];
+const firstClass = (set: CriteriaSet) => (set === 'custom' ? undefined : criteriaClasses[set][set === 'setra' ? 1 : 0].value);
+const emptyForm: CriteriaFormValues = { name: '', spec: { set: 'setra', class: 'mean' } };
+
+/** The body the server takes: a custom limit has no class, the others no custom number; blanks left out. */
+export function criteriaBody(values: CriteriaFormValues): CreateComfortCriteriaInput {
+  const spec = dropBlank({ ...values.spec });
+  if (spec.set === 'custom') delete spec.class;
+  else delete spec.peakAccelerationLimitMPerS2;
+  if (spec.set !== 'iso10137') delete spec.responseFactor;
+  return { name: values.name, spec: spec as CreateComfortCriteriaInput['spec'] };
+}
+
+const serverFields = ['name', 'spec.set', 'spec.class', 'spec.peakAccelerationLimitMPerS2', 'spec.responseFactor', 'spec'] as const satisfies readonly Path<CriteriaFormValues>[];
+const errorAt = (errors: FieldErrors<CriteriaFormValues>, path: string): string | undefined =>
+  (get(errors, path) as { message?: string } | undefined)?.message;
+const resolver = bodyResolver<CriteriaFormValues, typeof createComfortCriteriaSchema>(createComfortCriteriaSchema, criteriaBody);
+
+export function CreateCriteriaForm({ projectId, onCreated }: { projectId: string; onCreated: () => void }) {
+  const createCriteria = useCreateComfortCriteria(projectId);
+  const [formError, setFormError] = useState<string | null>(null);
+  const { register, handleSubmit, setError, reset, getValues, control, formState } = useForm<CriteriaFormValues, unknown, unknown>({
+    resolver: resolver as never,
+    defaultValues: emptyForm,
+  });
+  const errors = formState.errors;
+  const values = useWatch({ control }) as CriteriaFormValues;
+  const set = values.spec.set;
+  const preview = (() => {
+    const body = criteriaBody(values);
+    const spec = body.spec as CriteriaSpec;
+    if (spec.set === 'custom' && !(typeof spec.peakAccelerationLimitMPerS2 === 'number' && spec.peakAccelerationLimitMPerS2 > 0)) return null;
+    try {
+      return describeCriteria(spec);
+    } catch {
+      return null;
+    }
+  })();
+
+  const onSubmit = handleSubmit((body) => {
+    setFormError(null);
+    createCriteria.mutate(body as CreateComfortCriteriaInput, {
+      onSuccess: () => {
+        reset(emptyForm);
+        onCreated();
+      },
+      onError: (error) => setFormError(applyServerIssues(error, serverFields, setError)),
+    });
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate aria-label="New comfort criteria" className="flex flex-col gap-5">
+      {formError ? (
+        <Notice tone="error" title="The comfort criteria were not added">
+          {formError}
+        </Notice>
+      ) : null}
+      <div className="grid gap-4 sm:grid-cols-2">
+        <TextField id="criteria-name" label="Name" autoComplete="off" error={errorAt(errors, 'name')} {...register('name')} />
+        <SelectField
+          id="criteria-set"
+          label="Criteria"
+          value={set}
+          error={errorAt(errors, 'spec.set')}
+          onChange={(event) => {
+            const next = event.target.value as CriteriaSet;
+            reset({ ...getValues(), spec: { set: next, class: firstClass(next) } }, { keepDefaultValues: true });
+          }}
+        >
+          {sets.map((entry) => (
+            <option key={entry} value={entry}>
+              {criteriaSetLabels[entry]}
+            </option>
+          ))}
+        </SelectField>
+        {set === 'custom' ? (
+          <TextField
+            id="criteria-limit"
+            label="Peak acceleration limit [m/s²]"
+            inputMode="decimal"
+            hint="One limit for the peak acceleration of every mode, as the project's specification sets it."
+            error={errorAt(errors, 'spec.peakAccelerationLimitMPerS2')}
+            {...register('spec.peakAccelerationLimitMPerS2', { setValueAs: numberOrUndefined })}
+          />
+        ) : (
+          <SelectField id="criteria-class" label={set === 'en1990' ? 'Situation' : set === 'dg11' || set === 'iso10137' ? 'Use of the space' : 'Comfort class'} error={errorAt(errors, 'spec.class')} {...register('spec.class')}>
+            {criteriaClasses[set].map((entry) => (
+              <option key={entry.value} value={entry.value}>
+                {entry.label}
+              </option>
+            ))}
+          </SelectField>
+        )}
+        {set === 'iso10137' ? (
+          <TextField
+            id="criteria-response-factor"
+            label="Response factor R [–]"
+            optional
+            inputMode="decimal"
+            hint="Left blank: the class's own factor."
+            error={errorAt(errors, 'spec.responseFactor')}
+            {...register('spec.responseFactor', { setValueAs: numberOrUndefined })}
+          />
+        ) : null}
+      </div>
+      {preview ? (
+        <section aria-label="The limits in plain words" className="rounded-plate border border-tide-200 bg-tide-50 px-4 py-3 text-small text-tide-900">
+          <p className="mb-2 font-semibold">In plain words</p>
+          <LimitLines lines={preview} />
+        </section>
+      ) : null}
+      <div>
+        <Button type="submit" busy={createCriteria.isPending}>
+          Add comfort criteria
+        </Button>
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,328 @@
+import { useState } from 'react';
+import { get, useForm, useWatch, type FieldErrors, type Path, type UseFormRegister } from 'react-hook-form';
+import { createLoadCaseSchema, type CreateLoadCaseInput } from '../../../../shared/contracts';
+import { dg11ConstantForceN } from '../../../../shared/engine/loads/floor-walking';
+import { trafficClasses, type CrowdGuide } from '../../../../shared/engine/loads/pedestrian-crowd';
+import { Button } from '../../../components/ui/button';
+import { SelectField, TextField } from '../../../components/ui/field';
+import { Notice } from '../../../components/ui/notice';
+import { applyServerIssues } from '../../../lib/form-errors';
+import { bodyResolver, dropBlank } from '../../../lib/form-resolver';
+import { numberOrUndefined } from '../../../lib/form-values';
+import { useCreateLoadCase } from '../api/load-cases';
+import { describeLoadCase, guideLabels, loadCaseKindLabels, loadCaseKinds, type LoadCaseKind, type LoadCaseSpec } from './load-case-info';
+import { LoadCaseInfoBox } from './load-case-info-box';
+
+type SpecValue = string | number | undefined | (number | undefined)[];
+type FormSpec = { kind: LoadCaseKind } & { [field: string]: SpecValue };
+
+export interface LoadCaseFormValues {
+  name: string;
+  /** Crowd and lateral: give the guide's traffic class or a density of your own. */
+  densityBy: 'class' | 'density';
+  spec: FormSpec;
+}
+
+const specDefaults: Record<LoadCaseKind, FormSpec> = {
+  crowd: { kind: 'crowd', guide: 'setra', trafficClass: 'II', harmonic: 1 },
+  lateral: { kind: 'lateral', guide: 'setra', trafficClass: 'II', harmonic: 1 },
+  walker: { kind: 'walker' },
+  jogger: { kind: 'jogger' },
+  'moving-walker': { kind: 'moving-walker', gait: 'walking' },
+  'floor-walking': { kind: 'floor-walking' },
+  harmonic: { kind: 'harmonic' },
+};
+
+const emptyForm: LoadCaseFormValues = { name: '', densityBy: 'class', spec: specDefaults.crowd };
+
+/** The body the server takes: blank fields left out, and only one of traffic class and density for a crowd. */
+export function loadCaseBody(values: LoadCaseFormValues): CreateLoadCaseInput {
+  const spec = dropBlank({ ...values.spec });
+  if (spec.kind === 'crowd' || spec.kind === 'lateral') {
+    if (values.densityBy === 'class') delete spec.densityPerM2;
+    else delete spec.trafficClass;
+  }
+  return { name: values.name, spec: spec as unknown as CreateLoadCaseInput['spec'] };
+}
+
+/** The spec with placeholders for required numbers not yet given, to read the source and range while typing. */
+function previewSpec(body: CreateLoadCaseInput): LoadCaseSpec {
+  const spec = { ...body.spec } as Record<string, unknown>;
+  if (spec.kind === 'crowd' || spec.kind === 'lateral') {
+    spec.deckAreaM2 ??= 100;
+    if (spec.trafficClass === undefined) spec.densityPerM2 ??= 0.5;
+  }
+  if (spec.kind === 'harmonic') {
+    spec.modalForceAmplitudeN ??= 1;
+    spec.pacingRangeHz ??= [1.6, 2.4];
+  }
+  if (spec.kind === 'moving-walker') spec.spanM ??= 30;
+  return spec as unknown as LoadCaseSpec;
+}
+
+const number = { setValueAs: numberOrUndefined };
+const errorAt = (errors: FieldErrors<LoadCaseFormValues>, path: string): string | undefined =>
+  (get(errors, path) as { message?: string } | undefined)?.message;
+
+const serverFields = [
+  'name',
+  'spec.kind',
+  'spec.guide',
+  'spec.trafficClass',
+  'spec.densityPerM2',
+  'spec.deckAreaM2',
+  'spec.modeShapeMean',
+  'spec.harmonic',
+  'spec.lockInCoefficientNsPerM',
+  'spec.pacingRangeHz',
+  'spec.bodyWeightN',
+  'spec.modeShapeValue',
+  'spec.spanM',
+  'spec.gait',
+  'spec.pacingFrequencyHz',
+  'spec.walkingSpeedMPerS',
+  'spec.constantForceN',
+  'spec.stepFrequencyRangeHz',
+  'spec.harmonicCount',
+  'spec.effectiveWeightN',
+  'spec.modalForceAmplitudeN',
+  'spec',
+] as const satisfies readonly Path<LoadCaseFormValues>[];
+
+const resolver = bodyResolver<LoadCaseFormValues, typeof createLoadCaseSchema>(createLoadCaseSchema, loadCaseBody);
+
+export function CreateLoadCaseForm({ projectId, onCreated }: { projectId: string; onCreated: () => void }) {
+  const createLoadCase = useCreateLoadCase(projectId);
+  const [formError, setFormError] = useState<string | null>(null);
+  const { register, handleSubmit, setError, reset, getValues, control, formState } = useForm<LoadCaseFormValues, unknown, unknown>({
+    resolver: resolver as never,
+    defaultValues: emptyForm,
+  });
+  const errors = formState.errors;
+  const values = useWatch({ control }) as LoadCaseFormValues;
+  const spec = values.spec;
+  const info = describeLoadCase(previewSpec(loadCaseBody(values)));
+
+  const onSubmit = handleSubmit((formValues) => {
+    setFormError(null);
+    createLoadCase.mutate(formValues as CreateLoadCaseInput, {
+      onSuccess: () => {
+        reset(emptyForm);
+        onCreated();
+      },
+      onError: (error) => setFormError(applyServerIssues(error, serverFields, setError)),
+    });
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate aria-label="New load case" className="flex flex-col gap-5">
+      {formError ? (
+        <Notice tone="error" title="The load case was not added">
+          {formError}
+        </Notice>
+      ) : null}
+      <div className="grid gap-4 sm:grid-cols-2">
+        <TextField id="load-case-name" label="Load case name" autoComplete="off" error={errorAt(errors, 'name')} {...register('name')} />
+        <SelectField
+          id="load-case-kind"
+          label="Kind"
+          value={spec.kind}
+          error={errorAt(errors, 'spec.kind')}
+          onChange={(event) => {
+            const kind = event.target.value as LoadCaseKind;
+            reset({ ...getValues(), densityBy: 'class', spec: specDefaults[kind] }, { keepDefaultValues: true });
+          }}
+        >
+          {loadCaseKinds.map((kind) => (
+            <option key={kind} value={kind}>
+              {loadCaseKindLabels[kind]}
+            </option>
+          ))}
+        </SelectField>
+        <KindFields kind={spec.kind} spec={spec} densityBy={values.densityBy} register={register} errors={errors} />
+      </div>
+      <LoadCaseInfoBox info={info} title="This load case follows" />
+      <div>
+        <Button type="submit" busy={createLoadCase.isPending}>
+          Add load case
+        </Button>
+      </div>
+    </form>
+  );
+}
+
+interface KindFieldsProps {
+  kind: LoadCaseKind;
+  spec: FormSpec;
+  densityBy: LoadCaseFormValues['densityBy'];
+  register: UseFormRegister<LoadCaseFormValues>;
+  errors: FieldErrors<LoadCaseFormValues>;
+}
+
+function BandFields({ field, label, hint, register, errors }: { field: 'pacingRangeHz' | 'stepFrequencyRangeHz'; label: string; hint: string; register: UseFormRegister<LoadCaseFormValues>; errors: FieldErrors<LoadCaseFormValues> }) {
+  const error = errorAt(errors, `spec.${field}`) ?? errorAt(errors, `spec.${field}.0`) ?? errorAt(errors, `spec.${field}.1`);
+  return (
+    <fieldset className="flex flex-col gap-1 sm:col-span-2">
+      <legend className="text-small font-semibold text-ink-soft">{label}</legend>
+      <div className="flex items-center gap-2">
+        <input aria-label={`${label}: from [Hz]`} inputMode="decimal" placeholder="from" className="w-28 rounded-plate border border-paper-line bg-paper-raised px-3 py-2 tabular-nums" {...register(`spec.${field}.0`, number)} />
+        <span className="text-ink-muted">to</span>
+        <input aria-label={`${label}: to [Hz]`} inputMode="decimal" placeholder="to" className="w-28 rounded-plate border border-paper-line bg-paper-raised px-3 py-2 tabular-nums" {...register(`spec.${field}.1`, number)} />
+        <span className="text-small text-ink-muted">Hz</span>
+      </div>
+      <p className="text-caption text-ink-muted">{hint}</p>
+      {error ? <p className="text-caption font-medium text-signal-error">{`${label} ${error}`}</p> : null}
+    </fieldset>
+  );
+}
+
+function KindFields({ kind, spec, densityBy, register, errors }: KindFieldsProps) {
+  switch (kind) {
+    case 'crowd':
+    case 'lateral': {
+      const guide = (spec.guide as CrowdGuide | undefined) ?? 'setra';
+      return (
+        <>
+          <SelectField id="load-case-guide" label="Guide" error={errorAt(errors, 'spec.guide')} {...register('spec.guide')}>
+            <option value="setra">{guideLabels.setra} (Sétra/AFGC footbridge guide)</option>
+            <option value="hivoss">{guideLabels.hivoss} (HiVoSS footbridge guideline)</option>
+          </SelectField>
+          <fieldset className="flex flex-col gap-2">
+            <legend className="text-small font-semibold text-ink-soft">Crowd given by</legend>
+            <div className="flex gap-4 text-small">
+              <label className="flex items-center gap-2">
+                <input type="radio" value="class" {...register('densityBy')} /> The guide&apos;s traffic class
+              </label>
+              <label className="flex items-center gap-2">
+                <input type="radio" value="density" {...register('densityBy')} /> A density
+              </label>
+            </div>
+          </fieldset>
+          {densityBy === 'class' ? (
+            <SelectField id="load-case-traffic-class" label="Traffic class" error={errorAt(errors, 'spec.trafficClass')} {...register('spec.trafficClass')}>
+              {trafficClasses
+                .filter((entry) => entry.guide === guide)
+                .map((entry) => (
+                  <option key={entry.name} value={entry.name}>
+                    {entry.guide === 'setra' ? `Class ${entry.name}` : entry.name}: {entry.personCount !== undefined ? `${entry.personCount} persons on the deck` : `${entry.densityPerM2} persons/m²`} — {entry.description}
+                  </option>
+                ))}
+            </SelectField>
+          ) : (
+            <TextField id="load-case-density" label="Density [persons/m²]" inputMode="decimal" error={errorAt(errors, 'spec.densityPerM2')} {...register('spec.densityPerM2', number)} />
+          )}
+          <TextField
+            id="load-case-deck-area"
+            label="Deck area [m²]"
+            inputMode="decimal"
+            hint="The loaded deck: number of pedestrians n = density × area."
+            error={errorAt(errors, 'spec.deckAreaM2')}
+            {...register('spec.deckAreaM2', number)}
+          />
+          <TextField
+            id="load-case-shape-mean"
+            label="Mean |φ| over the deck [–]"
+            optional
+            inputMode="decimal"
+            hint="For the mode shape scaled to 1 at its largest; left blank: 2/π ≈ 0.637, a half sine."
+            error={errorAt(errors, 'spec.modeShapeMean')}
+            {...register('spec.modeShapeMean', number)}
+          />
+          <SelectField id="load-case-harmonic" label="Pedestrian force harmonic" error={errorAt(errors, 'spec.harmonic')} {...register('spec.harmonic', { setValueAs: (value) => Number(value) })}>
+            <option value={1}>First harmonic (the pacing frequency)</option>
+            <option value={2}>Second harmonic (twice the pacing frequency)</option>
+          </SelectField>
+          {kind === 'lateral' ? (
+            <TextField
+              id="load-case-lock-in"
+              label="Lock-in coefficient k [N·s/m per person]"
+              optional
+              inputMode="decimal"
+              hint="Left blank: 300 N·s/m per person on 0.5–1.0 Hz (Dallard et al. 2001)."
+              error={errorAt(errors, 'spec.lockInCoefficientNsPerM')}
+              {...register('spec.lockInCoefficientNsPerM', number)}
+            />
+          ) : null}
+        </>
+      );
+    }
+    case 'walker':
+    case 'jogger':
+      return (
+        <>
+          <TextField id="load-case-body-weight" label="Body weight G [N]" optional inputMode="decimal" hint="Left blank: 800 N (from memory)." error={errorAt(errors, 'spec.bodyWeightN')} {...register('spec.bodyWeightN', number)} />
+          <TextField
+            id="load-case-shape-value"
+            label="|φ| where the person goes [–]"
+            optional
+            inputMode="decimal"
+            hint="Left blank: 1, the antinode."
+            error={errorAt(errors, 'spec.modeShapeValue')}
+            {...register('spec.modeShapeValue', number)}
+          />
+          <BandFields field="pacingRangeHz" label="Pacing band" hint={`Left blank: ${kind === 'walker' ? '1.6–2.4' : '2.0–3.5'} Hz (from memory).`} register={register} errors={errors} />
+        </>
+      );
+    case 'moving-walker':
+      return (
+        <>
+          <TextField id="load-case-span" label="Span [m]" inputMode="decimal" error={errorAt(errors, 'spec.spanM')} {...register('spec.spanM', number)} />
+          <SelectField id="load-case-gait" label="Gait" error={errorAt(errors, 'spec.gait')} {...register('spec.gait')}>
+            <option value="walking">Walking</option>
+            <option value="jogging">Jogging</option>
+          </SelectField>
+          <TextField
+            id="load-case-pacing"
+            label="Pacing frequency [Hz]"
+            optional
+            inputMode="decimal"
+            hint="Left blank: the pace that puts a harmonic on the mode."
+            error={errorAt(errors, 'spec.pacingFrequencyHz')}
+            {...register('spec.pacingFrequencyHz', number)}
+          />
+          <TextField
+            id="load-case-speed"
+            label="Walking speed [m/s]"
+            optional
+            inputMode="decimal"
+            hint="Left blank: stride × pace (stride 0.75 m walking, 1.25 m jogging)."
+            error={errorAt(errors, 'spec.walkingSpeedMPerS')}
+            {...register('spec.walkingSpeedMPerS', number)}
+          />
+          <TextField id="load-case-walker-weight" label="Body weight G [N]" optional inputMode="decimal" hint="Left blank: 800 N (from memory)." error={errorAt(errors, 'spec.bodyWeightN')} {...register('spec.bodyWeightN', number)} />
+        </>
+      );
+    case 'floor-walking':
+      return (
+        <>
+          <TextField
+            id="load-case-p0"
+            label="Constant force P0 [N]"
+            optional
+            inputMode="decimal"
+            hint={`Left blank: ${dg11ConstantForceN.floor} N for floors; DG11 gives ${dg11ConstantForceN.footbridge} N for footbridges.`}
+            error={errorAt(errors, 'spec.constantForceN')}
+            {...register('spec.constantForceN', number)}
+          />
+          <TextField
+            id="load-case-weight"
+            label="Effective weight W [N]"
+            optional
+            inputMode="decimal"
+            hint="Left blank: 2 g × the modal mass, the weight of a bay whose half-sine modal mass is half its mass."
+            error={errorAt(errors, 'spec.effectiveWeightN')}
+            {...register('spec.effectiveWeightN', number)}
+          />
+          <TextField id="load-case-harmonics" label="Walking harmonics" optional inputMode="numeric" hint="Left blank: 4 (from memory)." error={errorAt(errors, 'spec.harmonicCount')} {...register('spec.harmonicCount', number)} />
+          <BandFields field="stepFrequencyRangeHz" label="Step frequency band" hint="Left blank: 1.6–2.2 Hz (from memory)." register={register} errors={errors} />
+        </>
+      );
+    case 'harmonic':
+      return (
+        <>
+          <TextField id="load-case-force" label="Modal force amplitude [N]" inputMode="decimal" error={errorAt(errors, 'spec.modalForceAmplitudeN')} {...register('spec.modalForceAmplitudeN', number)} />
+          <BandFields field="pacingRangeHz" label="Force frequency band" hint="The force is swept over this band." register={register} errors={errors} />
+        </>
+      );
+  }
+}
