@@ -77,6 +77,25 @@ describe('physically meaningful inputs', () => {
     expect(issuesOf('modes', { massMatrixKg: [[1, 0], [0, 1]], stiffnessMatrixNPerM: [[1, -1], [-1, 1]] })).toEqual([]);
   });
 
+  it('a damper lighter than a millionth of the modal mass, and tune below that mass ratio', () => {
+    // μ = 1e-12 made the h2 search fail with an internal error before.
+    expectRefused('tune', { method: 'h2', massRatio: 1e-12, structureFrequencyHz: 2 }, 'massRatio', /must be at least 1e-6/);
+    expectRefused('tune', { method: 'h2', massRatio: 0, structureFrequencyHz: 2 }, 'massRatio', /greater than 0/);
+    // A 1e12 kg mode with a 1 g damper: the coupled mass matrix was refused deep inside the moving walker as `massKg`.
+    const body = { structure: { ...structure, modalMassKg: 1e12 }, tmds: [tmd, { ...tmd, massKg: 1e-3 }], loadCase: { kind: 'moving-walker', spanM: 10 } };
+    expectRefused('assess', body, 'tmds.1.massKg', /at least 1e-6 × the modal mass, 1e6 kg \(mass ratio ≥ 1e-6; got 1e-15\)/);
+  });
+
+  it('load cases: people, crowds and decks of a possible size', () => {
+    expectRefused('assess', { structure, loadCase: { kind: 'walker', bodyWeightN: 1e300 } }, 'loadCase.bodyWeightN', /at most 10000 N \(the body weight of one person\)/);
+    expectRefused('assess', { structure, loadCase: { kind: 'moving-walker', spanM: 30, walkingSpeedMPerS: 1e300 } }, 'loadCase.walkingSpeedMPerS', /at most 15 m\/s/);
+    expectRefused('assess', { structure, loadCase: { ...crowd, densityPerM2: 1e300, deckAreaM2: 1e300 } }, 'loadCase.densityPerM2', /at most 10 persons\/m²/);
+    expectRefused('assess', { structure, loadCase: { ...crowd, deckAreaM2: 1e300 } }, 'loadCase.deckAreaM2', /at most 1e6 m²/);
+    expectRefused('assess', { structure: { ...structure, frequencyHz: 5 }, loadCase: { kind: 'floor-walking', constantForceN: 1e300 } }, 'loadCase.constantForceN', /at most 1e9 N/);
+    expectRefused('assess', { structure: { ...structure, frequencyHz: 5 }, loadCase: { kind: 'floor-walking', effectiveWeightN: 1e300 } }, 'loadCase.effectiveWeightN', /at most 1e14 N/);
+    expectRefused('assess', { structure, loadCase: { kind: 'moving-walker', spanM: 30, trailingTimeS: 1e300 } }, 'loadCase.trailingTimeS', /time steps/);
+  });
+
   it('frequencies, forces and bands outside the physical range', () => {
     expectRefused('tune', { method: 'den-hartog', massRatio: 0.02, structureFrequencyHz: 1e6 }, 'structureFrequencyHz', /between 0\.01 and 1000 Hz \(a natural frequency\)/);
     expectRefused('response', { structure, tmds: [tmd], forceAmplitudeN: 1e300, frequenciesHz: [2] }, 'forceAmplitudeN', /at most 1e9 N/);

@@ -1,7 +1,12 @@
 import { z } from 'zod';
 import { typeError } from './messages';
 import {
+  MAX_BODY_WEIGHT_N,
+  MAX_DECK_AREA_M2,
+  MAX_DENSITY_PER_M2,
   MAX_FORCE_N,
+  MAX_WALKING_SPEED_M_PER_S,
+  MAX_WEIGHT_N,
   MAX_FREQUENCY_HZ,
   MIN_FREQUENCY_HZ,
   checkTotalMassRatio,
@@ -47,7 +52,7 @@ const harmonicLoadSchema = z.strictObject({
 
 const gaitFields = {
   pacingRangeHz: bandHz().optional(),
-  bodyWeightN: positive().optional(),
+  bodyWeightN: positive().max(MAX_BODY_WEIGHT_N, `must be at most ${formatNumber(MAX_BODY_WEIGHT_N)} N (the body weight of one person)`).optional(),
   /** |φ| where the person walks, for the unit-max mode shape (default 1, the antinode). */
   modeShapeValue: positive().max(1, 'must be at most 1 (the mode shape is scaled to 1 at its maximum)').optional(),
 };
@@ -56,9 +61,9 @@ const joggerLoadSchema = z.strictObject({ kind: z.literal('jogger'), ...gaitFiel
 
 const crowdFields = {
   guide: crowdGuideSchema,
-  densityPerM2: positive().optional(),
+  densityPerM2: positive().max(MAX_DENSITY_PER_M2, `must be at most ${MAX_DENSITY_PER_M2} persons/m² (denser than any crowd can stand)`).optional(),
   trafficClass: z.string({ error: typeError('must be a traffic class name') }).optional(),
-  deckAreaM2: positive(),
+  deckAreaM2: positive().max(MAX_DECK_AREA_M2, `must be at most ${formatNumber(MAX_DECK_AREA_M2)} m² (a square kilometre of deck)`),
   modeShapeMean: positive().max(1, 'must be at most 1 (mean of |φ| for the unit-max mode shape)').optional(),
   /** Pedestrian force harmonic: 1 (default) or 2 (Sétra 2006 case 3, HiVoSS 2008 second-harmonic ψ). */
   harmonic: z.literal([1, 2], { error: typeError('must be 1 (first harmonic) or 2 (second harmonic)') }).default(1),
@@ -72,10 +77,10 @@ const lateralLoadSchema = z.strictObject({
 
 const floorWalkingLoadSchema = z.strictObject({
   kind: z.literal('floor-walking'),
-  constantForceN: positive().optional(),
+  constantForceN: positive().max(MAX_FORCE_N, `must be at most ${formatNumber(MAX_FORCE_N)} N (a force amplitude)`).optional(),
   stepFrequencyRangeHz: bandHz().optional(),
   harmonicCount: int().min(1, 'must be at least 1').max(6, 'must be at most 6').optional(),
-  effectiveWeightN: positive().optional(),
+  effectiveWeightN: positive().max(MAX_WEIGHT_N, `must be at most ${formatNumber(MAX_WEIGHT_N)} N (twice the weight of the heaviest modal mass)`).optional(),
 });
 
 const movingWalkerLoadSchema = z.strictObject({
@@ -83,8 +88,8 @@ const movingWalkerLoadSchema = z.strictObject({
   spanM: positive(),
   gait: z.enum(['walking', 'jogging'], { error: typeError('must be "walking" or "jogging"') }).optional(),
   pacingFrequencyHz: frequencyHzSchema('a pacing frequency').optional(),
-  walkingSpeedMPerS: positive().optional(),
-  bodyWeightN: positive().optional(),
+  walkingSpeedMPerS: positive().max(MAX_WALKING_SPEED_M_PER_S, `must be at most ${MAX_WALKING_SPEED_M_PER_S} m/s (faster than any runner)`).optional(),
+  bodyWeightN: positive().max(MAX_BODY_WEIGHT_N, `must be at most ${formatNumber(MAX_BODY_WEIGHT_N)} N (the body weight of one person)`).optional(),
   timeStepS: positive().optional(),
   trailingTimeS: nonNegative().optional(),
 });

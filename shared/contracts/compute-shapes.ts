@@ -35,6 +35,22 @@ export const MAX_TIME_S = 1e6;
 export const MAX_FORCE_N = 1e9;
 /** Largest total mass of the dampers on one mode against its modal mass (the `tune` command's rule for μ). */
 export const MAX_MASS_RATIO = 1;
+/**
+ * Smallest mass ratio of a damper (its mass against the modal mass): a millionth does nothing measurable, and
+ * lighter ones leave the coupled system's matrices too ill-conditioned to solve (and the numerical tunings without
+ * an optimum to find).
+ */
+export const MIN_MASS_RATIO = 1e-6;
+/** Largest weight a load case may give, N: twice the weight of the heaviest modal mass (DG11's effective weight). */
+export const MAX_WEIGHT_N = 1e14;
+/** Largest body weight of one person, N (about a tonne-force). */
+export const MAX_BODY_WEIGHT_N = 1e4;
+/** Largest walking or running speed, m/s (faster than any runner). */
+export const MAX_WALKING_SPEED_M_PER_S = 15;
+/** Largest crowd density, persons per m² (beyond any crowd that can stand; the guides' classes stop at 1.5). */
+export const MAX_DENSITY_PER_M2 = 10;
+/** Largest loaded deck area, m² (a square kilometre). */
+export const MAX_DECK_AREA_M2 = 1e6;
 /** Most dampers on one mode. */
 export const MAX_TMDS = 50;
 
@@ -117,11 +133,23 @@ export const tmdListSchema = (minCount = 0) => {
   return (minCount > 0 ? list.min(minCount, { error: 'must hold one damper' }) : list).max(MAX_TMDS, { error: `must hold at most ${MAX_TMDS} dampers` });
 };
 
-/** Refuses dampers heavier together than MAX_MASS_RATIO × the modal mass, naming `tmds`. */
+/**
+ * Refuses dampers heavier together than MAX_MASS_RATIO × the modal mass (naming `tmds`) and a damper lighter than
+ * MIN_MASS_RATIO × the modal mass (naming its `tmds.<j>.massKg`).
+ */
 export function checkTotalMassRatio(
   value: { structure: { modalMassKg: number }; tmds: ReadonlyArray<{ massKg: number }> },
   ctx: z.RefinementCtx,
 ): void {
+  value.tmds.forEach((tmd, j) => {
+    if (tmd.massKg < MIN_MASS_RATIO * value.structure.modalMassKg) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['tmds', j, 'massKg'],
+        message: `must be at least ${formatNumber(MIN_MASS_RATIO)} × the modal mass, ${formatNumber(MIN_MASS_RATIO * value.structure.modalMassKg)} kg (mass ratio ≥ ${formatNumber(MIN_MASS_RATIO)}; got ${formatNumber(tmd.massKg / value.structure.modalMassKg)}): a lighter damper does nothing measurable and leaves the coupled system ill-conditioned`,
+      });
+    }
+  });
   const total = value.tmds.reduce((sum, tmd) => sum + tmd.massKg, 0);
   const ratio = total / value.structure.modalMassKg;
   if (ratio > MAX_MASS_RATIO) {

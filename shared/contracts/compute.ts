@@ -9,6 +9,7 @@ import {
   MAX_TIME_S,
   MAX_VELOCITY_M_PER_S,
   MIN_MASS_KG,
+  MIN_MASS_RATIO,
   checkTotalMassRatio,
   formatNumber,
   frequencyHzSchema,
@@ -44,7 +45,6 @@ export const MAX_RESPONSE_WORK = 350_000;
 export const MATRIX_SYMMETRY_TOLERANCE = SYMMETRY_TOLERANCE;
 
 const finite = z.number({ error: typeError('must be a finite number') });
-const positive = finite.gt(0, { error: 'must be greater than 0' });
 const dampingRatio = finite
   .min(0, { error: 'must be a damping ratio in [0, 1): 0 or greater' })
   .lt(1, { error: 'must be a damping ratio in [0, 1): less than 1' });
@@ -173,7 +173,10 @@ export const modesResponseSchema = z.object({ modes: z.array(modeSchema) });
 // ---------- tune ----------
 export const tuneRequestSchema = z.strictObject({
   method: tuningMethodSchema,
-  massRatio: positive.max(1, { error: 'must be at most 1 (the damper heavier than the modal mass)' }),
+  massRatio: finite
+    .gt(0, { error: 'must be greater than 0', abort: true })
+    .min(MIN_MASS_RATIO, { error: `must be at least ${formatNumber(MIN_MASS_RATIO)} (a lighter damper does nothing measurable and has no optimum tuning)` })
+    .max(1, { error: 'must be at most 1 (the damper heavier than the modal mass)' }),
   structureFrequencyHz: frequencyHzSchema('a natural frequency', 'must be a finite number'),
   structureDampingRatio: dampingRatio.default(0),
 });

@@ -87,7 +87,7 @@ export function simulateMovingWalker(structure: StructureMode, tmds: readonly Tm
   const stepCount = Math.ceil((crossingTimeS + trailingTimeS) / timeStepS);
   if (!(stepCount <= MAX_WALKER_STEPS)) {
     throw new LoadCaseError(
-      input.timeStepS !== undefined ? 'loadCase.timeStepS' : 'loadCase.spanM',
+      input.timeStepS !== undefined ? 'loadCase.timeStepS' : trailingTimeS > crossingTimeS ? 'loadCase.trailingTimeS' : 'loadCase.spanM',
       `the crossing (${crossingTimeS.toPrecision(4)} s at ${speedMPerS.toPrecision(3)} m/s, plus ${trailingTimeS} s after it) needs ${stepCount} time steps of ${timeStepS.toPrecision(3)} s, more than ${MAX_WALKER_STEPS.toLocaleString('en-GB')}: shorten the span or the trailing time, or lengthen timeStepS`,
     );
   }
