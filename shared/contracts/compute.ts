@@ -184,6 +184,7 @@ export const tuneResponseSchema = z.object({
   frequencyRatio: z.number(),
   tmdFrequencyHz: z.number(),
   tmdDampingRatio: z.number(),
+  /** max over frequency of |X_s| K / F for the tuned system (continuous peak search). */
   peakAmplification: z.number(),
 });
 
