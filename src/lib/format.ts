@@ -60,13 +60,22 @@ const significantFormats = new Map<number, Intl.NumberFormat>();
 export function formatNumber(value: number, significant = 4): string {
   if (!Number.isFinite(value)) return value > 0 ? '∞' : value < 0 ? '−∞' : '—';
   const magnitude = Math.abs(value);
-  if (magnitude !== 0 && (magnitude < 1e-4 || magnitude >= 1e12)) return value.toExponential(significant - 1).replace('-', '−');
+  if (magnitude !== 0 && (magnitude < 1e-4 || magnitude >= 1e7)) return formatPowerOfTen(value, significant);
   let format = significantFormats.get(significant);
   if (!format) {
     format = new Intl.NumberFormat('en-GB', { maximumSignificantDigits: significant });
     significantFormats.set(significant, format);
   }
   return format.format(value).replace('-', '−');
+}
+
+const superscripts: Record<string, string> = { '-': '⁻', '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹' };
+
+/** 3.2e9 → "3.2 × 10⁹" (trailing zeros of the mantissa dropped). */
+function formatPowerOfTen(value: number, significant: number): string {
+  const [mantissa, exponent] = value.toExponential(significant - 1).split('e');
+  const digits = String(Number(exponent)).replace(/./g, (char) => superscripts[char] ?? char);
+  return `${String(Number(mantissa)).replace('-', '−')} × 10${digits}`;
 }
 
 /** A number with its SI unit: "1.873 Hz", "45,000 kg". */

@@ -63,7 +63,7 @@ describe('structural model in the browser', () => {
     await browser.shot('structural-01-beam-mode-as-you-type');
     await beam.getByRole('button', { name: 'Add beam mode' }).click();
     const modes = page.getByRole('table', { name: 'Design modes of the structure' });
-    await modes.getByRole('cell', { name: 'First vertical bending' }).waitFor();
+    await modes.getByRole('cell', { name: 'First vertical bending', exact: true }).waitFor();
     await modes.getByRole('cell', { name: shown(expectedHz), exact: true }).waitFor();
   });
 
@@ -103,7 +103,7 @@ describe('structural model in the browser', () => {
     await useMode.getByRole('button', { name: 'Add as a design mode' }).click();
     await models.getByRole('status').filter({ hasText: 'Design mode added' }).waitFor();
     const modes = page.getByRole('table', { name: 'Design modes of the structure' });
-    await modes.getByRole('cell', { name: 'Coupled mode 1 at the damper' }).waitFor();
+    await modes.getByRole('cell', { name: 'Coupled mode 1 at the damper', exact: true }).waitFor();
     await modes.getByRole('cell', { name: shown(f1), exact: true }).waitFor();
     await modes.getByText('Model “Span with damper (invented)”, mode 1 at midspan').waitFor();
     await page.getByRole('complementary', { name: 'Caution' }).getByText(/qualified engineer/).waitFor();
@@ -117,7 +117,7 @@ describe('structural model in the browser', () => {
     const loadCase = page.getByRole('form', { name: 'New load case' });
     await loadCase.getByLabel('Load case name').fill('Crowd, Sétra class II (invented)');
     await loadCase.getByLabel('Kind').selectOption('crowd');
-    await loadCase.getByLabel('Traffic class').selectOption('II');
+    await loadCase.getByLabel('Traffic class', { exact: true }).selectOption('II');
     await loadCase.getByRole('button', { name: 'Add load case' }).click();
     await loadCase.getByText('Deck area [m²] is required').waitFor();
     await loadCase.getByLabel('Deck area [m²]').fill('147');
@@ -162,8 +162,8 @@ describe('structural model in the browser', () => {
     await page.getByRole('list', { name: 'Structures' }).getByRole('link', { name: structureName }).click();
     await page.reload();
     const modes = page.getByRole('table', { name: 'Design modes of the structure' });
-    await modes.getByRole('cell', { name: 'First vertical bending' }).waitFor();
-    await modes.getByRole('cell', { name: 'Coupled mode 1 at the damper' }).waitFor();
+    await modes.getByRole('cell', { name: 'First vertical bending', exact: true }).waitFor();
+    await modes.getByRole('cell', { name: 'Coupled mode 1 at the damper', exact: true }).waitFor();
     await page.getByRole('region', { name: 'Lumped models' }).getByRole('button', { name: 'Span with damper (invented)' }).waitFor();
     await signOut(page);
   });
@@ -175,7 +175,7 @@ describe('structural model in the browser', () => {
     await page.getByRole('navigation', { name: 'Project sections' }).getByRole('link', { name: 'Structures and modes' }).click();
     await page.getByRole('list', { name: 'Structures' }).getByRole('link', { name: structureName }).click();
     const modes = page.getByRole('table', { name: 'Design modes of the structure' });
-    await modes.getByRole('cell', { name: 'Coupled mode 1 at the damper' }).waitFor();
+    await modes.getByRole('cell', { name: 'Coupled mode 1 at the damper', exact: true }).waitFor();
     const models = page.getByRole('region', { name: 'Lumped models' });
     await models.getByRole('table', { name: 'Undamped modes of the model' }).waitFor();
     await models.getByRole('table', { name: 'Mass matrix M [kg]' }).waitFor();

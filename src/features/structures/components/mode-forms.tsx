@@ -49,7 +49,8 @@ function useModeForm(projectId: string, structureId: string, defaultValues: Mode
     setFormError(null);
     createMode.mutate(values, {
       onSuccess: () => {
-        form.reset(defaultValues);
+        // The entries stay for the next mode (another mode number of the same beam, say); only the label is cleared.
+        form.setValue('label', '');
         onAdded();
       },
       onError: (error) => setFormError(applyServerIssues(error, modeFormFields, form.setError)),

@@ -48,13 +48,13 @@ export function ModesTable({ projectId, structureId, modes, models, canEdit }: M
         <tbody>
           {modes.map((mode) => (
             <tr key={mode.id}>
-              <Td className="font-semibold">{mode.label}</Td>
+              <Td className="min-w-[8rem] font-semibold">{mode.label}</Td>
               <Td>{directionLabels[mode.direction]}</Td>
               <Td className="text-right tabular-nums">{formatNumber(mode.frequencyHz, 4)}</Td>
               <Td className="text-right tabular-nums">{formatNumber(mode.modalMassKg, 4)}</Td>
               <Td className="text-right tabular-nums">{formatDampingRatio(mode.dampingRatio)}</Td>
               <Td className="text-right tabular-nums">{mode.modeShapeMean === null ? '—' : formatNumber(mode.modeShapeMean, 3)}</Td>
-              <Td>
+              <Td className="min-w-[15rem]">
                 <div className="flex flex-col items-start gap-1">
                   <Badge tone={mode.source.kind === 'typed' ? 'neutral' : 'tide'}>{sourceKindLabels[mode.source.kind]}</Badge>
                   <span className="text-caption text-ink-muted">{describeModeSource(mode.source, models)}</span>
