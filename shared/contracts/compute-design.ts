@@ -94,6 +94,8 @@ const movingWalkerLoadSchema = z.strictObject({
   trailingTimeS: nonNegative().optional(),
 });
 
+export type MovingWalkerLoadCase = z.infer<typeof movingWalkerLoadSchema>;
+
 const steadyLoadCases = [
   harmonicLoadSchema,
   walkerLoadSchema,

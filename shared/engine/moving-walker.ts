@@ -10,7 +10,7 @@
  */
 
 import type { StructureMode, TmdParameters } from './types';
-import type { AssessResponse } from '../contracts/compute-design';
+import type { AssessResponse, MovingWalkerLoadCase } from '../contracts/compute-design';
 import { buildModeTmdMatrices } from './matrices';
 import { integrateNewmark } from './newmark';
 import { bachmannAmmannBodyWeightN, findGaitLoadModel, type Gait } from './loads/walking-harmonics';
@@ -18,15 +18,8 @@ import { createModeTmdPoint, createModeTmdSystem, evaluateModeTmdSystem } from '
 import { unboundedResonanceHz } from './loads/response-envelope';
 import { LoadCaseError } from './loads/load-envelope';
 
-export interface MovingWalkerInput {
-  spanM: number;
-  gait?: Gait;
-  pacingFrequencyHz?: number;
-  walkingSpeedMPerS?: number;
-  bodyWeightN?: number;
-  timeStepS?: number;
-  trailingTimeS?: number;
-}
+/** The moving-walker load case without its `kind`: the type of its contract (compute-design.ts). */
+export type MovingWalkerInput = Omit<MovingWalkerLoadCase, 'kind'>;
 
 /**
  * The time history of one crossing: the answer's `timeHistory` without the bare structure's figures, the type of its
