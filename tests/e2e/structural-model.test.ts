@@ -147,6 +147,7 @@ describe('structural model in the browser', () => {
     await second.getByLabel('Criteria').selectOption('hivoss');
     await second.getByRole('button', { name: 'Add comfort criteria' }).click();
     const hivoss = saved.getByRole('listitem').filter({ hasText: 'Guide class (invented)' });
+    await hivoss.getByText('HiVoSS 2008 comfort class (footbridges): CL1 — maximum comfort').waitFor();
     // The HiVoSS bands are not confirmed against the guide (PRODUCT spec): shown as from memory.
     await expect(hivoss.getByText('from memory — not confirmed').count()).resolves.toBe(2);
     await browser.shot('structural-05-comfort-criteria');
@@ -160,6 +161,7 @@ describe('structural model in the browser', () => {
     await page.getByRole('list', { name: 'Load cases' }).getByRole('heading', { name: 'Crowd, Sétra class II (invented)' }).waitFor();
     await page.getByRole('navigation', { name: 'Project sections' }).getByRole('link', { name: 'Structures and modes' }).click();
     await page.getByRole('list', { name: 'Structures' }).getByRole('link', { name: structureName }).click();
+    await page.getByRole('heading', { level: 2, name: structureName }).waitFor();
     await page.reload();
     const modes = page.getByRole('table', { name: 'Design modes of the structure' });
     await modes.getByRole('cell', { name: 'First vertical bending', exact: true }).waitFor();
