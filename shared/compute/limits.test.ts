@@ -102,6 +102,7 @@ describe('physically meaningful inputs', () => {
     expectRefused('response', { structure, tmds: [tmd], forceAmplitudeN: 100, frequenciesHz: [2, 1e-6] }, 'frequenciesHz.1', /between 0\.01 and 1000 Hz \(a forcing frequency\)/);
     expectRefused('assess', { structure, tmds: [tmd], loadCase: { kind: 'harmonic', modalForceAmplitudeN: 100, pacingRangeHz: [1e-9, 2] } }, 'loadCase.pacingRangeHz.0', /between 0\.01 and 1000 Hz/);
     expectRefused('robustness', { structure, tmds: [tmd], loadCase: crowd, structureFrequencyFactors: [1, 600], tmdDampingFactors: [1] }, 'structureFrequencyFactors.1', /1200 Hz: it must stay between 0\.01 and 1000 Hz/);
+    expectRefused('size', { structure: { ...structure, frequencyHz: 900 }, method: 'den-hartog', loadCase: { kind: 'harmonic', modalForceAmplitudeN: 100, pacingRangeHz: [800, 1000] }, peakAccelerationLimitMPerS2: 1, structureFrequencyToleranceRatio: 0.2 }, 'structureFrequencyToleranceRatio', /over 720–1080 Hz: it must stay between 0\.01 and 1000 Hz/);
   });
 
   it('moving walker: a 1e300 s time step must be finer than the motion (1/(20 f) of the highest frequency)', () => {

@@ -227,7 +227,19 @@ export const sizeRequestSchema = z
     maxMassRatio: num().gt(0, 'must be greater than 0').max(0.5, 'must be at most 0.5').default(0.25),
     hardware: hardwareOptionsSchema.optional(),
   })
-  .superRefine(checkLoadCaseAgainstStructure);
+  .superRefine(checkLoadCaseAgainstStructure)
+  .superRefine((value, ctx) => {
+    const r = value.structureFrequencyToleranceRatio;
+    const lo = value.structure.frequencyHz * (1 - r);
+    const hi = value.structure.frequencyHz * (1 + r);
+    if (lo < MIN_FREQUENCY_HZ || hi > MAX_FREQUENCY_HZ) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['structureFrequencyToleranceRatio'],
+        message: `moves the structure frequency over ${formatNumber(lo)}–${formatNumber(hi)} Hz: it must stay between ${formatNumber(MIN_FREQUENCY_HZ)} and ${formatNumber(MAX_FREQUENCY_HZ)} Hz (a natural frequency)`,
+      });
+    }
+  });
 export type SizeRequest = z.infer<typeof sizeRequestSchema>;
 
 /**
