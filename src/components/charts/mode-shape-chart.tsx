@@ -13,10 +13,12 @@ interface ModeShapeChartProps {
   modes: readonly ModeShapeSeries[];
   /** Says in words what the plot shows, for people who do not see it. */
   description: string;
+  /** A chain's shapes start from the ground, drawn as a first point at 0. */
+  fromGround?: boolean;
 }
 
 /** Mode shapes plotted over the degrees of freedom, each scaled to 1 at its largest entry. */
-export default function ModeShapeChart({ dofLabels, modes, description }: ModeShapeChartProps) {
+export default function ModeShapeChart({ dofLabels, modes, description, fromGround = false }: ModeShapeChartProps) {
   return (
     <figure className="flex flex-col gap-2">
       <div className="relative h-72 w-full">
@@ -24,10 +26,10 @@ export default function ModeShapeChart({ dofLabels, modes, description }: ModeSh
           role="img"
           aria-label={description}
           data={{
-            labels: ['ground', ...dofLabels],
+            labels: fromGround ? ['ground', ...dofLabels] : [...dofLabels],
             datasets: modes.map((mode, index) => ({
               label: mode.label,
-              data: [0, ...mode.shape],
+              data: fromGround ? [0, ...mode.shape] : [...mode.shape],
               ...seriesStyle(index),
               borderWidth: 2,
               pointRadius: 4,
@@ -48,7 +50,7 @@ export default function ModeShapeChart({ dofLabels, modes, description }: ModeSh
               y: {
                 min: -1.1,
                 max: 1.1,
-                title: { display: true, text: 'mode shape (scaled to 1 at its largest entry) [–]' },
+                title: { display: true, text: 'mode shape [–]' },
                 ticks: { callback: (value) => formatTick(Number(value)) },
               },
             },

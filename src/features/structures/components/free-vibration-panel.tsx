@@ -3,6 +3,7 @@ import type { ModalSolution } from '../../../../shared/engine/modal';
 import { TimeHistoryChart } from '../../../components/charts/lazy-charts';
 import { Notice } from '../../../components/ui/notice';
 import { Panel } from '../../../components/ui/panel';
+import { Unit } from '../../../components/ui/unit';
 import { formatNumber } from '../../../lib/format';
 import { computeFreeVibration, defaultDurationS, dofName, FREE_VIBRATION_PERIODS, type ModelMatrices } from './lumped-model-analysis';
 
@@ -55,10 +56,10 @@ export function FreeVibrationPanel({ matrices, modes, dofLabels }: FreeVibration
                   Degree of freedom
                 </th>
                 <th scope="col" className="px-2 pb-1 text-left text-caption font-semibold uppercase tracking-[0.08em] text-ink-muted">
-                  x(0) [m]
+                  <span className="normal-case">x(0)</span> <Unit>m</Unit>
                 </th>
                 <th scope="col" className="px-2 pb-1 text-left text-caption font-semibold uppercase tracking-[0.08em] text-ink-muted">
-                  ẋ(0) [m/s]
+                  <span className="normal-case">ẋ(0)</span> <Unit>m/s</Unit>
                 </th>
               </tr>
             </thead>

@@ -5,6 +5,7 @@ import { ModeShapeChart } from '../../../components/charts/lazy-charts';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
+import { Unit } from '../../../components/ui/unit';
 import { Panel } from '../../../components/ui/panel';
 import { isApiError } from '../../../lib/api-client';
 import { applyServerIssues } from '../../../lib/form-errors';
@@ -159,7 +160,7 @@ export function LumpedModelEditor({ projectId, structureId, model, onSaved, onCa
           ) : null}
         </div>
       </form>
-      <ModelResults analysis={analysis} labels={values.dofLabels.slice(0, n)} />
+      <ModelResults analysis={analysis} labels={values.dofLabels.slice(0, n)} editing fromGround={values.entry === 'chain'} />
     </div>
   );
 }
@@ -178,8 +179,12 @@ function ChainInputs({ n, register, errors, labels }: { n: number; register: Use
             <tr>
               <th scope="col" className={headClass}>DOF</th>
               <th scope="col" className={headClass}>Label</th>
-              <th scope="col" className={headClass}>Mass m [kg]</th>
-              <th scope="col" className={headClass}>Spring k [N/m]</th>
+              <th scope="col" className={headClass}>
+                Mass <span className="normal-case">m</span> <Unit>kg</Unit>
+              </th>
+              <th scope="col" className={headClass}>
+                Spring <span className="normal-case">k</span> <Unit>N/m</Unit>
+              </th>
               <th scope="col" className={headClass}>Spring joins</th>
             </tr>
           </thead>
@@ -239,7 +244,7 @@ function MatrixInputs({ n, register, errors, labels }: { n: number; register: Us
                   <tr>
                     <td />
                     {Array.from({ length: n }, (_, j) => (
-                      <th key={j} scope="col" className={headClass}>
+                      <th key={j} scope="col" className={`${headClass} normal-case`}>
                         {labels[j]?.trim() || `DOF ${j + 1}`}
                       </th>
                     ))}
@@ -277,7 +282,7 @@ function MatrixInputs({ n, register, errors, labels }: { n: number; register: Us
 }
 
 /** The modes of the model as typed (table and shape plot) and its free vibration. */
-export function ModelResults({ analysis, labels }: { analysis: ModelAnalysis; labels: string[] }) {
+export function ModelResults({ analysis, labels, editing, fromGround }: { analysis: ModelAnalysis; labels: string[]; editing: boolean; fromGround: boolean }) {
   if (!analysis.ok) {
     return (
       <Notice tone="caution" title="No modes yet">
@@ -290,12 +295,13 @@ export function ModelResults({ analysis, labels }: { analysis: ModelAnalysis; la
   return (
     <div className="flex flex-col gap-6">
       <section aria-label="Modes of the model" className="flex flex-col gap-4">
-        <h3 className="text-body font-semibold text-ink">Modes of the model, as entered</h3>
+        <h3 className="text-body font-semibold text-ink">{editing ? 'Modes of the model, as entered' : 'Modes of the model'}</h3>
         <ModelModesTable modes={analysis.modes} dofLabels={dofLabels} />
         <ModeShapeChart
+          fromGround={fromGround}
           dofLabels={dofLabels}
           modes={shown.map((shape, r) => ({ label: `Mode ${r + 1} (${formatNumber(analysis.modes.frequencyHz[r], 4)} Hz)`, shape: scaleToUnitMax(shape) }))}
-          description={`Shapes of the ${shown.length === analysis.modes.dofCount ? '' : `first ${shown.length} of ${analysis.modes.dofCount} `}modes over the degrees of freedom, the ground at 0, each scaled to 1 at its largest entry.`}
+          description={`Shapes of the ${shown.length === analysis.modes.dofCount ? '' : `first ${shown.length} of ${analysis.modes.dofCount} `}modes over the degrees of freedom${fromGround ? ' of the chain, from the ground (0)' : ''}, each scaled to 1 at its largest entry.`}
         />
       </section>
       <FreeVibrationPanel matrices={analysis.matrices} modes={analysis.modes} dofLabels={dofLabels} />
@@ -326,7 +332,7 @@ export function LumpedModelView({ model }: { model: LumpedModel }) {
                   <tr>
                     <td />
                     {labels.map((label, j) => (
-                      <th key={j} scope="col" className={headClass}>
+                      <th key={j} scope="col" className={`${headClass} normal-case`}>
                         {label}
                       </th>
                     ))}
@@ -351,7 +357,7 @@ export function LumpedModelView({ model }: { model: LumpedModel }) {
           </div>
         ))}
       </div>
-      <ModelResults analysis={analysis} labels={labels} />
+      <ModelResults analysis={analysis} labels={labels} editing={false} fromGround={matricesToChain(model.massMatrixKg, model.stiffnessMatrixNPerM) !== null} />
     </div>
   );
 }

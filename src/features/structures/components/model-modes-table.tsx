@@ -1,5 +1,6 @@
 import type { ModalSolution } from '../../../../shared/engine/modal';
 import { Table, Td, Th } from '../../../components/ui/table';
+import { Unit } from '../../../components/ui/unit';
 import { formatNumber } from '../../../lib/format';
 import { dofName } from './lumped-model-analysis';
 import { scaleToUnitMax } from './lumped-model-math';
@@ -11,11 +12,11 @@ export function ModelModesTable({ modes, dofLabels }: { modes: ModalSolution; do
       <thead>
         <tr>
           <Th>Mode</Th>
-          <Th className="text-right">Frequency [Hz]</Th>
-          <Th className="text-right">ω [rad/s]</Th>
-          <Th className="text-right">Period [s]</Th>
+          <Th className="text-right">Frequency <Unit>Hz</Unit></Th>
+          <Th className="text-right"><span className="normal-case">ω</span> <Unit>rad/s</Unit></Th>
+          <Th className="text-right">Period <Unit>s</Unit></Th>
           {dofLabels.map((_, index) => (
-            <Th key={index} className="text-right" title={dofName(dofLabels, index)}>
+            <Th key={index} className="text-right normal-case" title={dofName(dofLabels, index)}>
               φ at {dofLabels[index]?.trim() || `DOF ${index + 1}`}
             </Th>
           ))}

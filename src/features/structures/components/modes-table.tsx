@@ -4,6 +4,7 @@ import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { Table, Td, Th } from '../../../components/ui/table';
+import { Unit } from '../../../components/ui/unit';
 import { describeError } from '../../../lib/api-client';
 import { formatNumber } from '../../../lib/format';
 import { useDeleteMode } from '../api/structures';
@@ -37,10 +38,10 @@ export function ModesTable({ projectId, structureId, modes, models, canEdit }: M
           <tr>
             <Th>Mode</Th>
             <Th>Direction</Th>
-            <Th className="text-right">Frequency [Hz]</Th>
-            <Th className="text-right">Modal mass [kg]</Th>
-            <Th className="text-right">Damping ratio [–]</Th>
-            <Th className="text-right">Mean |φ| [–]</Th>
+            <Th className="text-right">Frequency <Unit>Hz</Unit></Th>
+            <Th className="text-right">Modal mass <Unit>kg</Unit></Th>
+            <Th className="text-right">Damping ratio <Unit>–</Unit></Th>
+            <Th className="text-right">Mean <span className="normal-case">|φ|</span> <Unit>–</Unit></Th>
             <Th>Source</Th>
             {canEdit ? <Th><span className="sr-only">Actions</span></Th> : null}
           </tr>
