@@ -25,9 +25,10 @@ export function AboutRoute() {
             after installation the team checks the as-built structure against site measurements.
           </p>
           <p>
-            This first release holds the organisation, its people and roles, and its projects. The engineering pages
-            (modes, load cases, comfort criteria, tuning variants, hardware sheet, sign-off and site records) follow and are
-            marked as not yet available in each project.
+            This release holds the organisation, its people and roles, and its projects with their structural model:
+            structures and their modes (typed in, derived from a beam or taken from a lumped n-DOF model whose modes and
+            free vibration are computed as you type), load cases and comfort criteria. Tuning variants, the hardware
+            sheet, sign-off and site records follow and are marked as not yet available in each project.
           </p>
         </div>
       </Panel>
