@@ -13,7 +13,7 @@ import {
   type UpdateModeInput,
   type UpdateStructureInput,
 } from '../../../../shared/contracts';
-import { apiRequest } from '../../../lib/api-client';
+import { apiRequest, isApiError } from '../../../lib/api-client';
 
 /**
  * Keys form a tree under the project's (['projects', projectId]): invalidating a structure's key refreshes its
@@ -76,6 +76,8 @@ export function useUpdateStructure(projectId: string, structureId: string) {
       queryClient.setQueryData(structureKeys.detail(projectId, structureId), structure);
       return queryClient.invalidateQueries({ queryKey: structureKeys.all(projectId) });
     },
+    // Someone else changed it: fetch theirs, so that the page shows the stored structure after the refusal.
+    onError: (error) => (isApiError(error) && error.isConflict ? queryClient.invalidateQueries({ queryKey: structureKeys.detail(projectId, structureId) }) : undefined),
   });
 }
 
@@ -132,6 +134,12 @@ export function useUpdateLumpedModel(projectId: string, structureId: string) {
       apiRequest(`${modelsPath(projectId, structureId)}/${e(modelId)}`, { method: 'PATCH', body: input, schema: lumpedModelSchema }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: structureKeys.detail(projectId, structureId) }),
   });
+}
+
+/** Fetches the structure's models again (after a refused stale save, say). */
+export function useReloadLumpedModels(projectId: string, structureId: string) {
+  const queryClient = useQueryClient();
+  return () => queryClient.invalidateQueries({ queryKey: structureKeys.models(projectId, structureId) });
 }
 
 export function useDeleteLumpedModel(projectId: string, structureId: string) {

@@ -11,7 +11,7 @@ import { isApiError } from '../../../lib/api-client';
 import { applyServerIssues } from '../../../lib/form-errors';
 import { numberOrUndefined } from '../../../lib/form-values';
 import { formatNumber } from '../../../lib/format';
-import { useCreateLumpedModel, useUpdateLumpedModel } from '../api/structures';
+import { useCreateLumpedModel, useReloadLumpedModels, useUpdateLumpedModel } from '../api/structures';
 import { FreeVibrationPanel } from './free-vibration-panel';
 import { analyseModel, dofName, type ModelAnalysis } from './lumped-model-analysis';
 import {
@@ -52,6 +52,7 @@ interface LumpedModelEditorProps {
 export function LumpedModelEditor({ projectId, structureId, model, onSaved, onCancel }: LumpedModelEditorProps) {
   const createModel = useCreateLumpedModel(projectId, structureId);
   const updateModel = useUpdateLumpedModel(projectId, structureId);
+  const reloadModels = useReloadLumpedModels(projectId, structureId);
   const [formError, setFormError] = useState<string | null>(null);
   const [entryProblem, setEntryProblem] = useState<string | null>(null);
   const [stale, setStale] = useState(false);
@@ -98,9 +99,17 @@ export function LumpedModelEditor({ projectId, structureId, model, onSaved, onCa
     <div className="flex flex-col gap-6">
       <form onSubmit={onSubmit} noValidate aria-label={model ? `Edit model ${model.name}` : 'New lumped model'} className="flex flex-col gap-5">
         {stale ? (
-          <Notice tone="caution" title="Changed by someone else">
-            Someone changed this model after you opened it, so your changes were not saved. Cancel to see the latest model,
-            then make your change again.
+          <Notice
+            tone="caution"
+            title="Changed by someone else"
+            action={
+              <Button tone="secondary" onClick={() => void reloadModels()}>
+                Reload model
+              </Button>
+            }
+          >
+            Someone changed this model after you opened it, so your changes were not saved. Reload to see the stored model
+            (your edits here will be replaced), then make your change again.
           </Notice>
         ) : null}
         {formError ? (
@@ -167,6 +176,7 @@ export function LumpedModelEditor({ projectId, structureId, model, onSaved, onCa
 
 function ChainInputs({ n, register, errors, labels }: { n: number; register: UseFormRegister<ModelFormValues>; errors: FieldErrors<ModelFormValues>; labels: string[] }) {
   const problems = Array.from({ length: n }, (_, i) => [errorAt(errors, `massesKg.${i}`), errorAt(errors, `springsNPerM.${i}`)] as const);
+  const matrixProblems = [errorAt(errors, 'massMatrixKg'), errorAt(errors, 'stiffnessMatrixNPerM')].filter(Boolean);
   return (
     <div className="flex flex-col gap-2">
       <p className="text-small text-ink-soft">
@@ -213,6 +223,11 @@ function ChainInputs({ n, register, errors, labels }: { n: number; register: Use
         mass ? <p key={`m${i}`} className="text-caption font-medium text-signal-error">Mass m{i + 1}: {mass}</p> : null,
         spring ? <p key={`k${i}`} className="text-caption font-medium text-signal-error">Spring k{i + 1}: {spring}</p> : null,
       ])}
+      {matrixProblems.map((problem) => (
+        <p key={problem} className="text-caption font-medium text-signal-error">
+          The matrices of the chain: {problem}
+        </p>
+      ))}
     </div>
   );
 }

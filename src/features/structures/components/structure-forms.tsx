@@ -59,6 +59,8 @@ export function EditStructureForm({ structure, onDone }: { structure: Structure;
   const updateStructure = useUpdateStructure(structure.projectId, structure.id);
   const [formError, setFormError] = useState<string | null>(null);
   const [stale, setStale] = useState(false);
+  // The version this form was opened on: a change stored meanwhile must be seen before saving over it.
+  const [versionRead] = useState(structure.version);
   const {
     register,
     handleSubmit,
@@ -69,7 +71,7 @@ export function EditStructureForm({ structure, onDone }: { structure: Structure;
   const onSubmit = handleSubmit((values) => {
     setFormError(null);
     setStale(false);
-    updateStructure.mutate(structureChanges(values, structure.version), {
+    updateStructure.mutate(structureChanges(values, versionRead), {
       onSuccess: () => onDone(true),
       onError: (error) => {
         if (isApiError(error) && error.isConflict) setStale(true);
@@ -82,8 +84,8 @@ export function EditStructureForm({ structure, onDone }: { structure: Structure;
     <form onSubmit={onSubmit} noValidate aria-label="Edit structure" className="flex flex-col gap-5">
       {stale ? (
         <Notice tone="caution" title="Changed by someone else">
-          Someone changed this structure after you opened it, so your changes were not saved. Cancel to see the latest
-          details, then make your change again.
+          Someone changed this structure after you opened it, so your changes were not saved. Cancel to see the stored
+          details (fetched again just now), then make your change again.
         </Notice>
       ) : null}
       {formError ? (
