@@ -1,0 +1,255 @@
+import { EngineInputError } from '../linalg';
+import { fitFreeDecay, type DecayResult } from './decay';
+import { designBandPass, filterZeroPhase } from './filter';
+import { findHalfPower, findSpectrumPeak, fitSingleMode, type HalfPower, type SingleModeFit, type SpectrumPeak } from './fit-spectrum';
+import { chooseSegmentLength, MIN_SEGMENTS, welchPsd, type WelchSpectrum } from './welch';
+
+/**
+ * As-built frequency and damping of one mode from a site record of acceleration: either from the spectrum of an
+ * ambient response (`spectrum`) or from a free decay (`decay`). See docs/engine.md, "Site records".
+ */
+
+export const identificationMethods = ['spectrum', 'decay'] as const;
+export type IdentificationMethod = (typeof identificationMethods)[number];
+
+/** Longest record accepted (2²² samples: 11.6 h at 100 Hz). */
+export const MAX_SAMPLES = 2 ** 22;
+/** Shortest record accepted, in samples. */
+export const MIN_SAMPLES = 64;
+/** A record must span at least this many periods of the band's lower edge. */
+export const MIN_PERIODS = 10;
+/** Default band when none is given: 0.5 Hz (below lateral pedestrian modes) to 15 Hz or 0.45 f_s (common practice). */
+export const DEFAULT_BAND_LOW_HZ = 0.5;
+export const DEFAULT_BAND_HIGH_HZ = 15;
+/** Highest sampling rate accepted. */
+export const MAX_SAMPLE_RATE_HZ = 100_000;
+/** Automatic choice: a record whose band-passed RMS falls by this factor (12 dB) from its strongest eighth to its last eighth is a free decay. */
+export const DECAY_DROP_RATIO = 4;
+
+export interface IdentifyOptions {
+  bandHz?: readonly [number, number];
+  method?: IdentificationMethod;
+}
+
+export interface InputIssue {
+  path: string;
+  message: string;
+}
+
+/** The band used for a record: the given one, or the default. */
+export function identificationBand(sampleRateHz: number, bandHz?: readonly [number, number]): [number, number] {
+  return bandHz ? [bandHz[0], bandHz[1]] : [DEFAULT_BAND_LOW_HZ, Math.min(DEFAULT_BAND_HIGH_HZ, 0.45 * sampleRateHz)];
+}
+
+/**
+ * Every reason to refuse a record, with the request's field names: sampleRateHz finite and in (0, 100 kHz];
+ * every sample finite (the first few bad ones named by index); 64 to 2²² samples spanning at least 10 periods of the
+ * band's lower edge; the band inside (0, Nyquist) with low < high. Shared by the contract and the engine.
+ */
+export function checkIdentifyInput(sampleRateHz: unknown, samples: ArrayLike<unknown>, bandHz?: readonly unknown[]): InputIssue[] {
+  const issues: InputIssue[] = [];
+  const rateOk = typeof sampleRateHz === 'number' && Number.isFinite(sampleRateHz) && sampleRateHz > 0 && sampleRateHz <= MAX_SAMPLE_RATE_HZ;
+  if (!rateOk) {
+    issues.push({ path: 'sampleRateHz', message: `sampleRateHz: must be a finite number greater than 0 and at most ${MAX_SAMPLE_RATE_HZ} Hz (got ${String(sampleRateHz)})` });
+  }
+  const n = samples.length;
+  let bad = 0;
+  for (let i = 0; i < n; i++) {
+    const value = samples[i];
+    if (typeof value !== 'number' || !Number.isFinite(value)) {
+      if (bad < 5) issues.push({ path: `accelerationMPerS2.${i}`, message: `accelerationMPerS2.${i}: must be a finite number (got ${value === undefined ? 'nothing' : JSON.stringify(value) ?? String(value)})` });
+      bad++;
+    }
+  }
+  if (bad > 5) issues.push({ path: 'accelerationMPerS2', message: `accelerationMPerS2: ${bad} samples are not finite numbers (the first 5 are named)` });
+  if (n > MAX_SAMPLES) {
+    issues.push({ path: 'accelerationMPerS2', message: `accelerationMPerS2: must have at most ${MAX_SAMPLES} samples (got ${n}); split the record` });
+  } else if (n < MIN_SAMPLES) {
+    issues.push({ path: 'accelerationMPerS2', message: `accelerationMPerS2: must have at least ${MIN_SAMPLES} samples (got ${n})` });
+  }
+  if (!rateOk) return issues;
+  const rate = sampleRateHz as number;
+  const nyquistHz = rate / 2;
+  let band: [number, number] | null = null;
+  if (bandHz !== undefined) {
+    const [lo, hi] = bandHz;
+    if (bandHz.length !== 2 || typeof lo !== 'number' || typeof hi !== 'number' || !(lo > 0) || !(hi > lo) || !(hi < nyquistHz)) {
+      issues.push({
+        path: 'bandHz',
+        message: `bandHz: must be [low, high] with 0 < low < high < the Nyquist frequency ${nyquistHz} Hz (half of sampleRateHz) (got ${JSON.stringify(bandHz)})`,
+      });
+    } else band = [lo, hi];
+  } else {
+    band = identificationBand(rate);
+    if (!(band[1] > band[0])) {
+      issues.push({ path: 'sampleRateHz', message: `sampleRateHz: ${rate} Hz is too low for the default band from ${DEFAULT_BAND_LOW_HZ} Hz; give bandHz or sample faster` });
+      band = null;
+    }
+  }
+  if (band && n >= MIN_SAMPLES && n <= MAX_SAMPLES) {
+    const durationS = n / rate;
+    const neededS = MIN_PERIODS / band[0];
+    if (durationS < neededS) {
+      issues.push({
+        path: 'accelerationMPerS2',
+        message: `accelerationMPerS2: the record lasts ${durationS.toPrecision(4)} s, shorter than ${MIN_PERIODS} periods of the band's lower edge ${band[0]} Hz (${neededS.toPrecision(4)} s = ${Math.ceil(neededS * rate)} samples)`,
+      });
+    }
+  }
+  return issues;
+}
+
+export interface IdentifyResult {
+  method: IdentificationMethod;
+  methodChosenBy: 'request' | 'record';
+  methodNote: string;
+  bandHz: [number, number];
+  frequencyHz: number | null;
+  dampingRatio: number | null;
+  sampleCount: number;
+  durationS: number;
+  peakAccelerationMPerS2: number;
+  rmsAccelerationMPerS2: number;
+  spectrum: WelchSpectrum;
+  peak: SpectrumPeak | null;
+  halfPower: HalfPower | null;
+  spectrumFit: SingleModeFit | null;
+  decay: DecayResult | null;
+  warnings: string[];
+}
+
+/** RMS of the band-passed record in eight blocks: decay when the strongest block is in the first half and the last one is 12 dB down. */
+function chooseMethod(record: Float64Array, sampleRateHz: number, bandHz: [number, number]): { method: IdentificationMethod; note: string } {
+  const filter = designBandPass(bandHz[0], Math.min(bandHz[1], 0.95 * (sampleRateHz / 2)), sampleRateHz);
+  const filtered = filterZeroPhase(filter, record, sampleRateHz);
+  const blocks = 8;
+  const size = Math.floor(filtered.length / blocks);
+  const rms = new Float64Array(blocks);
+  for (let b = 0; b < blocks; b++) {
+    let sum = 0;
+    for (let i = b * size; i < (b + 1) * size; i++) sum += filtered[i] * filtered[i];
+    rms[b] = Math.sqrt(sum / size);
+  }
+  let strongest = 0;
+  for (let b = 1; b < blocks; b++) if (rms[b] > rms[strongest]) strongest = b;
+  const dropDb = 20 * Math.log10(rms[strongest] / rms[blocks - 1]);
+  const isDecay = strongest < blocks / 2 && rms[strongest] >= DECAY_DROP_RATIO * rms[blocks - 1];
+  const dropText = Number.isFinite(dropDb) ? `${dropDb.toFixed(1)} dB` : 'to nothing';
+  return isDecay
+    ? { method: 'decay', note: `chosen from the record: its response in the band falls by ${dropText} from its strongest eighth (the ${strongest + 1}. of 8) to its last, as a free decay does` }
+    : { method: 'spectrum', note: `chosen from the record: its response in the band does not die away (strongest eighth ${strongest + 1} of 8, ${dropText} above the last), as an ambient response does` };
+}
+
+/** Identifies the frequency and damping ratio of the clearest mode in the band. `record` is acceleration in m/s². */
+export function identifyMode(record: Float64Array, sampleRateHz: number, options: IdentifyOptions = {}): IdentifyResult {
+  const issues = checkIdentifyInput(sampleRateHz, record, options.bandHz);
+  if (issues.length > 0) throw new EngineInputError(issues[0].path, issues[0].message);
+  const n = record.length;
+  const bandHz = identificationBand(sampleRateHz, options.bandHz);
+  const warnings: string[] = [];
+
+  let mean = 0;
+  for (let i = 0; i < n; i++) mean += record[i];
+  mean /= n;
+  const centred = new Float64Array(n);
+  let peakAcceleration = 0;
+  let sumSquares = 0;
+  for (let i = 0; i < n; i++) {
+    const a = record[i] - mean;
+    centred[i] = a;
+    peakAcceleration = Math.max(peakAcceleration, Math.abs(a));
+    sumSquares += a * a;
+  }
+
+  const { method, note } = options.method ? { method: options.method, note: 'as requested' } : chooseMethod(centred, sampleRateHz, bandHz);
+
+  // First spectrum: fine enough for the band's lower edge, as long as sixteen segments fit.
+  let spectrum = welchPsd(centred, sampleRateHz, chooseSegmentLength(n, sampleRateHz, bandHz[0], { minSegments: 2 * MIN_SEGMENTS }));
+  let search = findSpectrumPeak(spectrum.frequencyHz, spectrum.psd, bandHz);
+  let peak: SpectrumPeak | null = null;
+  let halfPower: HalfPower | null = null;
+  let spectrumFit: SingleModeFit | null = null;
+  let decay: DecayResult | null = null;
+  let frequencyHz: number | null = null;
+  let dampingRatio: number | null = null;
+  let startDampingRatio = 0;
+
+  if (method === 'spectrum' && search.found) {
+    // Second spectrum: segments as long as needed for the half-power bandwidth 2ζf of the damping a first fit finds
+    // to span two lines, and no longer, so that as many segments as possible are averaged (the fit accounts for the
+    // window's smoothing, so two lines leave ζ unbiased; see fitSingleMode).
+    const first = search.peak;
+    const firstHalfPower = findHalfPower(spectrum.frequencyHz, spectrum.psd, first, bandHz);
+    const firstFit = fitSingleMode(spectrum.frequencyHz, spectrum.psd, first, bandHz, firstHalfPower?.dampingRatio ?? 0);
+    startDampingRatio = firstFit.dampingRatio;
+    const segmentLength = chooseSegmentLength(n, sampleRateHz, first.frequencyHz, { referenceDampingRatio: firstFit.dampingRatio });
+    if (segmentLength !== spectrum.segmentLength) {
+      spectrum = welchPsd(centred, sampleRateHz, segmentLength);
+      search = findSpectrumPeak(spectrum.frequencyHz, spectrum.psd, bandHz);
+    }
+  }
+  if (!search.found) {
+    warnings.push(`${search.reason}; no frequency or damping is reported.`);
+  } else {
+    peak = search.peak;
+    halfPower = findHalfPower(spectrum.frequencyHz, spectrum.psd, peak, bandHz);
+    if (method === 'spectrum') {
+      spectrumFit = fitSingleMode(spectrum.frequencyHz, spectrum.psd, peak, bandHz, startDampingRatio || (halfPower?.dampingRatio ?? 0));
+      const lines = (2 * spectrumFit.dampingRatio * spectrumFit.naturalFrequencyHz) / spectrum.resolutionHz;
+      if (spectrumFit.atBound) {
+        warnings.push(
+          `The single-mode fit ended on a limit of its search (f = ${spectrumFit.naturalFrequencyHz.toPrecision(5)} Hz, ζ = ${spectrumFit.dampingRatio.toPrecision(3)}): the peak does not look like one mode; no frequency or damping is reported.`,
+        );
+      } else {
+        frequencyHz = spectrumFit.naturalFrequencyHz;
+        dampingRatio = spectrumFit.dampingRatio;
+        if (lines < 2) {
+          warnings.push(
+            `The spectral resolution ${spectrum.resolutionHz.toPrecision(3)} Hz is coarse for this damping: the half-power bandwidth 2ζf spans ${lines.toFixed(1)} lines (2 or more wanted); a longer record gives a surer ζ.`,
+          );
+        }
+        if (spectrum.segmentCount < 8) {
+          warnings.push(`Only ${spectrum.segmentCount} segments were averaged (8 or more wanted): the spectrum is noisy; a longer record gives a surer ζ.`);
+        }
+        if (spectrumFit.rSquared < 0.8) {
+          warnings.push(`The single-mode shape fits the spectrum poorly (R² = ${spectrumFit.rSquared.toFixed(2)} on the logarithms): a second mode or a narrow-band excitation may be near; check the plot.`);
+        }
+      }
+      if (halfPower && halfPower.bandwidthLines < 4) {
+        warnings.push(`The half-power cross-check spans only ${halfPower.bandwidthLines.toFixed(1)} spectral lines; with the window's smoothing it overestimates ζ.`);
+      }
+    } else {
+      decay = fitFreeDecay(centred, sampleRateHz, peak.frequencyHz, bandHz);
+      if (decay.found) {
+        frequencyHz = decay.fit.naturalFrequencyHz;
+        dampingRatio = decay.fit.dampingRatio;
+        if (decay.fit.rSquared < 0.95) {
+          warnings.push(`The logarithm of the envelope is not a straight line (R² = ${decay.fit.rSquared.toFixed(3)}): beating of two close modes or amplitude-dependent damping; check the plot.`);
+        }
+      } else {
+        warnings.push(`${decay.reason}; no frequency or damping is reported.`);
+      }
+    }
+  }
+  if (method === 'decay' && !options.method && decay && !decay.found) {
+    warnings.push('The record was taken as a free decay; if it is an ambient response, ask for method "spectrum".');
+  }
+  return {
+    method,
+    methodChosenBy: options.method ? 'request' : 'record',
+    methodNote: note,
+    bandHz,
+    frequencyHz,
+    dampingRatio,
+    sampleCount: n,
+    durationS: n / sampleRateHz,
+    peakAccelerationMPerS2: peakAcceleration,
+    rmsAccelerationMPerS2: Math.sqrt(sumSquares / n),
+    spectrum,
+    peak,
+    halfPower,
+    spectrumFit,
+    decay,
+    warnings,
+  };
+}
