@@ -41,62 +41,78 @@ export function identificationBand(sampleRateHz: number, bandHz?: readonly [numb
   return bandHz ? [bandHz[0], bandHz[1]] : [DEFAULT_BAND_LOW_HZ, Math.min(DEFAULT_BAND_HIGH_HZ, 0.45 * sampleRateHz)];
 }
 
-/**
- * Every reason to refuse a record, with the request's field names: sampleRateHz finite and in (0, 100 kHz];
- * every sample finite (the first few bad ones named by index); 64 to 2²² samples spanning at least 10 periods of the
- * band's lower edge; the band inside (0, Nyquist) with low < high. Shared by the contract and the engine.
- */
-export function checkIdentifyInput(sampleRateHz: unknown, samples: ArrayLike<unknown>, bandHz?: readonly unknown[]): InputIssue[] {
+/** sampleRateHz: finite and in (0, 100 kHz]. */
+export function checkSampleRate(sampleRateHz: unknown): InputIssue[] {
+  const ok = typeof sampleRateHz === 'number' && Number.isFinite(sampleRateHz) && sampleRateHz > 0 && sampleRateHz <= MAX_SAMPLE_RATE_HZ;
+  return ok ? [] : [{ path: 'sampleRateHz', message: `sampleRateHz: must be a finite number greater than 0 and at most ${MAX_SAMPLE_RATE_HZ} Hz (got ${String(sampleRateHz)})` }];
+}
+
+/** accelerationMPerS2: 64 to 2²² samples, every one finite (the first five bad ones named by index, then a count). */
+export function checkSamples(samples: ArrayLike<unknown>): InputIssue[] {
   const issues: InputIssue[] = [];
-  const rateOk = typeof sampleRateHz === 'number' && Number.isFinite(sampleRateHz) && sampleRateHz > 0 && sampleRateHz <= MAX_SAMPLE_RATE_HZ;
-  if (!rateOk) {
-    issues.push({ path: 'sampleRateHz', message: `sampleRateHz: must be a finite number greater than 0 and at most ${MAX_SAMPLE_RATE_HZ} Hz (got ${String(sampleRateHz)})` });
-  }
   const n = samples.length;
+  if (n > MAX_SAMPLES) {
+    return [{ path: 'accelerationMPerS2', message: `accelerationMPerS2: must have at most ${MAX_SAMPLES} samples (got ${n}); split the record` }];
+  }
+  if (n < MIN_SAMPLES) issues.push({ path: 'accelerationMPerS2', message: `accelerationMPerS2: must have at least ${MIN_SAMPLES} samples (got ${n})` });
   let bad = 0;
   for (let i = 0; i < n; i++) {
     const value = samples[i];
     if (typeof value !== 'number' || !Number.isFinite(value)) {
-      if (bad < 5) issues.push({ path: `accelerationMPerS2.${i}`, message: `accelerationMPerS2.${i}: must be a finite number (got ${value === undefined ? 'nothing' : JSON.stringify(value) ?? String(value)})` });
+      if (bad < 5) {
+        const shown = value === undefined ? 'nothing' : typeof value === 'number' ? String(value) : JSON.stringify(value);
+        issues.push({ path: `accelerationMPerS2.${i}`, message: `accelerationMPerS2.${i}: must be a finite number in m/s² (got ${shown})` });
+      }
       bad++;
     }
   }
   if (bad > 5) issues.push({ path: 'accelerationMPerS2', message: `accelerationMPerS2: ${bad} samples are not finite numbers (the first 5 are named)` });
-  if (n > MAX_SAMPLES) {
-    issues.push({ path: 'accelerationMPerS2', message: `accelerationMPerS2: must have at most ${MAX_SAMPLES} samples (got ${n}); split the record` });
-  } else if (n < MIN_SAMPLES) {
-    issues.push({ path: 'accelerationMPerS2', message: `accelerationMPerS2: must have at least ${MIN_SAMPLES} samples (got ${n})` });
-  }
-  if (!rateOk) return issues;
-  const rate = sampleRateHz as number;
-  const nyquistHz = rate / 2;
-  let band: [number, number] | null = null;
+  return issues;
+}
+
+/**
+ * The band against the sampling rate (0 < low < high < Nyquist; the default band needs f_s above 1.1 Hz) and the
+ * record's length against the band: at least 10 periods of its lower edge. `sampleCount` out of range is not
+ * checked again here.
+ */
+export function checkRecordAgainstBand(sampleRateHz: number, sampleCount: number, bandHz?: readonly number[]): InputIssue[] {
+  const nyquistHz = sampleRateHz / 2;
+  let band: [number, number];
   if (bandHz !== undefined) {
     const [lo, hi] = bandHz;
-    if (bandHz.length !== 2 || typeof lo !== 'number' || typeof hi !== 'number' || !(lo > 0) || !(hi > lo) || !(hi < nyquistHz)) {
-      issues.push({
-        path: 'bandHz',
-        message: `bandHz: must be [low, high] with 0 < low < high < the Nyquist frequency ${nyquistHz} Hz (half of sampleRateHz) (got ${JSON.stringify(bandHz)})`,
-      });
-    } else band = [lo, hi];
+    if (bandHz.length !== 2 || !(lo > 0) || !(hi > lo) || !(hi < nyquistHz)) {
+      return [
+        {
+          path: 'bandHz',
+          message: `bandHz: must be [low, high] with 0 < low < high < the Nyquist frequency ${nyquistHz} Hz (half of sampleRateHz) (got ${JSON.stringify(bandHz)})`,
+        },
+      ];
+    }
+    band = [lo, hi];
   } else {
-    band = identificationBand(rate);
+    band = identificationBand(sampleRateHz);
     if (!(band[1] > band[0])) {
-      issues.push({ path: 'sampleRateHz', message: `sampleRateHz: ${rate} Hz is too low for the default band from ${DEFAULT_BAND_LOW_HZ} Hz; give bandHz or sample faster` });
-      band = null;
+      return [{ path: 'sampleRateHz', message: `sampleRateHz: ${sampleRateHz} Hz is too low for the default band from ${DEFAULT_BAND_LOW_HZ} Hz; give bandHz or sample faster` }];
     }
   }
-  if (band && n >= MIN_SAMPLES && n <= MAX_SAMPLES) {
-    const durationS = n / rate;
-    const neededS = MIN_PERIODS / band[0];
-    if (durationS < neededS) {
-      issues.push({
-        path: 'accelerationMPerS2',
-        message: `accelerationMPerS2: the record lasts ${durationS.toPrecision(4)} s, shorter than ${MIN_PERIODS} periods of the band's lower edge ${band[0]} Hz (${neededS.toPrecision(4)} s = ${Math.ceil(neededS * rate)} samples)`,
-      });
-    }
-  }
-  return issues;
+  if (sampleCount < MIN_SAMPLES || sampleCount > MAX_SAMPLES) return [];
+  const durationS = sampleCount / sampleRateHz;
+  const neededS = MIN_PERIODS / band[0];
+  if (durationS >= neededS) return [];
+  return [
+    {
+      path: 'accelerationMPerS2',
+      message: `accelerationMPerS2: the record lasts ${durationS.toPrecision(4)} s, shorter than ${MIN_PERIODS} periods of the band's lower edge ${band[0]} Hz (${neededS.toPrecision(4)} s = ${Math.ceil(neededS * sampleRateHz)} samples)`,
+    },
+  ];
+}
+
+/** Every reason to refuse a record, with the request's field names (used by `identifyMode`; the contract runs the same checks). */
+export function checkIdentifyInput(sampleRateHz: unknown, samples: ArrayLike<unknown>, bandHz?: readonly number[]): InputIssue[] {
+  const rate = checkSampleRate(sampleRateHz);
+  const sampleIssues = checkSamples(samples);
+  if (rate.length > 0) return [...rate, ...sampleIssues];
+  return [...sampleIssues, ...checkRecordAgainstBand(sampleRateHz as number, samples.length, bandHz)];
 }
 
 export interface IdentifyResult {
@@ -136,8 +152,8 @@ function chooseMethod(record: Float64Array, sampleRateHz: number, bandHz: [numbe
   const isDecay = strongest < blocks / 2 && rms[strongest] >= DECAY_DROP_RATIO * rms[blocks - 1];
   const dropText = Number.isFinite(dropDb) ? `${dropDb.toFixed(1)} dB` : 'to nothing';
   return isDecay
-    ? { method: 'decay', note: `chosen from the record: its response in the band falls by ${dropText} from its strongest eighth (the ${strongest + 1}. of 8) to its last, as a free decay does` }
-    : { method: 'spectrum', note: `chosen from the record: its response in the band does not die away (strongest eighth ${strongest + 1} of 8, ${dropText} above the last), as an ambient response does` };
+    ? { method: 'decay', note: `chosen from the record: its response in the band falls by ${dropText} from its strongest eighth (number ${strongest + 1} of 8) to its last eighth, as a free decay does` }
+    : { method: 'spectrum', note: `chosen from the record: its response in the band does not die away (its strongest eighth, number ${strongest + 1} of 8, is ${dropText} above its last eighth), as an ambient response does` };
 }
 
 /** Identifies the frequency and damping ratio of the clearest mode in the band. `record` is acceleration in m/s². */
@@ -163,8 +179,10 @@ export function identifyMode(record: Float64Array, sampleRateHz: number, options
 
   const { method, note } = options.method ? { method: options.method, note: 'as requested' } : chooseMethod(centred, sampleRateHz, bandHz);
 
-  // First spectrum: fine enough for the band's lower edge, as long as sixteen segments fit.
-  let spectrum = welchPsd(centred, sampleRateHz, chooseSegmentLength(n, sampleRateHz, bandHz[0], { minSegments: 2 * MIN_SEGMENTS }));
+  // First spectrum: fine enough for the band's lower edge, as long as sixteen segments fit (four for a free decay,
+  // whose spectrum only locates the mode and shows it; the phase of the decay gives the frequency).
+  const minSegments = method === 'spectrum' ? 2 * MIN_SEGMENTS : MIN_SEGMENTS / 2;
+  let spectrum = welchPsd(centred, sampleRateHz, chooseSegmentLength(n, sampleRateHz, bandHz[0], { minSegments }));
   let search = findSpectrumPeak(spectrum.frequencyHz, spectrum.psd, bandHz);
   let peak: SpectrumPeak | null = null;
   let halfPower: HalfPower | null = null;
@@ -192,8 +210,9 @@ export function identifyMode(record: Float64Array, sampleRateHz: number, options
     warnings.push(`${search.reason}; no frequency or damping is reported.`);
   } else {
     peak = search.peak;
-    halfPower = findHalfPower(spectrum.frequencyHz, spectrum.psd, peak, bandHz);
     if (method === 'spectrum') {
+      // The half-power cross-check belongs to a stationary response; a decay's is shaped by where it lies in the segments.
+      halfPower = findHalfPower(spectrum.frequencyHz, spectrum.psd, peak, bandHz);
       spectrumFit = fitSingleMode(spectrum.frequencyHz, spectrum.psd, peak, bandHz, startDampingRatio || (halfPower?.dampingRatio ?? 0));
       const lines = (2 * spectrumFit.dampingRatio * spectrumFit.naturalFrequencyHz) / spectrum.resolutionHz;
       if (spectrumFit.atBound) {
