@@ -1,5 +1,5 @@
 import { analyticSignal } from './fft';
-import { designBandPass, filterZeroPhase } from './filter';
+import { designBandPass, filterZeroPhase, zeroPhaseGain } from './filter';
 
 /**
  * Damping and frequency of a free decay. The record is band-passed around the mode without phase shift
@@ -91,6 +91,9 @@ export function fitFreeDecay(record: Float64Array, sampleRateHz: number, peakHz:
   const highHz = Math.min(1.2 * peakHz, bandHz[1], 0.95 * nyquistHz);
   const filter = designBandPass(lowHz, highHz, sampleRateHz);
   const filtered = filterZeroPhase(filter, record, sampleRateHz);
+  // Undo the filter's gain at the mode, so that the envelope is the mode's own acceleration amplitude.
+  const gain = zeroPhaseGain(filter, peakHz, sampleRateHz);
+  for (let i = 0; i < n; i++) filtered[i] /= gain;
   const envelopeFull = new Float64Array(n);
   const phase = new Float64Array(n);
   analyticSignal(filtered, envelopeFull, phase);

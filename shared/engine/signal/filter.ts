@@ -91,7 +91,7 @@ export function filterZeroPhase(filter: BandPassFilter, record: Float64Array, sa
   return work.slice(pad, pad + n);
 }
 
-/** |H(f)|² of the forward-backward filter (the squared magnitude of the one-way filter) at `frequencyHz`. */
+/** Amplitude gain of the forward-backward filter at `frequencyHz`: |H(f)|², the squared magnitude of the one-way filter. */
 export function zeroPhaseGain(filter: BandPassFilter, frequencyHz: number, sampleRateHz: number): number {
   const w = (2 * Math.PI * frequencyHz) / sampleRateHz;
   const c1 = Math.cos(w);
@@ -108,5 +108,5 @@ export function zeroPhaseGain(filter: BandPassFilter, frequencyHz: number, sampl
     const denIm = -(a1 * s1 + a2 * s2);
     gain *= (numRe * numRe + numIm * numIm) / (denRe * denRe + denIm * denIm);
   }
-  return gain * gain;
+  return gain;
 }

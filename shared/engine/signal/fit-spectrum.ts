@@ -144,6 +144,8 @@ export interface SingleModeFit {
 /** The fit spans f_p ± this many × ζ₀f_p (four half-power bandwidths each side: the skirts carry as much about ζ as the top). */
 export const FIT_HALF_WIDTH_DAMPINGS = 8;
 const MIN_DAMPING = 1e-4;
+/** At most this many rounds of ten Levenberg–Marquardt iterations. */
+const FIT_ROUNDS = 20;
 const MAX_DAMPING = 0.3;
 
 /**
@@ -159,7 +161,7 @@ export function fitSingleMode(
   peak: SpectrumPeak,
   bandHz: readonly [number, number],
   startDampingRatio: number,
-): SingleModeFit {
+): SingleModeFit | null {
   const step = frequencyHz[1] - frequencyHz[0];
   const fp = peak.frequencyHz;
   const zeta0 = Math.min(MAX_DAMPING / 2, Math.max(startDampingRatio, step / fp, MIN_DAMPING * 10));
@@ -176,8 +178,10 @@ export function fitSingleMode(
   const scale = peak.psd;
   let background0 = Infinity;
   for (let i = 0; i < count; i++) {
-    y[i] = Math.log(psd[first + i] / scale);
-    background0 = Math.min(background0, psd[first + i] / scale);
+    // Lines of exactly zero (a synthetic or clipped record) are floored 240 dB below the peak to keep logarithms finite.
+    const value = Math.max(psd[first + i] / scale, 1e-24);
+    y[i] = Math.log(value);
+    background0 = Math.min(background0, value);
   }
   const { offsetsLines, weights } = hannLineKernel();
   const kernelSize = weights.length;
@@ -193,17 +197,37 @@ export function fitSingleMode(
     };
   };
   const frequencyRange = Math.max(0.02, (3 * step) / fp);
-  const result = levenbergMarquardt({ x, y }, model, {
-    initialValues: [0, 1, Math.log(zeta0), Math.min(background0, 0.01)],
-    minValues: [Math.log(1e-3), 1 - frequencyRange, Math.log(MIN_DAMPING), 0],
-    maxValues: [Math.log(1e3), 1 + frequencyRange, Math.log(MAX_DAMPING), 1],
-    gradientDifference: [1e-6, 1e-7, 1e-6, 1e-7],
-    centralDifference: true,
-    damping: 1e-2,
-    maxIterations: 200,
-    errorTolerance: 1e-12,
-  });
+  // ml-levenberg-marquardt stops only on an absolute error or an iteration count: run it in rounds of ten
+  // iterations from where the last round ended, until a round no longer lowers the sum of squares by 1 part in 10⁹.
+  let parameters = [0, 1, Math.log(zeta0), Math.min(background0, 0.01)];
+  let error = Infinity;
+  let iterations = 0;
+  try {
+    for (let round = 0; round < FIT_ROUNDS; round++) {
+      const result = levenbergMarquardt({ x, y }, model, {
+        initialValues: parameters,
+        minValues: [Math.log(1e-3), 1 - frequencyRange, Math.log(MIN_DAMPING), 0],
+        maxValues: [Math.log(1e3), 1 + frequencyRange, Math.log(MAX_DAMPING), 1],
+        gradientDifference: [1e-6, 1e-7, 1e-6, 1e-7],
+        centralDifference: true,
+        damping: 1e-2,
+        maxIterations: 10,
+        errorTolerance: 1e-12,
+      });
+      iterations += result.iterations;
+      const improved = error - result.parameterError;
+      parameters = result.parameterValues;
+      const previous = error;
+      error = Math.min(error, result.parameterError);
+      if (Number.isFinite(previous) && !(improved > 1e-9 * previous)) break;
+    }
+  } catch {
+    // The fit broke down (a singular step on a spectrum that is not a mode's, such as a pure sine's): no answer.
+    return null;
+  }
+  const result = { parameterValues: parameters, iterations };
   const p = result.parameterValues;
+  if (!p.every(Number.isFinite)) return null;
   const fitted = model(p);
   const fittedPsd = new Float64Array(count);
   let mean = 0;

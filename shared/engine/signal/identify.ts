@@ -199,8 +199,8 @@ export function identifyMode(record: Float64Array, sampleRateHz: number, options
     const first = search.peak;
     const firstHalfPower = findHalfPower(spectrum.frequencyHz, spectrum.psd, first, bandHz);
     const firstFit = fitSingleMode(spectrum.frequencyHz, spectrum.psd, first, bandHz, firstHalfPower?.dampingRatio ?? 0);
-    startDampingRatio = firstFit.dampingRatio;
-    const segmentLength = chooseSegmentLength(n, sampleRateHz, first.frequencyHz, { referenceDampingRatio: firstFit.dampingRatio });
+    startDampingRatio = firstFit?.dampingRatio ?? 0;
+    const segmentLength = chooseSegmentLength(n, sampleRateHz, first.frequencyHz, firstFit ? { referenceDampingRatio: firstFit.dampingRatio } : {});
     if (segmentLength !== spectrum.segmentLength) {
       spectrum = welchPsd(centred, sampleRateHz, segmentLength);
       search = findSpectrumPeak(spectrum.frequencyHz, spectrum.psd, bandHz);
@@ -214,14 +214,16 @@ export function identifyMode(record: Float64Array, sampleRateHz: number, options
       // The half-power cross-check belongs to a stationary response; a decay's is shaped by where it lies in the segments.
       halfPower = findHalfPower(spectrum.frequencyHz, spectrum.psd, peak, bandHz);
       spectrumFit = fitSingleMode(spectrum.frequencyHz, spectrum.psd, peak, bandHz, startDampingRatio || (halfPower?.dampingRatio ?? 0));
-      const lines = (2 * spectrumFit.dampingRatio * spectrumFit.naturalFrequencyHz) / spectrum.resolutionHz;
-      if (spectrumFit.atBound) {
+      if (!spectrumFit) {
+        warnings.push('The single-mode fit to the spectrum broke down: the peak does not look like one mode (a pure tone, say); no frequency or damping is reported.');
+      } else if (spectrumFit.atBound) {
         warnings.push(
           `The single-mode fit ended on a limit of its search (f = ${spectrumFit.naturalFrequencyHz.toPrecision(5)} Hz, ζ = ${spectrumFit.dampingRatio.toPrecision(3)}): the peak does not look like one mode; no frequency or damping is reported.`,
         );
       } else {
         frequencyHz = spectrumFit.naturalFrequencyHz;
         dampingRatio = spectrumFit.dampingRatio;
+        const lines = (2 * spectrumFit.dampingRatio * spectrumFit.naturalFrequencyHz) / spectrum.resolutionHz;
         if (lines < 2) {
           warnings.push(
             `The spectral resolution ${spectrum.resolutionHz.toPrecision(3)} Hz is coarse for this damping: the half-power bandwidth 2ζf spans ${lines.toFixed(1)} lines (2 or more wanted); a longer record gives a surer ζ.`,
@@ -233,9 +235,6 @@ export function identifyMode(record: Float64Array, sampleRateHz: number, options
         if (spectrumFit.rSquared < 0.8) {
           warnings.push(`The single-mode shape fits the spectrum poorly (R² = ${spectrumFit.rSquared.toFixed(2)} on the logarithms): a second mode or a narrow-band excitation may be near; check the plot.`);
         }
-      }
-      if (halfPower && halfPower.bandwidthLines < 4) {
-        warnings.push(`The half-power cross-check spans only ${halfPower.bandwidthLines.toFixed(1)} spectral lines; with the window's smoothing it overestimates ζ.`);
       }
     } else {
       decay = fitFreeDecay(centred, sampleRateHz, peak.frequencyHz, bandHz);
