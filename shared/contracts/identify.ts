@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import {
   checkRecordAgainstBand,
+  checkSampleRate,
   checkSamples,
   identificationMethods,
   MAX_SAMPLE_RATE_HZ,
@@ -41,6 +42,8 @@ export const identifyRequestSchema = z
     method: identificationMethodSchema.optional(),
   })
   .superRefine((value, ctx) => {
+    // A sample rate refused above (this check runs after refusals that do not stop the parse) is not used again.
+    if (checkSampleRate(value.sampleRateHz).length > 0) return;
     for (const issue of checkRecordAgainstBand(value.sampleRateHz, value.accelerationMPerS2.length, value.bandHz)) {
       ctx.addIssue({ code: 'custom', path: [issue.path], message: issue.message.slice(issue.message.indexOf(':') + 2) });
     }
