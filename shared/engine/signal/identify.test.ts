@@ -56,6 +56,15 @@ describe('identifyMode', () => {
     expect(result.halfPower).toBeNull();
   });
 
+  it('a single heel drop in a long quiet record: the spectrum of the decay alone locates the mode', () => {
+    // 20 minutes of sensor noise with one free decay starting at 300 s.
+    const oscillator = { frequencyHz: 1.7, dampingRatio: 0.009, sampleRateHz: 50 };
+    const record = decayRecord(oscillator, 1200, 6, { initialVelocityMPerS: 0.005, noiseStd: 2e-4, quietS: 300 });
+    const result = identifyMode(record, oscillator.sampleRateHz, { method: 'decay' });
+    expect(Math.abs(result.frequencyHz! / 1.7 - 1)).toBeLessThan(5e-4);
+    expect(Math.abs(result.dampingRatio! / 0.009 - 1)).toBeLessThan(0.03);
+  });
+
   it('keeps to the requested method and to the band (a second, stronger mode outside it is ignored)', () => {
     const fs = 40;
     const a = ambientRecord({ frequencyHz: 2, dampingRatio: 0.01, sampleRateHz: fs }, 7200, 4, { forceStd: 0.05 });

@@ -25,6 +25,8 @@ export const DEFAULT_BAND_HIGH_HZ = 15;
 export const MAX_SAMPLE_RATE_HZ = 100_000;
 /** Automatic choice: a record whose band-passed RMS falls by this factor (12 dB) from its strongest eighth to its last eighth is a free decay. */
 export const DECAY_DROP_RATIO = 4;
+/** The spectrum of a free decay spans at most this many periods of the band's lower edge from the strongest sample. */
+export const DECAY_SPECTRUM_PERIODS = 200;
 
 export interface IdentifyOptions {
   bandHz?: readonly [number, number];
@@ -181,8 +183,18 @@ export function identifyMode(record: Float64Array, sampleRateHz: number, options
 
   // First spectrum: fine enough for the band's lower edge, as long as sixteen segments fit (four for a free decay,
   // whose spectrum only locates the mode and shows it; the phase of the decay gives the frequency).
+  // A free decay's spectrum is taken from its strongest sample on, over at most 200 periods of the band's lower edge,
+  // so that a long quiet record around one heel drop does not bury the mode.
+  let analysed = centred;
+  if (method === 'decay') {
+    let strongest = 0;
+    for (let i = 1; i < n; i++) if (Math.abs(centred[i]) > Math.abs(centred[strongest])) strongest = i;
+    const length = Math.max(MIN_SAMPLES, Math.ceil((DECAY_SPECTRUM_PERIODS * sampleRateHz) / bandHz[0]));
+    const from = Math.max(0, Math.min(strongest, n - length));
+    analysed = centred.subarray(from, Math.min(n, from + length));
+  }
   const minSegments = method === 'spectrum' ? 2 * MIN_SEGMENTS : MIN_SEGMENTS / 2;
-  let spectrum = welchPsd(centred, sampleRateHz, chooseSegmentLength(n, sampleRateHz, bandHz[0], { minSegments }));
+  let spectrum = welchPsd(analysed, sampleRateHz, chooseSegmentLength(analysed.length, sampleRateHz, bandHz[0], { minSegments }));
   let search = findSpectrumPeak(spectrum.frequencyHz, spectrum.psd, bandHz);
   let peak: SpectrumPeak | null = null;
   let halfPower: HalfPower | null = null;
