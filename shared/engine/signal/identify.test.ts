@@ -87,6 +87,14 @@ describe('identifyMode', () => {
     expect(result.rmsAccelerationMPerS2).toBeCloseTo(0.01, 3);
   });
 
+  it('a constant record says there is nothing to identify', () => {
+    const result = identifyMode(new Float64Array(3000).fill(0.02), 50);
+    expect(result.frequencyHz).toBeNull();
+    expect(result.dampingRatio).toBeNull();
+    expect(result.warnings).toEqual([expect.stringMatching(/constant/)]);
+    expect(result.peakAccelerationMPerS2).toBeLessThan(1e-12);
+  });
+
   it('reports the peak and RMS of the record about its mean (an offset such as a tilted sensor is removed)', () => {
     const record = Float64Array.from({ length: 4000 }, (_, i) => 9.81 + 0.2 * Math.sin((2 * Math.PI * 2 * i) / 100));
     const result = identifyMode(record, 100, { method: 'spectrum' });

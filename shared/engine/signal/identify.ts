@@ -179,7 +179,13 @@ export function identifyMode(record: Float64Array, sampleRateHz: number, options
     sumSquares += a * a;
   }
 
-  const { method, note } = options.method ? { method: options.method, note: 'as requested' } : chooseMethod(centred, sampleRateHz, bandHz);
+  // Constant to rounding: what is left after removing the mean is below 1e-12 of the mean.
+  const constant = peakAcceleration <= 1e-12 * Math.abs(mean);
+  const { method, note } = options.method
+    ? { method: options.method, note: 'as requested' }
+    : constant
+      ? { method: 'spectrum' as const, note: 'the record is constant, so there is nothing to choose from' }
+      : chooseMethod(centred, sampleRateHz, bandHz);
 
   // First spectrum: fine enough for the band's lower edge, as long as sixteen segments fit (four for a free decay,
   // whose spectrum only locates the mode and shows it; the phase of the decay gives the frequency).
@@ -218,7 +224,9 @@ export function identifyMode(record: Float64Array, sampleRateHz: number, options
       search = findSpectrumPeak(spectrum.frequencyHz, spectrum.psd, bandHz);
     }
   }
-  if (!search.found) {
+  if (constant) {
+    warnings.push('The record is constant (every sample the same): there is no vibration to identify; no frequency or damping is reported.');
+  } else if (!search.found) {
     warnings.push(`${search.reason}; no frequency or damping is reported.`);
   } else {
     peak = search.peak;
