@@ -200,19 +200,9 @@ export class AccelerationEnvelopeKernel {
   }
 
   /**
-   * g = (ω² F)² / |D|² at the grid points [start, end) into gs, the dampers' damping scaled by `scale`; returns the
-   * index of the largest (the first of equals; `start` when all are 0).
+   * g = (ω² F)² / |D|² at the grid points [start, end) into gs[offset + i], the dampers' damping scaled by `scale`.
    */
-  private sample(start: number, end: number, scale: number): number {
-    const gs = this.gs;
-    const forceTerm = this.forceTerm;
-    const structureRe = this.structureRe;
-    const structureIm = this.structureIm;
-    const inertia = this.inertia;
-    const tmdRe = this.tmdRe;
-    const tmdIm = this.tmdIm;
-    let top = 0;
-    let topAt = start;
+  private sample(start: number, end: number, scale: number, gs: Float64Array, offset: number): void {
     if (this.tmdCount === 1) {
       // The 1 + 1 system in closed form: about 12 flops and one division a point.
       const pair = this.pair;
@@ -221,15 +211,16 @@ export class AccelerationEnvelopeKernel {
         const at = 6 * i;
         const re = pair[at + 2] - scale * pair[at + 3];
         const im = pair[at + 4] + scale * pair[at + 5];
-        const g = (pair[at] + s2 * pair[at + 1]) / (re * re + im * im);
-        gs[i] = g;
-        if (g > top) {
-          top = g;
-          topAt = i;
-        }
+        gs[offset + i] = (pair[at] + s2 * pair[at + 1]) / (re * re + im * im);
       }
-      return topAt;
+      return;
     }
+    const forceTerm = this.forceTerm;
+    const structureRe = this.structureRe;
+    const structureIm = this.structureIm;
+    const inertia = this.inertia;
+    const tmdRe = this.tmdRe;
+    const tmdIm = this.tmdIm;
     const stride = this.stride;
     const n = this.tmdCount;
     for (let i = start; i < end; i++) {
@@ -250,13 +241,13 @@ export class AccelerationEnvelopeKernel {
         dIm += c * (denIm * denRe - k * denIm);
       }
       if (g !== 0) g = forceTerm[i] / (dRe * dRe + dIm * dIm);
-      gs[i] = g;
-      if (g > top) {
-        top = g;
-        topAt = i;
-      }
+      gs[offset + i] = g;
     }
-    return topAt;
+  }
+
+  /** Samples every band with the dampers' damping scaled by `scale`, into gs[offset …]. */
+  private sampleBands(scale: number, gs: Float64Array, offset: number): void {
+    for (let b = 0; b < this.bands.length; b++) this.sample(this.bandStart[b], this.bandStart[b] + this.bandCount[b], scale, gs, offset);
   }
 
   /** g at any frequency of band `band` with the current (scaled) damping. */
@@ -283,9 +274,31 @@ export class AccelerationEnvelopeKernel {
   /** The envelope peak with every damper's damping coefficient × `dampingScale`; written into `out`. */
   peak(dampingScale = 1, out: EnvelopeKernelPeak = { value: 0, frequencyHz: 0, bandIndex: 0 }): EnvelopeKernelPeak {
     if (!this.ready) throw new Error('AccelerationEnvelopeKernel: setSystem first');
+    this.sampleBands(dampingScale, this.gs, 0);
+    return this.search(dampingScale, this.gs, 0, out);
+  }
+
+  /**
+   * The peaks for several damping scales (a row of the robustness map): value k into `values[k]`. All grid samples
+   * of the row are computed first in one loop, then each scale's peak is polished.
+   */
+  peaks(dampingScales: ArrayLike<number>, values: number[] | Float64Array): void {
+    if (!this.ready) throw new Error('AccelerationEnvelopeKernel: setSystem first');
+    const count = dampingScales.length;
+    if (this.rowSamples.length < count * this.stride) this.rowSamples = new Float64Array(count * this.stride);
+    const gs = this.rowSamples;
+    for (let k = 0; k < count; k++) this.sampleBands(dampingScales[k], gs, k * this.stride);
+    const out = this.rowPeak;
+    for (let k = 0; k < count; k++) values[k] = this.search(dampingScales[k], gs, k * this.stride, out).value;
+  }
+
+  private rowSamples = new Float64Array(0);
+  private readonly rowPeak: EnvelopeKernelPeak = { value: 0, frequencyHz: 0, bandIndex: 0 };
+
+  /** The peak from the samples in gs[offset …]: every sampled local maximum worth it is polished. */
+  private search(dampingScale: number, gs: Float64Array, offset: number, out: EnvelopeKernelPeak): EnvelopeKernelPeak {
     for (let j = 0; j < this.tmdCount; j++) this.tmdDampingNow[j] = dampingScale * this.tmdDampingNsPerM[j];
     const xs = this.xs;
-    const gs = this.gs;
     const corner = this.corner;
     let bestG = -1;
     let bestX = this.bands.length ? this.bands[0].loHz : 0;
@@ -294,17 +307,23 @@ export class AccelerationEnvelopeKernel {
       const start = this.bandStart[b];
       const end = start + this.bandCount[b];
       const force = this.bands[b].forceN;
-      const topAt = this.sample(start, end, dampingScale);
-      const top = gs[topAt];
+      let top = 0;
+      let topAt = start;
+      for (let i = start; i < end; i++) {
+        if (gs[offset + i] > top) {
+          top = gs[offset + i];
+          topAt = i;
+        }
+      }
       let bandG = top;
       let bandX = xs[topAt];
       if (top > 0) {
         const threshold = 0.25 * top; // half the largest sample of the magnitude
         for (let i = start; i < end; i++) {
-          const g = gs[i];
+          const g = gs[offset + i];
           if (g < threshold) continue;
-          const left = i > start ? gs[i - 1] : -1;
-          const right = i < end - 1 ? gs[i + 1] : -1;
+          const left = i > start ? gs[offset + i - 1] : -1;
+          const right = i < end - 1 ? gs[offset + i + 1] : -1;
           if (!(g >= left && g >= right)) continue;
           const a = i > start ? xs[i - 1] : xs[i];
           const c = i < end - 1 ? xs[i + 1] : xs[i];
@@ -316,15 +335,15 @@ export class AccelerationEnvelopeKernel {
             if (i > start) {
               const xl = x - h;
               const gl = this.value(xl, force);
-              if (gl > g) this.polish(a, x, xl, gl, gs[i - 1], a, g, x, force);
+              if (gl > g) this.polish(a, x, xl, gl, left, a, g, x, force);
             }
             if (i < end - 1) {
               const xr = x + h;
               const gr = this.value(xr, force);
-              if (gr > g) this.polish(x, c, xr, gr, g, x, gs[i + 1], c, force);
+              if (gr > g) this.polish(x, c, xr, gr, g, x, right, c, force);
             }
           } else {
-            this.polish(a, c, xs[i], g, gs[i - 1], a, gs[i + 1], c, force);
+            this.polish(a, c, xs[i], g, left, a, right, c, force);
           }
           if (this.polishedG > bandG) {
             bandG = this.polishedG;

@@ -44,6 +44,8 @@ export function mapRobustness(input: RobustnessInput): RobustnessResult {
   const warnings: DesignWarning[] = [];
   const kernel = accelerationEnvelopeKernel(envelope.bands, tmds.length);
   const cell: EnvelopeKernelPeak = { value: 0, frequencyHz: 0, bandIndex: 0 };
+  // With ζ_s = 0, a column of factor 0 (or dampers all undamped) leaves a cell without any damping.
+  const someCellUndamped = zs === 0 && (allTmdsUndamped || input.tmdDampingFactors.some((df) => df === 0));
   const [lo, hi] = envelope.structureFrequencyRangeHz;
   const factors = input.structureFrequencyFactors;
   const fMin = structure.frequencyHz * Math.min(...factors);
@@ -62,8 +64,12 @@ export function mapRobustness(input: RobustnessInput): RobustnessResult {
     }
     const dampingFactors = input.tmdDampingFactors;
     const row: number[] = new Array(dampingFactors.length);
-    const rowSystem = createModeTmdSystem(rowStructure, tmds);
-    kernel.setSystem(rowSystem);
+    kernel.setSystem(createModeTmdSystem(rowStructure, tmds));
+    if (!someCellUndamped) {
+      kernel.peaks(dampingFactors, row);
+      rows.push(row);
+      continue;
+    }
     for (let column = 0; column < dampingFactors.length; column++) {
       const df = dampingFactors[column];
       if (zs === 0 && (df === 0 || allTmdsUndamped)) {
