@@ -394,6 +394,7 @@ export class AccelerationEnvelopeKernel {
       const t2 = 2 * tol;
       if (Math.abs(x - m) <= t2 - 0.5 * (b - a)) break;
       let useGolden = true;
+      let settled = false;
       if (Math.abs(e) > tol) {
         let r = (x - w) * (fx - fv);
         let q = (x - v) * (fx - fw);
@@ -405,6 +406,9 @@ export class AccelerationEnvelopeKernel {
         e = d;
         if (q !== 0 && Math.abs(p) < Math.abs(0.5 * q * r) && p > q * (a - x) && p < q * (b - x)) {
           d = p / q;
+          // The parabola's vertex moves by less than the tolerance: this is the last point (at a smooth peak the
+          // value is then exact to about (tol / peak width)², far below the 1e-12 asked of it).
+          settled = Math.abs(d) < tol;
           const u = x + d;
           if (u - a < t2 || b - u < t2) d = x < m ? tol : -tol;
           useGolden = false;
@@ -438,6 +442,7 @@ export class AccelerationEnvelopeKernel {
           fv = fu;
         }
       }
+      if (settled) break;
     }
     if (-fx > this.polishedG) {
       this.polishedG = -fx;
