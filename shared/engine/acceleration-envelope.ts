@@ -27,6 +27,8 @@ export const ENVELOPE_SAMPLES = 48;
 /** Brent's relative tolerance on the peak frequency: the value is then exact to about 1e-15 relative at a smooth peak. */
 const POLISH_RELATIVE_TOLERANCE = 1e-9;
 const PROBE_RELATIVE_STEP = 1e-9;
+/** Brent stops when the parabola through its last three points promises less than this fraction more. */
+const VALUE_RELATIVE_TOLERANCE = 1e-13;
 const GOLDEN = 0.3819660112501051;
 
 export interface EnvelopeKernelPeak {
@@ -61,6 +63,8 @@ export class AccelerationEnvelopeKernel {
   private readonly pair: Float64Array;
   private readonly stride: number;
   private readonly merged: Float64Array;
+  /** Indices of the sampled local maxima of a band (scratch of search). */
+  private readonly maxima: Int32Array;
   // The system.
   private massKg = 1;
   private stiffnessNPerM = 1;
@@ -98,6 +102,7 @@ export class AccelerationEnvelopeKernel {
     this.tmdRe = new Float64Array(this.stride * tmdCount);
     this.tmdIm = new Float64Array(this.stride * tmdCount);
     this.merged = new Float64Array(this.stride);
+    this.maxima = new Int32Array(this.stride);
     this.tmdMassKg = new Float64Array(tmdCount);
     this.tmdStiffnessNPerM = new Float64Array(tmdCount);
     this.tmdDampingNsPerM = new Float64Array(tmdCount);
@@ -307,24 +312,33 @@ export class AccelerationEnvelopeKernel {
       const start = this.bandStart[b];
       const end = start + this.bandCount[b];
       const force = this.bands[b].forceN;
+      // One pass: the largest sample and the sampled local maxima.
+      const maxima = this.maxima;
+      let maximumCount = 0;
       let top = 0;
       let topAt = start;
+      let previous = -1;
+      let current = gs[offset + start];
       for (let i = start; i < end; i++) {
-        if (gs[offset + i] > top) {
-          top = gs[offset + i];
+        const next = i < end - 1 ? gs[offset + i + 1] : -1;
+        if (current > top) {
+          top = current;
           topAt = i;
         }
+        if (current >= previous && current >= next && current > 0) maxima[maximumCount++] = i;
+        previous = current;
+        current = next;
       }
       let bandG = top;
       let bandX = xs[topAt];
       if (top > 0) {
         const threshold = 0.25 * top; // half the largest sample of the magnitude
-        for (let i = start; i < end; i++) {
+        for (let m = 0; m < maximumCount; m++) {
+          const i = maxima[m];
           const g = gs[offset + i];
           if (g < threshold) continue;
           const left = i > start ? gs[offset + i - 1] : -1;
           const right = i < end - 1 ? gs[offset + i + 1] : -1;
-          if (!(g >= left && g >= right)) continue;
           const a = i > start ? xs[i - 1] : xs[i];
           const c = i < end - 1 ? xs[i + 1] : xs[i];
           if (!(c > a)) continue;
@@ -406,8 +420,11 @@ export class AccelerationEnvelopeKernel {
         e = d;
         if (q !== 0 && Math.abs(p) < Math.abs(0.5 * q * r) && p > q * (a - x) && p < q * (b - x)) {
           d = p / q;
-          // The parabola's vertex moves by less than the tolerance: this is the last point (at a smooth peak the
-          // value is then exact to about (tol / peak width)², far below the 1e-12 asked of it).
+          // The parabola through x, w, v promises at most f[x, w, v] d² more than the best value so far: below 1e-13
+          // of it, the best value is the peak's to that accuracy and the search stops without another point.
+          const curvature = ((fx - fw) / (x - w) - (fx - fv) / (x - v)) / (w - v);
+          if (Math.abs(curvature) * d * d <= VALUE_RELATIVE_TOLERANCE * Math.abs(fx)) break;
+          // The vertex moves by less than the tolerance on the frequency: this is the last point.
           settled = Math.abs(d) < tol;
           const u = x + d;
           if (u - a < t2 || b - u < t2) d = x < m ? tol : -tol;
