@@ -1,14 +1,17 @@
 #!/usr/bin/env node
 // Launcher of the `calc` command (docs/decisions/0008-calc-launcher.md, 0010-calc-start-up.md). Node 20 cannot run
 // TypeScript and a TypeScript loader costs a few hundred milliseconds at every start, so the sources are bundled by
-// esbuild, minified, into .cache/calc/<build>/: a small core (arguments, reading, exit codes; no command, no zod) and
-// one bundle per module of commands that shared/compute/commands.ts imports, sharing common chunks. A run reads
-// .cache/calc/manifest.json (every command's summary and bundle, and the source files of the build), checks that no
-// source is newer than the manifest, and imports the core plus only the bundle of the command asked for; `--help` and
-// an unknown command load no command at all. A missing or stale build is rebuilt first (esbuild is imported only then).
+// esbuild, minified, into .cache/calc/<build>/: a small core (arguments, reading, exit codes; no command, no zod) and,
+// for each module of commands that shared/compute/commands.ts imports, one bundle with that module and the core. A run
+// reads .cache/calc/manifest.json (every command's summary and bundle, and the source files of the build), checks that
+// no source is newer than the manifest, and loads only the bundle of the command asked for (`--help` and an unknown
+// command only the core), with V8's code cache kept beside each bundle so that its functions are not compiled again
+// at every start. A missing or stale build is rebuilt first (esbuild is imported only then).
 import { statSync, readFileSync, mkdirSync, renameSync, writeFileSync, readdirSync, rmSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { Script } from 'node:vm';
 import { dirname, join, resolve } from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
+import { fileURLToPath } from 'node:url';
 import process from 'node:process';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..', '..');
@@ -36,7 +39,7 @@ function freshManifest() {
   } catch {
     return null;
   }
-  if (manifest?.version !== 2 || !Array.isArray(manifest.inputs) || manifest.inputs.length === 0) return null;
+  if (manifest?.version !== 3 || !Array.isArray(manifest.inputs) || manifest.inputs.length === 0) return null;
   for (const input of manifest.inputs) {
     const time = mtimeMs(join(root, input));
     if (time < 0 || time > built) return null;
@@ -78,7 +81,7 @@ const leanZod = {
   },
 };
 
-/** Entries made of re-exports: `calc-entry:<module>` = the module's exports plus toApiIssues from the same build. */
+/** Entries made of re-exports: `calc-entry:<module>` = the module's exports, the core and toApiIssues, in one bundle. */
 const entries = {
   name: 'calc-entries',
   setup(build) {
@@ -86,10 +89,45 @@ const entries = {
     build.onLoad({ filter: /.*/, namespace: 'calc-entry' }, (args) => ({
       resolveDir: root,
       loader: 'js',
-      contents: `export * from ${JSON.stringify(`./${args.path}`)};\nexport { toApiIssues } from ${JSON.stringify(`./${errorsModule}`)};\n`,
+      contents: [args.path, core]
+        .map((path) => `export * from ${JSON.stringify(`./${path}`)};`)
+        .concat(`export { toApiIssues } from ${JSON.stringify(`./${errorsModule}`)};`)
+        .join('\n'),
     }));
   },
 };
+
+/** Scripts whose code cache is missing or was refused, written after the command has run (with what it compiled). */
+const pendingCaches = [];
+
+/** Runs a CommonJS bundle of the build, with V8's code cache from beside it when there is one. */
+function loadBundle(file) {
+  const cacheFile = `${file}.v8cache`;
+  let cachedData;
+  try {
+    cachedData = readFileSync(cacheFile);
+  } catch {
+    cachedData = undefined;
+  }
+  const source = `(function (exports, require, module, __filename, __dirname) {${readFileSync(file, 'utf8')}\n})`;
+  const script = new Script(source, { filename: file, cachedData });
+  if (cachedData === undefined || script.cachedDataRejected) pendingCaches.push({ script, cacheFile });
+  const module = { exports: {} };
+  script.runInThisContext()(module.exports, createRequire(file), module, file, dirname(file));
+  return module.exports;
+}
+
+function writeCodeCaches() {
+  for (const { script, cacheFile } of pendingCaches.splice(0)) {
+    try {
+      const temporary = `${cacheFile}.${process.pid}.tmp`;
+      writeFileSync(temporary, script.createCachedData());
+      renameSync(temporary, cacheFile);
+    } catch {
+      // A cache is an optimisation only: without it the bundle is compiled as usual.
+    }
+  }
+}
 
 function isCommand(value) {
   return value !== null && typeof value === 'object' && typeof value.name === 'string' && typeof value.summary === 'string'
@@ -112,13 +150,11 @@ async function build() {
     entryPoints,
     outdir,
     bundle: true,
-    splitting: true,
     minify: true,
     platform: 'node',
-    format: 'esm',
+    format: 'cjs',
     target: 'node20',
-    outExtension: { '.js': '.mjs' },
-    chunkNames: 'chunk-[hash]',
+    outExtension: { '.js': '.cjs' },
     metafile: true,
     logLevel: 'error',
     logOverride: { 'import-is-undefined': 'error' },
@@ -126,20 +162,22 @@ async function build() {
     plugins: [leanZod, entries],
   });
   // Every command of the registry, and the bundle (module of commands) that holds it; the registry's own bundle
-  // answers for a command defined anywhere else.
-  const all = await import(pathToFileURL(join(outdir, 'all.mjs')).href);
+  // answers for a command defined anywhere else. (Loading them here leaves no code cache: the first run writes it.)
+  const all = loadBundle(join(outdir, 'all.cjs'));
+  pendingCaches.length = 0;
   const commands = {};
   for (const [name, command] of Object.entries(all.computeCommands)) {
-    commands[name] = { summary: command.summary, bundle: 'all.mjs', record: 'computeCommands' };
+    commands[name] = { summary: command.summary, bundle: 'all.cjs', record: 'computeCommands' };
   }
   for (let i = 0; i < modules.length; i++) {
-    const bundle = `commands-${i}.mjs`;
-    const exports = await import(pathToFileURL(join(outdir, bundle)).href);
+    const bundle = `commands-${i}.cjs`;
+    const exports = loadBundle(join(outdir, bundle));
+    pendingCaches.length = 0;
     for (const [record, value] of Object.entries(exports)) {
       if (value === null || typeof value !== 'object') continue;
       for (const [name, command] of Object.entries(value)) {
         const known = commands[name];
-        if (known?.bundle === 'all.mjs' && isCommand(command) && command.name === name && command.summary === known.summary) {
+        if (known?.bundle === 'all.cjs' && isCommand(command) && command.name === name && command.summary === known.summary) {
           commands[name] = { summary: known.summary, bundle, record };
         }
       }
@@ -148,7 +186,7 @@ async function build() {
   const inputs = new Set(['package.json', 'package-lock.json', 'server/cli/calc.mjs']);
   for (const path of Object.keys(probe.metafile.inputs)) if (!path.includes(':') && !path.includes('node_modules')) inputs.add(path);
   for (const path of Object.keys(result.metafile.inputs)) if (!path.includes(':') && !path.includes('node_modules')) inputs.add(path);
-  const manifest = { version: 2, build: buildName, inputs: [...inputs], commands };
+  const manifest = { version: 3, build: buildName, inputs: [...inputs], commands };
   // Rename is atomic: a concurrent calc reads either the old manifest (whose build stays) or the new one.
   const temporary = `${manifestFile}.${process.pid}.tmp`;
   writeFileSync(temporary, JSON.stringify(manifest));
@@ -168,18 +206,17 @@ const summaries = {};
 for (const [name, entry] of Object.entries(manifest.commands)) summaries[name] = entry.summary;
 const name = args.length === 2 && Object.prototype.hasOwnProperty.call(manifest.commands, args[0]) ? args[0] : null;
 const outdir = join(cacheDir, manifest.build);
-const [calc, commandBundle] = await Promise.all([
-  import(pathToFileURL(join(outdir, 'core.mjs')).href),
-  name === null ? null : import(pathToFileURL(join(outdir, manifest.commands[name].bundle)).href),
-]);
+// The command's bundle carries the core; without a command to run, the core alone.
+const bundle = loadBundle(join(outdir, name === null ? 'core.cjs' : manifest.commands[name].bundle));
 const catalogue = {
   summaries,
   load(wanted) {
     const entry = manifest.commands[wanted];
-    return { command: commandBundle[entry.record][wanted], toApiIssues: commandBundle.toApiIssues };
+    return { command: bundle[entry.record][wanted], toApiIssues: bundle.toApiIssues };
   },
 };
 // `npm run calc` runs from the package root and records the directory the command was typed in as INIT_CWD:
 // relative request paths are meant from there. Started any other way, the working directory counts.
 const launchedByNpm = process.env.npm_lifecycle_event === 'calc' && process.env.INIT_CWD;
-calc.mainWith(args, launchedByNpm ? process.env.INIT_CWD : process.cwd(), catalogue);
+bundle.mainWith(args, launchedByNpm ? process.env.INIT_CWD : process.cwd(), catalogue);
+writeCodeCaches();
