@@ -208,18 +208,25 @@ export class AccelerationEnvelopeKernel {
    * g = (ω² F)² / |D|² at the grid points [start, end) into gs[offset + i], the dampers' damping scaled by `scale`.
    */
   private sample(start: number, end: number, scale: number, gs: Float64Array, offset: number): void {
-    if (this.tmdCount === 1) {
-      // The 1 + 1 system in closed form: about 12 flops and one division a point.
-      const pair = this.pair;
-      const s2 = scale * scale;
-      for (let i = start; i < end; i++) {
-        const at = 6 * i;
-        const re = pair[at + 2] - scale * pair[at + 3];
-        const im = pair[at + 4] + scale * pair[at + 5];
-        gs[offset + i] = (pair[at] + s2 * pair[at + 1]) / (re * re + im * im);
-      }
-      return;
+    // One loop per case, in functions of their own, so that each stays monomorphic for the optimising compiler.
+    if (this.tmdCount === 1) this.samplePair(start, end, scale, gs, offset);
+    else this.sampleGeneral(start, end, scale, gs, offset);
+  }
+
+  /** The 1 + 1 system in closed form: about 12 flops and one division a point. */
+  private samplePair(start: number, end: number, scale: number, gs: Float64Array, offset: number): void {
+    const pair = this.pair;
+    const s2 = scale * scale;
+    for (let i = start; i < end; i++) {
+      const at = 6 * i;
+      const re = pair[at + 2] - scale * pair[at + 3];
+      const im = pair[at + 4] + scale * pair[at + 5];
+      gs[offset + i] = (pair[at] + s2 * pair[at + 1]) / (re * re + im * im);
     }
+  }
+
+  /** Any number of dampers (the bare structure included). */
+  private sampleGeneral(start: number, end: number, scale: number, gs: Float64Array, offset: number): void {
     const forceTerm = this.forceTerm;
     const structureRe = this.structureRe;
     const structureIm = this.structureIm;
