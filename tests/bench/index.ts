@@ -1,6 +1,8 @@
-/** `npm run bench`: prints timings of the engine and the design computations. Figures, not tests. */
+/** `npm run bench`: prints timings of the engine, the design computations and whole calc processes. Figures, not tests. */
 import { runEngineBenchmarks } from './engine';
 import { runDesignBenchmarks } from './design';
+import { runCalcBenchmarks } from './calc';
 
 runEngineBenchmarks();
-await Promise.resolve(runDesignBenchmarks());
+runDesignBenchmarks();
+runCalcBenchmarks();

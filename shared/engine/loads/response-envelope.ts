@@ -14,6 +14,9 @@
 
 import { GOLDEN_SECTION_FRACTION } from '../peak';
 import { createModeTmdPoint, evaluateModeTmdSystem, evaluateStructureAccelerationPerN, type ModeTmdSystem } from '../response';
+import { accelerationEnvelopeKernel, type EnvelopeKernelPeak } from '../acceleration-envelope';
+
+const kernelPeak: EnvelopeKernelPeak = { value: 0, frequencyHz: 0, bandIndex: 0 };
 
 /** A band of force frequencies with the modal force amplitude F(f) (N) applied at each of them. */
 export interface ForceBand {
@@ -177,8 +180,15 @@ export function findEnvelopePeak(
   if (quantity === 'tmdStroke' && !(tmdIndex >= 0 && tmdIndex < system.tmdCount)) {
     throw new RangeError(`tmdIndex ${tmdIndex} is out of range for ${system.tmdCount} damper(s)`);
   }
-  const hints = system.coupledFrequenciesHz;
   const divisor = options.divisor;
+  if (quantity === 'structureAcceleration' && !divisor && !system.undamped && bands.length > 0) {
+    // The structure's acceleration of a damped system: the fast kernel (../acceleration-envelope), same grid and hints.
+    const kernel = accelerationEnvelopeKernel(bands, system.tmdCount);
+    kernel.setSystem(system);
+    const peak = kernel.peak(1, kernelPeak);
+    return { frequencyHz: peak.frequencyHz, value: peak.value, bandIndex: peak.bandIndex, forceN: bands[peak.bandIndex].forceN(peak.frequencyHz) };
+  }
+  const hints = system.coupledFrequenciesHz;
   const point = createModeTmdPoint(system);
   const strokes = point.tmdStrokeMPerN;
   // The structure's acceleration needs no strokes; they are evaluated only when the stroke is asked for.
