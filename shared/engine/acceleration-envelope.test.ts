@@ -47,6 +47,21 @@ describe('acceleration envelope kernel', () => {
     });
   }
 
+  it('a sharp single-DOF resonance on a grid point reaches the closed-form height F / (2 ζ M √(1 − ζ²))', () => {
+    // Closed form of the single-DOF acceleration receptance r² / (M |1 − r² + 2iζr|), largest at r = 1/√(1 − 2ζ²)
+    // (textbook result; the engine's docs list it with its displacement twin). 1.9 Hz is a uniform grid point of the
+    // 1.0–2.6 Hz band (1.0 + 27 × 1.6/48) and also the hint at the structure's frequency. (The same case through
+    // `assess` is tests/reference/loads-crowd-guides.test.ts.)
+    const mode = { modalMassKg: 60000, frequencyHz: 1.9, dampingRatio: 0.006 };
+    // The force: 500 N times a trapezoid 0 / 1 / 1 / 0 at 1.0 / 1.7 / 2.1 / 2.6 Hz (the Sétra 2006 vertical ψ shape).
+    const psi = (f: number) => Math.max(0, Math.min(1, (f - 1.0) / 0.7, (2.6 - f) / 0.5));
+    const band: ForceBand[] = [{ loHz: 1.0, hiHz: 2.6, forceN: (f) => 500 * psi(f), kinksHz: [1.7, 2.1], label: 'ψ' }];
+    const kernel = new AccelerationEnvelopeKernel(band, 0);
+    kernel.setSystem(createModeTmdSystem(mode, []));
+    const closed = 500 / (2 * 0.006 * Math.sqrt(1 - 0.006 ** 2) * 60000);
+    expect(kernel.peak().value / closed).toBeCloseTo(1, 12);
+  });
+
   it('a row of scales at once gives each scale its own peak', () => {
     const kernel = new AccelerationEnvelopeKernel(bands, 1);
     kernel.setSystem(createModeTmdSystem(structure, oneTmd));

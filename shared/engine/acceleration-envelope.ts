@@ -33,6 +33,8 @@ const PROBE_RELATIVE_STEP = 1e-9;
 /** Brent stops when the parabola through its last three points promises less than this fraction more. */
 const VALUE_RELATIVE_TOLERANCE = 1e-13;
 const GOLDEN = 0.3819660112501051;
+/** Grid points closer than this (relative) are one point. */
+const DUPLICATE_RELATIVE_SPACING = 1e-9;
 
 export interface EnvelopeKernelPeak {
   /** The peak acceleration, m/s² (0 when the force is 0 everywhere). */
@@ -160,12 +162,10 @@ export class AccelerationEnvelopeKernel {
         for (let i = 0; i <= ENVELOPE_SAMPLES; i++) {
           const x = i === ENVELOPE_SAMPLES ? hi : lo + i * step;
           while (h < hintCount && merged[h] < x) {
-            xs[count] = merged[h];
-            corner[count++] = isKink(merged[h], kinks) ? 1 : 0;
+            count = this.appendPoint(start, count, merged[h], isKink(merged[h], kinks));
             h++;
           }
-          xs[count] = x;
-          corner[count++] = i === 0 || i === ENVELOPE_SAMPLES || isKink(x, kinks) ? 1 : 0;
+          count = this.appendPoint(start, count, x, i === 0 || i === ENVELOPE_SAMPLES || isKink(x, kinks));
         }
       }
       this.bandCount[b] = count - start;
@@ -205,6 +205,24 @@ export class AccelerationEnvelopeKernel {
       }
     }
     this.ready = true;
+  }
+
+  /**
+   * Appends a grid point after `count` (the band's points start at `start`) and returns the new count. A point within
+   * 1e-9 of the previous one is merged into it (a hint on a grid point): the parabola through two points that close
+   * would be noise. A kink or band end wins the merge, so that F's corners stay exact grid points.
+   */
+  private appendPoint(start: number, count: number, x: number, isCorner: boolean): number {
+    if (count > start && x - this.xs[count - 1] <= DUPLICATE_RELATIVE_SPACING * Math.abs(x)) {
+      if (isCorner && this.corner[count - 1] === 0) {
+        this.xs[count - 1] = x;
+        this.corner[count - 1] = 1;
+      }
+      return count;
+    }
+    this.xs[count] = x;
+    this.corner[count] = isCorner ? 1 : 0;
+    return count + 1;
   }
 
   /**
@@ -432,8 +450,10 @@ export class AccelerationEnvelopeKernel {
           d = p / q;
           // The parabola through x, w, v promises at most f[x, w, v] d² more than the best value so far: below 1e-13
           // of it, the best value is the peak's to that accuracy and the search stops without another point.
-          const curvature = ((fx - fw) / (x - w) - (fx - fv) / (x - v)) / (w - v);
-          if (Math.abs(curvature) * d * d <= VALUE_RELATIVE_TOLERANCE * Math.abs(fx)) break;
+          if (Math.abs(x - w) > t2 && Math.abs(x - v) > t2 && Math.abs(w - v) > t2) {
+            const curvature = ((fx - fw) / (x - w) - (fx - fv) / (x - v)) / (w - v);
+            if (Math.abs(curvature) * d * d <= VALUE_RELATIVE_TOLERANCE * Math.abs(fx)) break;
+          }
           // The vertex moves by less than the tolerance on the frequency: this is the last point.
           settled = Math.abs(d) < tol;
           const u = x + d;
