@@ -5,6 +5,7 @@
  * after a reload; the demo fabricator reads them without any control to change them. Names and numbers are invented.
  */
 import { describe, expect, inject, it } from 'vitest';
+import { lumpedModelListSchema } from '../../shared/contracts';
 import { browserForFile, signIn, signOut } from './browser';
 
 const baseUrl = inject('baseUrl');
@@ -108,6 +109,29 @@ describe('structural model in the browser', () => {
     await modes.getByText('Model “Span with damper (invented)”, mode 1 at midspan').waitFor();
     await page.getByRole('complementary', { name: 'Caution' }).getByText(/qualified engineer/).waitFor();
     await browser.shot('structural-03-structure-with-modes');
+  });
+
+  it('refuses a save over a model changed meanwhile and offers a reload', async () => {
+    const { page } = browser;
+    const models = page.getByRole('region', { name: 'Lumped models' });
+    const editor = models.getByRole('form', { name: 'Edit model Span with damper (invented)' });
+    await editor.getByLabel('Mass m2 [kg]').fill('1100');
+
+    // Someone else saves the model first (the same API the page uses, on the same session).
+    const [, , projectId, , structureId] = new URL(page.url()).pathname.split('/');
+    const modelsPath = `${baseUrl}/api/projects/${projectId}/structures/${structureId}/models`;
+    const list = lumpedModelListSchema.parse(await (await page.request.get(modelsPath)).json());
+    const model = list.models[0];
+    const changed = await page.request.patch(`${modelsPath}/${model.id}`, { data: { version: model.version, name: model.name } });
+    expect(changed.status()).toBe(200);
+
+    await editor.getByRole('button', { name: 'Save model' }).click();
+    await models.getByRole('status').filter({ hasText: 'Changed by someone else' }).waitFor();
+    browser.consumeExpectedResponseError(409, `/models/${model.id}`);
+    await browser.shot('structural-03b-stale-model');
+    await models.getByRole('button', { name: 'Reload model' }).click();
+    await models.getByText(`(revision ${model.version + 1})`).waitFor();
+    await expect.poll(() => models.getByLabel('Mass m2 [kg]').inputValue()).toBe('1000');
   });
 
   it('adds a crowd load case and comfort criteria, each with its source', async () => {
