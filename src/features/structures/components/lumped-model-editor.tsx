@@ -259,8 +259,8 @@ function MatrixInputs({ n, register, errors, labels }: { n: number; register: Us
                   <tr>
                     <td />
                     {Array.from({ length: n }, (_, j) => (
-                      <th key={j} scope="col" className={`${headClass} normal-case`}>
-                        {labels[j]?.trim() || `DOF ${j + 1}`}
+                      <th key={j} scope="col" className={headClass}>
+                        <span className="normal-case">{labels[j]?.trim() || `DOF ${j + 1}`}</span>
                       </th>
                     ))}
                   </tr>
@@ -347,8 +347,8 @@ export function LumpedModelView({ model }: { model: LumpedModel }) {
                   <tr>
                     <td />
                     {labels.map((label, j) => (
-                      <th key={j} scope="col" className={`${headClass} normal-case`}>
-                        {label}
+                      <th key={j} scope="col" className={headClass}>
+                        <span className="normal-case">{label}</span>
                       </th>
                     ))}
                   </tr>
