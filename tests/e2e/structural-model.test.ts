@@ -212,6 +212,13 @@ describe('structural model in the browser', () => {
     await expect(main.getByRole('button', { name: /^Remove/ }).count()).resolves.toBe(0);
     await expect(main.getByRole('form').count()).resolves.toBe(0);
     await browser.shot('structural-06-fabricator-structure');
+    // On a phone the wide tables scroll inside their panels; the page itself does not.
+    await page.setViewportSize({ width: 390, height: 844 });
+    await models.getByRole('img', { name: /Displacement of each degree of freedom/ }).waitFor();
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+    expect(overflow).toBeLessThanOrEqual(0);
+    await browser.shot('structural-06b-fabricator-structure-narrow');
+    await page.setViewportSize({ width: 1280, height: 860 });
 
     await page.getByRole('navigation', { name: 'Project sections' }).getByRole('link', { name: 'Load cases' }).click();
     await page.getByRole('list', { name: 'Load cases' }).getByRole('heading', { name: 'Crowd, Sétra class II (invented)' }).waitFor();
