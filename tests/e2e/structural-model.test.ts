@@ -66,6 +66,21 @@ describe('structural model in the browser', () => {
     const modes = page.getByRole('table', { name: 'Design modes of the structure' });
     await modes.getByRole('cell', { name: 'First vertical bending', exact: true }).waitFor();
     await modes.getByRole('cell', { name: shown(expectedHz), exact: true }).waitFor();
+
+    // A mode typed in from a finite-element model; a damping ratio of 1 or more is refused under its field.
+    await page.getByRole('tab', { name: 'Type in' }).click();
+    const typed = page.getByRole('form', { name: 'Type a mode' });
+    await typed.getByLabel('Mode label').fill('First lateral (invented FE result)');
+    await typed.getByLabel('Direction').selectOption('lateral');
+    await typed.getByLabel('Natural frequency [Hz]').fill('0.94');
+    await typed.getByLabel('Modal mass [kg]').fill('61000');
+    await typed.getByLabel('Damping ratio ζ [–]').fill('1.2');
+    await typed.getByRole('button', { name: 'Add mode' }).click();
+    await typed.getByText(/Damping ratio ζ \[–\] must be/).waitFor();
+    await typed.getByLabel('Damping ratio ζ [–]').fill('0.005');
+    await typed.getByRole('button', { name: 'Add mode' }).click();
+    await modes.getByRole('cell', { name: 'First lateral (invented FE result)', exact: true }).waitFor();
+    await modes.getByRole('cell', { name: '61,000', exact: true }).waitFor();
   });
 
   it('computes a lumped model as it is typed and takes a design mode from it', async () => {
