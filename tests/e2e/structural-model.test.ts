@@ -245,6 +245,17 @@ describe('structural model in the browser', () => {
     await expect(main.getByRole('button', { name: 'New comfort criteria' }).count()).resolves.toBe(0);
     await expect(main.getByRole('button', { name: /^Remove/ }).count()).resolves.toBe(0);
     await browser.shot('structural-07-fabricator-criteria');
+
+    // The invented demo footbridge's seeded model reads the same way: its full matrices and their modes.
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Projects' }).click();
+    await page.getByRole('list', { name: 'Projects' }).getByRole('link', { name: 'Wrenmoor Mill footbridge' }).click();
+    await page.getByRole('navigation', { name: 'Project sections' }).getByRole('link', { name: 'Structures and modes' }).click();
+    await page.getByRole('list', { name: 'Structures' }).getByRole('link', { name: 'Main span' }).click();
+    await page.getByRole('table', { name: 'Design modes of the structure' }).getByRole('cell', { name: 'First vertical (beam estimate)', exact: true }).waitFor();
+    const demoModels = page.getByRole('region', { name: 'Lumped models' });
+    await demoModels.getByRole('table', { name: 'Stiffness matrix K [N/m]' }).waitFor();
+    await demoModels.getByRole('img', { name: /Shapes of the modes over the degrees of freedom, each scaled/ }).waitFor();
+    await browser.shot('structural-08-demo-footbridge-reader');
     await signOut(page);
   });
 
