@@ -5,6 +5,7 @@
  * after a reload; the demo fabricator reads them without any control to change them. Names and numbers are invented.
  */
 import { describe, expect, inject, it } from 'vitest';
+import { lumpedModelListSchema } from '../../shared/contracts';
 import { browserForFile, signIn, signOut } from './browser';
 
 const baseUrl = inject('baseUrl');
@@ -65,6 +66,21 @@ describe('structural model in the browser', () => {
     const modes = page.getByRole('table', { name: 'Design modes of the structure' });
     await modes.getByRole('cell', { name: 'First vertical bending', exact: true }).waitFor();
     await modes.getByRole('cell', { name: shown(expectedHz), exact: true }).waitFor();
+
+    // A mode typed in from a finite-element model; a damping ratio of 1 or more is refused under its field.
+    await page.getByRole('tab', { name: 'Type in' }).click();
+    const typed = page.getByRole('form', { name: 'Type a mode' });
+    await typed.getByLabel('Mode label').fill('First lateral (invented FE result)');
+    await typed.getByLabel('Direction').selectOption('lateral');
+    await typed.getByLabel('Natural frequency [Hz]').fill('0.94');
+    await typed.getByLabel('Modal mass [kg]').fill('61000');
+    await typed.getByLabel('Damping ratio ζ [–]').fill('1.2');
+    await typed.getByRole('button', { name: 'Add mode' }).click();
+    await typed.getByText(/Damping ratio ζ \[–\] must be/).waitFor();
+    await typed.getByLabel('Damping ratio ζ [–]').fill('0.005');
+    await typed.getByRole('button', { name: 'Add mode' }).click();
+    await modes.getByRole('cell', { name: 'First lateral (invented FE result)', exact: true }).waitFor();
+    await modes.getByRole('cell', { name: '61,000', exact: true }).waitFor();
   });
 
   it('computes a lumped model as it is typed and takes a design mode from it', async () => {
@@ -108,6 +124,29 @@ describe('structural model in the browser', () => {
     await modes.getByText('Model “Span with damper (invented)”, mode 1 at midspan').waitFor();
     await page.getByRole('complementary', { name: 'Caution' }).getByText(/qualified engineer/).waitFor();
     await browser.shot('structural-03-structure-with-modes');
+  });
+
+  it('refuses a save over a model changed meanwhile and offers a reload', async () => {
+    const { page } = browser;
+    const models = page.getByRole('region', { name: 'Lumped models' });
+    const editor = models.getByRole('form', { name: 'Edit model Span with damper (invented)' });
+    await editor.getByLabel('Mass m2 [kg]').fill('1100');
+
+    // Someone else saves the model first (the same API the page uses, on the same session).
+    const [, , projectId, , structureId] = new URL(page.url()).pathname.split('/');
+    const modelsPath = `${baseUrl}/api/projects/${projectId}/structures/${structureId}/models`;
+    const list = lumpedModelListSchema.parse(await (await page.request.get(modelsPath)).json());
+    const model = list.models[0];
+    const changed = await page.request.patch(`${modelsPath}/${model.id}`, { data: { version: model.version, name: model.name } });
+    expect(changed.status()).toBe(200);
+
+    await editor.getByRole('button', { name: 'Save model' }).click();
+    await models.getByRole('status').filter({ hasText: 'Changed by someone else' }).waitFor();
+    browser.consumeExpectedResponseError(409, `/models/${model.id}`);
+    await browser.shot('structural-03b-stale-model');
+    await models.getByRole('button', { name: 'Reload model' }).click();
+    await models.getByText(`(revision ${model.version + 1})`).waitFor();
+    await expect.poll(() => models.getByLabel('Mass m2 [kg]').inputValue()).toBe('1000');
   });
 
   it('adds a crowd load case and comfort criteria, each with its source', async () => {
@@ -188,6 +227,13 @@ describe('structural model in the browser', () => {
     await expect(main.getByRole('button', { name: /^Remove/ }).count()).resolves.toBe(0);
     await expect(main.getByRole('form').count()).resolves.toBe(0);
     await browser.shot('structural-06-fabricator-structure');
+    // On a phone the wide tables scroll inside their panels; the page itself does not.
+    await page.setViewportSize({ width: 390, height: 844 });
+    await models.getByRole('img', { name: /Displacement of each degree of freedom/ }).waitFor();
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+    expect(overflow).toBeLessThanOrEqual(0);
+    await browser.shot('structural-06b-fabricator-structure-narrow');
+    await page.setViewportSize({ width: 1280, height: 860 });
 
     await page.getByRole('navigation', { name: 'Project sections' }).getByRole('link', { name: 'Load cases' }).click();
     await page.getByRole('list', { name: 'Load cases' }).getByRole('heading', { name: 'Crowd, Sétra class II (invented)' }).waitFor();
@@ -199,6 +245,17 @@ describe('structural model in the browser', () => {
     await expect(main.getByRole('button', { name: 'New comfort criteria' }).count()).resolves.toBe(0);
     await expect(main.getByRole('button', { name: /^Remove/ }).count()).resolves.toBe(0);
     await browser.shot('structural-07-fabricator-criteria');
+
+    // The invented demo footbridge's seeded model reads the same way: its full matrices and their modes.
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Projects' }).click();
+    await page.getByRole('list', { name: 'Projects' }).getByRole('link', { name: 'Wrenmoor Mill footbridge' }).click();
+    await page.getByRole('navigation', { name: 'Project sections' }).getByRole('link', { name: 'Structures and modes' }).click();
+    await page.getByRole('list', { name: 'Structures' }).getByRole('link', { name: 'Main span' }).click();
+    await page.getByRole('table', { name: 'Design modes of the structure' }).getByRole('cell', { name: 'First vertical (beam estimate)', exact: true }).waitFor();
+    const demoModels = page.getByRole('region', { name: 'Lumped models' });
+    await demoModels.getByRole('table', { name: 'Stiffness matrix K [N/m]' }).waitFor();
+    await demoModels.getByRole('img', { name: /Shapes of the modes over the degrees of freedom, each scaled/ }).waitFor();
+    await browser.shot('structural-08-demo-footbridge-reader');
     await signOut(page);
   });
 

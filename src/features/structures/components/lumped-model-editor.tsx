@@ -42,6 +42,8 @@ interface LumpedModelEditorProps {
   /** The saved model being changed; undefined for a new one. */
   model?: LumpedModel;
   onSaved: (model: LumpedModel) => void;
+  /** Called when a save starts (to clear an earlier "saved" message). */
+  onSaving?: () => void;
   onCancel?: () => void;
 }
 
@@ -49,7 +51,7 @@ interface LumpedModelEditorProps {
  * The n-DOF model editor: masses and springs as a chain or as full matrices, its undamped modes and a free vibration
  * computed in the browser by the engine as the engineer types; saved as matrices.
  */
-export function LumpedModelEditor({ projectId, structureId, model, onSaved, onCancel }: LumpedModelEditorProps) {
+export function LumpedModelEditor({ projectId, structureId, model, onSaved, onSaving, onCancel }: LumpedModelEditorProps) {
   const createModel = useCreateLumpedModel(projectId, structureId);
   const updateModel = useUpdateLumpedModel(projectId, structureId);
   const reloadModels = useReloadLumpedModels(projectId, structureId);
@@ -69,6 +71,7 @@ export function LumpedModelEditor({ projectId, structureId, model, onSaved, onCa
   const onSubmit = handleSubmit((formValues) => {
     setFormError(null);
     setStale(false);
+    onSaving?.();
     const onError = (error: unknown) => {
       if (isApiError(error) && error.isConflict) setStale(true);
       else setFormError(applyServerIssues(error, serverFields, setError));
@@ -259,8 +262,8 @@ function MatrixInputs({ n, register, errors, labels }: { n: number; register: Us
                   <tr>
                     <td />
                     {Array.from({ length: n }, (_, j) => (
-                      <th key={j} scope="col" className={`${headClass} normal-case`}>
-                        {labels[j]?.trim() || `DOF ${j + 1}`}
+                      <th key={j} scope="col" className={headClass}>
+                        <span className="normal-case">{labels[j]?.trim() || `DOF ${j + 1}`}</span>
                       </th>
                     ))}
                   </tr>
@@ -347,8 +350,8 @@ export function LumpedModelView({ model }: { model: LumpedModel }) {
                   <tr>
                     <td />
                     {labels.map((label, j) => (
-                      <th key={j} scope="col" className={`${headClass} normal-case`}>
-                        {label}
+                      <th key={j} scope="col" className={headClass}>
+                        <span className="normal-case">{label}</span>
                       </th>
                     ))}
                   </tr>

@@ -16,8 +16,8 @@ export function ModelModesTable({ modes, dofLabels }: { modes: ModalSolution; do
           <Th className="text-right"><span className="normal-case">ω</span> <Unit>rad/s</Unit></Th>
           <Th className="text-right">Period <Unit>s</Unit></Th>
           {dofLabels.map((_, index) => (
-            <Th key={index} className="text-right normal-case" title={dofName(dofLabels, index)}>
-              φ at {dofLabels[index]?.trim() || `DOF ${index + 1}`}
+            <Th key={index} className="text-right" title={dofName(dofLabels, index)}>
+              <span className="normal-case">φ at {dofLabels[index]?.trim() || `DOF ${index + 1}`}</span>
             </Th>
           ))}
         </tr>

@@ -75,6 +75,7 @@ export function StructureModels({ projectId, structureId, models, canEdit }: Str
                 projectId={projectId}
                 structureId={structureId}
                 model={selected}
+                onSaving={() => setSaved(false)}
                 onSaved={() => setSaved(true)}
               />
             ) : (
