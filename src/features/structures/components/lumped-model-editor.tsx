@@ -363,7 +363,7 @@ export function LumpedModelView({ model }: { model: LumpedModel }) {
                         {labels[i]}
                       </th>
                       {row.map((value, j) => (
-                        <td key={j} className="px-2 py-1 text-right tabular-nums">
+                        <td key={j} className="whitespace-nowrap px-2 py-1 text-right tabular-nums">
                           {formatNumber(value, 5)}
                         </td>
                       ))}

@@ -79,6 +79,15 @@ describe('scaleToUnitMax and sampleTimesS', () => {
     expect(scaleToUnitMax([0.2, -0.4, 0.1])).toEqual([-0.5, 1, -0.25]);
   });
 
+  it('shows the node of a symmetric model as 0, not as rounding noise', () => {
+    // Three equal masses on a symmetric stiffness: mode 2 is antisymmetric with a node at the middle (common practice).
+    const modes = solveModes([[1, 0, 0], [0, 1, 0], [0, 0, 1]], [[2, -1, 0], [-1, 2, -1], [0, -1, 2]]);
+    const [first, middle, last] = scaleToUnitMax(modes.shapes[1]);
+    expect(first).toBe(1);
+    expect(middle).toBe(0);
+    expect(last).toBeCloseTo(-1, 12);
+  });
+
   it('spaces the times evenly from 0 to the duration', () => {
     expect(Array.from(sampleTimesS(2, 5))).toEqual([0, 0.5, 1, 1.5, 2]);
     expect(() => sampleTimesS(0, 5)).toThrow(/durationS/);

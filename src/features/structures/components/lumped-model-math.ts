@@ -47,12 +47,19 @@ export function matricesToChain(massMatrixKg: readonly (readonly number[])[], st
   return { massesKg, springsNPerM };
 }
 
-/** The shape scaled so that its entry of largest magnitude is +1 (for plots and tables). */
+/** Entries of a unit-max shape smaller than this are rounding noise of the eigen-solver: shown as 0 (a node). */
+export const SHAPE_NOISE_FLOOR = 1e-12;
+
+/** The shape scaled so that its entry of largest magnitude is +1 (for plots and tables); rounding noise becomes 0. */
 export function scaleToUnitMax(shape: readonly number[]): number[] {
   let pivot = 0;
   for (let i = 1; i < shape.length; i++) if (Math.abs(shape[i]) > Math.abs(shape[pivot])) pivot = i;
   const divisor = shape[pivot];
-  return divisor === 0 ? shape.map(() => 0) : shape.map((value) => value / divisor);
+  if (divisor === 0) return shape.map(() => 0);
+  return shape.map((value) => {
+    const scaled = value / divisor;
+    return Math.abs(scaled) < SHAPE_NOISE_FLOOR ? 0 : scaled;
+  });
 }
 
 /**
