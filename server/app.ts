@@ -7,7 +7,7 @@ import type { AppContext } from './context';
 import { defaultClientDir } from './env';
 import { requireUser } from './middleware/auth';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
-import { requireJsonBody, sameOrigin } from './middleware/same-origin';
+import { jsonBody, requireJsonBody, sameOrigin } from './middleware/same-origin';
 import { computeRouter } from './modules/compute/compute.router';
 import { configRouter } from './modules/config/config.router';
 import { devMailRouter } from './modules/dev-mail/dev-mail.router';
@@ -38,8 +38,11 @@ const securityHeaders: RequestHandler = (_req, res, next) => {
 export function createApp(ctx: AppContext, options: { clientDir?: string | null } = {}): Express {
   const app = express();
   app.disable('x-powered-by');
-  // Auth.js reads the protocol and host; behind a reverse proxy they come from X-Forwarded-*.
-  app.set('trust proxy', true);
+  // The client address (sign-in throttle) and protocol come from X-Forwarded-* only when the peer is trusted:
+  // by default a reverse proxy on the same machine (TRUST_PROXY, see README).
+  app.set('trust proxy', ctx.env.trustProxy);
+  // API answers are never cached (no-store), so an ETag would only cost a hash of every body on the event loop.
+  app.set('etag', false);
 
   app.use(securityHeaders);
   app.use('/api', (_req, res, next) => {
@@ -50,7 +53,11 @@ export function createApp(ctx: AppContext, options: { clientDir?: string | null 
   app.use('/api/auth/callback/credentials', ...signInThrottle());
   app.use('/api/auth', ExpressAuth(ctx.authConfig));
 
-  app.use('/api', requireJsonBody, express.json({ limit: '5mb' }));
+  app.use('/api', requireJsonBody);
+  // Body limits per route: compute requests carry matrices; everything else is small.
+  app.use('/api/compute', jsonBody('5mb'));
+  app.use(['/api/projects', '/api/organisation', '/api/me', '/api/invitations'], jsonBody('64kb'));
+  app.use('/api', jsonBody('1mb'));
   app.use('/api/health', healthRouter(ctx.pool));
   app.use('/api/config', configRouter(ctx));
   app.use('/api/invitations', invitationsRouter(ctx));
@@ -63,7 +70,7 @@ export function createApp(ctx: AppContext, options: { clientDir?: string | null 
   app.use('/api/projects/:id/members', projectMembersRouter(ctx));
   app.use('/api/projects', projectsRouter(ctx));
   app.use('/api/organisation', organisationRouter(ctx));
-  app.use('/api/compute', computeRouter());
+  app.use('/api/compute', computeRouter(ctx.enginePool));
   app.use('/api', apiNotFound);
 
   // The built client (vite build → dist/client), with every other GET answered by index.html for the client router.

@@ -39,13 +39,23 @@ export const errorHandler: ErrorRequestHandler = (error: unknown, req, res, next
     res.status(400).json(errorBody('invalid_request', message, issues));
     return;
   }
+  if (error instanceof URIError || (error instanceof Error && (error as { status?: number }).status === 400 && /decode/i.test(error.message))) {
+    // A path with broken %-encoding (`/api/projects/%ZZ`): the router cannot decode its parameters.
+    res.status(400).json(errorBody('invalid_path', 'The address has broken %-encoding', [{ path: 'path', message: 'path: is not valid %-encoded UTF-8' }]));
+    return;
+  }
   if (isBodyParserError(error)) {
     if (error.type === 'entity.parse.failed') {
       res.status(400).json(errorBody('invalid_json', 'The request body is not valid JSON', [{ path: '', message: 'the body must be valid JSON' }]));
       return;
     }
     if (error.type === 'entity.too.large') {
-      res.status(413).json(errorBody('payload_too_large', 'The request body is too large'));
+      const limit = (error as { limit?: number }).limit;
+      res.status(413).json(errorBody('payload_too_large', `The request body is too large${limit ? ` (at most ${Math.round(limit / 1024)} kB here)` : ''}`));
+      return;
+    }
+    if (error.type === 'charset.unsupported' || error.type === 'encoding.unsupported') {
+      res.status(415).json(errorBody('unsupported_charset', `The request body could not be read: ${error.message}`));
       return;
     }
     const status = error.status && error.status >= 400 && error.status < 500 ? error.status : 400;

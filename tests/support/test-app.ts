@@ -52,7 +52,7 @@ export async function dropDatabase(port: number, name: string): Promise<void> {
 }
 
 /** Environment of the app under test: test mode, a fixed secret, the fake SMTP server on a free port. */
-export function testEnv(databaseUrl: string) {
+export function testEnv(databaseUrl: string, overrides: Record<string, string> = {}) {
   return parseEnv({
     NODE_ENV: 'test',
     DATABASE_URL: databaseUrl,
@@ -60,15 +60,17 @@ export function testEnv(databaseUrl: string) {
     APP_URL: appUrl,
     STILLSPAN_FAKE_SMTP: '1',
     SMTP_PORT: '0',
+    ...overrides,
   });
 }
 
-export async function createTestApp(): Promise<TestApp> {
+/** `env`: environment variables beside the test defaults (e.g. a short STILLSPAN_COMPUTE_TIMEOUT_S). */
+export async function createTestApp(options: { env?: Record<string, string> } = {}): Promise<TestApp> {
   const port = inject('pgPort');
   const name = `test_${randomUUID().replace(/-/g, '')}`;
   await ensureDatabase(port, name, inject('pgTemplate'));
   const databaseUrl = clusterUrl(port, name);
-  const ctx = await createContext(testEnv(databaseUrl), { seed: false });
+  const ctx = await createContext(testEnv(databaseUrl, options.env), { seed: false });
   const { db } = ctx;
 
   const passwordHash = await hashPassword(testPassword, 4);
