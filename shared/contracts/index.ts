@@ -5,3 +5,4 @@ export * from './me';
 export * from './projects';
 export * from './members';
 export * from './app-config';
+export * from './paging';

@@ -14,13 +14,16 @@ export interface MemberRow {
 
 const memberColumns = { userId: users.id, email: users.email, name: users.name, role: memberships.role, joinedAt: memberships.createdAt };
 
-export function listMembers(db: Database, organisationId: string): Promise<MemberRow[]> {
+/** One page of the organisation's members by e-mail; `limit` rows from `offset`. */
+export function listMembers(db: Database, organisationId: string, page: { offset: number; limit: number }): Promise<MemberRow[]> {
   return db
     .select(memberColumns)
     .from(memberships)
     .innerJoin(users, eq(users.id, memberships.userId))
     .where(eq(memberships.organisationId, organisationId))
-    .orderBy(users.email);
+    .orderBy(users.email)
+    .limit(page.limit)
+    .offset(page.offset);
 }
 
 export async function findMember(db: Database, organisationId: string, userId: string): Promise<MemberRow | undefined> {
@@ -101,8 +104,15 @@ export async function withdrawInvitation(db: Database, organisationId: string, i
   return 'withdrawn';
 }
 
-export function listInvitations(db: Database, organisationId: string): Promise<InvitationRow[]> {
-  return db.select().from(invitations).where(eq(invitations.organisationId, organisationId)).orderBy(desc(invitations.createdAt)).limit(200);
+/** One page of the organisation's invitations, newest first; `limit` rows from `offset`. */
+export function listInvitations(db: Database, organisationId: string, page: { offset: number; limit: number }): Promise<InvitationRow[]> {
+  return db
+    .select()
+    .from(invitations)
+    .where(eq(invitations.organisationId, organisationId))
+    .orderBy(desc(invitations.createdAt), invitations.id)
+    .limit(page.limit)
+    .offset(page.offset);
 }
 
 /** Stores a new invitation, replacing any invitation to the same address that is still open. */

@@ -16,7 +16,9 @@ import type {
   MemberList,
   PeopleList,
 } from '../../../shared/contracts/members';
+import { pageOffset, type PageQuery } from '../../../shared/contracts/paging';
 import type { Role } from '../../../shared/contracts/roles';
+import { paged } from '../../lib/paging';
 import { emailRegistered } from '../users/users.repository';
 import * as repository from './members.repository';
 
@@ -51,14 +53,23 @@ function toInvitation(row: repository.InvitationRow): Invitation {
   };
 }
 
-export async function listMembers(db: Database, user: CurrentUser): Promise<MemberList> {
-  const [members, invitations] = await Promise.all([repository.listMembers(db, user.organisationId), repository.listInvitations(db, user.organisationId)]);
-  return { members: members.map(toMember), invitations: invitations.map(toInvitation) };
+/** One page of the members and the same page of the invitations; `hasMore` when either list goes on. */
+export async function listMembers(db: Database, user: CurrentUser, query: PageQuery): Promise<MemberList> {
+  const page = { offset: pageOffset(query), limit: query.pageSize + 1 };
+  const [memberRows, invitationRows] = await Promise.all([repository.listMembers(db, user.organisationId, page), repository.listInvitations(db, user.organisationId, page)]);
+  const members = paged(memberRows, query);
+  const invitations = paged(invitationRows, query);
+  return {
+    members: members.items.map(toMember),
+    invitations: invitations.items.map(toInvitation),
+    paging: { ...members.paging, hasMore: members.paging.hasMore || invitations.paging.hasMore },
+  };
 }
 
 /** The organisation's people without the invitations: readable by every member. */
-export async function listPeople(db: Database, user: CurrentUser): Promise<PeopleList> {
-  return { people: (await repository.listMembers(db, user.organisationId)).map(toMember) };
+export async function listPeople(db: Database, user: CurrentUser, query: PageQuery): Promise<PeopleList> {
+  const { items, paging } = paged(await repository.listMembers(db, user.organisationId, { offset: pageOffset(query), limit: query.pageSize + 1 }), query);
+  return { people: items.map(toMember), paging };
 }
 
 export async function changeMemberRole(db: Database, user: CurrentUser, userId: string, role: Role): Promise<Member> {

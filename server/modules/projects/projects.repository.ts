@@ -5,8 +5,15 @@ import { projectMembers, projects } from '../../db/schema';
 export type ProjectRow = typeof projects.$inferSelect;
 type ProjectChanges = Partial<Pick<ProjectRow, 'name' | 'kind' | 'location' | 'description'>>;
 
-export function listProjects(db: Database, organisationId: string): Promise<ProjectRow[]> {
-  return db.select().from(projects).where(eq(projects.organisationId, organisationId)).orderBy(desc(projects.updatedAt), projects.name);
+/** One page of the organisation's projects, most recently changed first; `limit` rows from `offset`. */
+export function listProjects(db: Database, organisationId: string, page: { offset: number; limit: number }): Promise<ProjectRow[]> {
+  return db
+    .select()
+    .from(projects)
+    .where(eq(projects.organisationId, organisationId))
+    .orderBy(desc(projects.updatedAt), projects.name, projects.id)
+    .limit(page.limit)
+    .offset(page.offset);
 }
 
 export async function findProject(db: Database, organisationId: string, id: string): Promise<ProjectRow | undefined> {
