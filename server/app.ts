@@ -2,7 +2,7 @@ import { ExpressAuth } from '@auth/express';
 import express, { type Express, type RequestHandler } from 'express';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
-import { signInThrottle } from './auth/sign-in-throttle';
+import { signInThrottle, type SignInThrottleOptions } from './auth/sign-in-throttle';
 import type { AppContext } from './context';
 import { defaultClientDir } from './env';
 import { requireUser } from './middleware/auth';
@@ -35,7 +35,7 @@ const securityHeaders: RequestHandler = (_req, res, next) => {
 };
 
 /** The whole HTTP application, without listening: the server and the tests (supertest) both use it. */
-export function createApp(ctx: AppContext, options: { clientDir?: string | null } = {}): Express {
+export function createApp(ctx: AppContext, options: { clientDir?: string | null; signInThrottle?: SignInThrottleOptions } = {}): Express {
   const app = express();
   app.disable('x-powered-by');
   // The client address (sign-in throttle) and protocol come from X-Forwarded-* only when the peer is trusted:
@@ -50,7 +50,7 @@ export function createApp(ctx: AppContext, options: { clientDir?: string | null 
     next();
   });
   app.use('/api', sameOrigin(ctx.env.appUrl));
-  app.use('/api/auth/callback/credentials', ...signInThrottle());
+  app.use('/api/auth/callback/credentials', ...signInThrottle(ctx.pool, options.signInThrottle));
   app.use('/api/auth', ExpressAuth(ctx.authConfig));
 
   app.use('/api', requireJsonBody);
@@ -65,8 +65,10 @@ export function createApp(ctx: AppContext, options: { clientDir?: string | null 
 
   // Mounted once for every signed-in route, so that a request falling through from one router to the next (and on
   // to the API 404) reads the session and the person once.
-  app.use(['/api/me', '/api/projects', '/api/organisation', '/api/compute'], requireUser(ctx.db, ctx.authConfig));
-  app.use('/api/me', meRouter(ctx.db));
+  // Compute uses no stored data: during a database outage the verified session token stands in for the read.
+  app.use('/api/compute', requireUser(ctx.db, ctx.authConfig, { whenDatabaseDown: 'token' }));
+  app.use(['/api/me', '/api/projects', '/api/organisation'], requireUser(ctx.db, ctx.authConfig));
+  app.use('/api/me', meRouter(ctx.db, ctx.authConfig));
   app.use('/api/projects/:id/members', projectMembersRouter(ctx));
   app.use('/api/projects', projectsRouter(ctx));
   app.use('/api/organisation', organisationRouter(ctx));

@@ -2,6 +2,7 @@ import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
 import { toApiIssues, type ApiErrorBody, type ApiIssue } from '../../shared/contracts/errors';
 import { errorCodes } from '../../shared/compute/types';
+import { isDatabaseUnavailable, reportDatabaseOutage } from '../db/availability';
 import { HttpError } from '../lib/http-error';
 
 export function errorBody(code: string, message: string, issues: ApiIssue[] = []): ApiErrorBody {
@@ -60,6 +61,11 @@ export const errorHandler: ErrorRequestHandler = (error: unknown, req, res, next
     }
     const status = error.status && error.status >= 400 && error.status < 500 ? error.status : 400;
     res.status(status).json(errorBody('invalid_body', `The request body could not be read: ${error.message}`));
+    return;
+  }
+  if (isDatabaseUnavailable(error)) {
+    reportDatabaseOutage(error);
+    res.status(503).set('Retry-After', '5').json(errorBody('database_unavailable', 'The database cannot be reached right now; try again in a moment'));
     return;
   }
   process.stderr.write(`[api] ${req.method} ${req.originalUrl}: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}\n`);

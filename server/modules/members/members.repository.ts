@@ -2,6 +2,7 @@ import { and, desc, eq, isNull, sql } from 'drizzle-orm';
 import type { Database } from '../../db/client';
 import { invitations, memberships, organisations, users } from '../../db/schema';
 import type { Role } from '../../../shared/contracts/roles';
+import { bumpSessionGeneration } from '../users/users.repository';
 
 export type InvitationRow = typeof invitations.$inferSelect;
 export interface MemberRow {
@@ -65,10 +66,13 @@ export function updateMemberRole(db: Database, organisationId: string, userId: s
     const { adminCount, current } = await lockAdminsAndMember(tx, organisationId, userId);
     if (!current) return 'not_found';
     if (current.role === 'admin' && role !== 'admin' && adminCount <= 1) return 'last_admin';
+    if (current.role === role) return 'updated';
     await tx
       .update(memberships)
       .set({ role })
       .where(and(eq(memberships.organisationId, organisationId), eq(memberships.userId, userId)));
+    // A new role ends the person's sessions: they sign in again and get a token with it.
+    await bumpSessionGeneration(tx, userId);
     return 'updated';
   });
 }
