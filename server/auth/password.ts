@@ -14,12 +14,35 @@ const parallelism = 1;
 const keyLength = 64;
 const saltLength = 16;
 
+/**
+ * Hashes running at once. scrypt runs in libuv's thread pool (4 threads unless UV_THREADPOOL_SIZE says otherwise),
+ * which also serves the session token's Web Crypto work and file access: a flood of sign-ins may take at most half
+ * of it, the rest waits here in the event loop's queue (which costs nothing) so signed-in requests stay fast.
+ */
+const maxParallelHashes = Math.max(1, Math.floor(Number(process.env.UV_THREADPOOL_SIZE || 4) / 2));
+let running = 0;
+const waiting: (() => void)[] = [];
+
+async function withHashSlot<T>(work: () => Promise<T>): Promise<T> {
+  if (running >= maxParallelHashes) await new Promise<void>((resolvePromise) => waiting.push(resolvePromise));
+  running += 1;
+  try {
+    return await work();
+  } finally {
+    running -= 1;
+    waiting.shift()?.();
+  }
+}
+
 function scryptAsync(password: string, salt: Buffer, cost: number, r: number, p: number): Promise<Buffer> {
   // Memory scrypt needs is 128 · N · r bytes; allow twice that.
   const options: ScryptOptions = { N: 2 ** cost, r, p, maxmem: 256 * 2 ** cost * r + 1024 * 1024 };
-  return new Promise((resolvePromise, reject) => {
-    scrypt(password.normalize('NFC'), salt, keyLength, options, (error, key) => (error ? reject(error) : resolvePromise(key)));
-  });
+  return withHashSlot(
+    () =>
+      new Promise((resolvePromise, reject) => {
+        scrypt(password.normalize('NFC'), salt, keyLength, options, (error, key) => (error ? reject(error) : resolvePromise(key)));
+      }),
+  );
 }
 
 interface ScryptHash {
