@@ -10,7 +10,7 @@ import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { jsonBody, requireJsonBody, sameOrigin } from './middleware/same-origin';
 import { computeRouter } from './modules/compute/compute.router';
 import { configRouter } from './modules/config/config.router';
-import { devMailRouter } from './modules/dev-mail/dev-mail.router';
+import { devMailRouter, loopbackOnly, requireDemoAdmin } from './modules/dev-mail/dev-mail.router';
 import { healthRouter } from './modules/health/health.router';
 import { meRouter } from './modules/me/me.router';
 import { invitationsRouter, organisationRouter } from './modules/members/members.router';
@@ -61,7 +61,9 @@ export function createApp(ctx: AppContext, options: { clientDir?: string | null;
   app.use('/api/health', healthRouter(ctx.pool));
   app.use('/api/config', configRouter(ctx));
   app.use('/api/invitations', invitationsRouter(ctx));
-  if (!ctx.env.isProduction && ctx.fakeSmtp) app.use('/api/dev/mail', devMailRouter(ctx.fakeSmtp));
+  if (!ctx.env.isProduction && ctx.fakeSmtp) {
+    app.use('/api/dev/mail', loopbackOnly, requireUser(ctx.db, ctx.authConfig), requireDemoAdmin, devMailRouter(ctx.fakeSmtp));
+  }
 
   // Mounted once for every signed-in route, so that a request falling through from one router to the next (and on
   // to the API 404) reads the session and the person once.

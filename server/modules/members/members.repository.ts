@@ -37,6 +37,17 @@ export async function findMember(db: Database, organisationId: string, userId: s
   return row;
 }
 
+/** The organisation's member with this e-mail address, if any. */
+export async function findMemberByEmail(db: Database, organisationId: string, email: string): Promise<MemberRow | undefined> {
+  const [row] = await db
+    .select(memberColumns)
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(and(eq(memberships.organisationId, organisationId), eq(users.email, email.trim().toLowerCase())))
+    .limit(1);
+  return row;
+}
+
 type Transaction = Parameters<Parameters<Database['transaction']>[0]>[0];
 
 /**

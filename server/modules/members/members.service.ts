@@ -120,9 +120,12 @@ async function issueInvitation(
   input: CreateInvitationInput,
   mailRequired: boolean,
 ): Promise<{ invitation: Invitation; link: string; mailError: string | null }> {
-  if (await emailRegistered(deps.db, input.email)) {
-    throw new HttpError(409, 'already_registered', `${input.email} already has a Stillspan account`, [
-      { path: 'email', message: 'email: already has an account' },
+  // Someone already in this organisation is refused (the admin sees the members anyway). An address with an account
+  // in another organisation is answered exactly like a new one, so that an invitation reveals nothing about other
+  // organisations: the invitation is stored and mailed, and accepting it is refused (the person signs in instead).
+  if (await repository.findMemberByEmail(deps.db, source.organisationId, input.email)) {
+    throw new HttpError(409, 'already_member', `${input.email} is already a member of your organisation`, [
+      { path: 'email', message: 'email: is already a member of your organisation' },
     ]);
   }
   const token = randomBytes(32).toString('base64url');
