@@ -275,6 +275,7 @@ export async function startThrowawayCluster(): Promise<{ url: string; port: numb
   }
   await ensureDatabase(port);
   let stopped = false;
+  let paused = false;
   const settings = ['-c fsync=off', '-c synchronous_commit=off', '-c full_page_writes=off'];
   return {
     url: clusterUrl(port),
@@ -282,15 +283,17 @@ export async function startThrowawayCluster(): Promise<{ url: string; port: numb
     /** Stops the server but keeps its data (an outage); `resume()` starts it again on the same port. */
     async pause() {
       await stopServer(paths.dataDir);
+      paused = true;
     },
     async resume() {
       await startServer(paths, port, settings);
+      paused = false;
     },
     async stop() {
       if (stopped) return;
       stopped = true;
       try {
-        await stopServer(paths.dataDir);
+        if (!paused) await stopServer(paths.dataDir);
       } finally {
         rmSync(base, { recursive: true, force: true });
       }
