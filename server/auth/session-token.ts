@@ -36,14 +36,32 @@ function readCookie(req: Request, name: string): string | undefined {
   return undefined;
 }
 
+/**
+ * Tokens already decrypted, with their claims and expiry: decrypting costs about a millisecond of Web Crypto work per
+ * request, while the same cookie comes back on every request of a page. Only a cache: what a token says never
+ * changes, whether it is still honoured is decided by the session generation read from the database per request.
+ * Bounded (oldest entries go first), per process, nothing another server process would need.
+ */
+const decodedTokens = new Map<string, { claims: SessionClaims; expiresAtMs: number }>();
+const maxDecodedTokens = 10_000;
+
 /** The verified claims of the request's session cookie, or null (none, forged, expired, or from an older version). */
 export async function readSessionClaims(req: Request, secret: string): Promise<SessionClaims | null> {
   for (const name of [sessionCookieNames.secure, sessionCookieNames.plain]) {
     const token = readCookie(req, name);
     if (!token) continue;
+    const cacheKey = `${secret}\u0000${name}=${token}`;
+    const cached = decodedTokens.get(cacheKey);
+    if (cached && cached.expiresAtMs > Date.now()) return cached.claims;
     const payload = await decode({ token, secret, salt: name }).catch(() => null);
     const claims = sessionClaimsSchema.safeParse(payload);
-    return claims.success ? claims.data : null;
+    if (!claims.success) return null;
+    const exp = (payload as JWT).exp;
+    if (typeof exp === 'number') {
+      if (decodedTokens.size >= maxDecodedTokens) decodedTokens.delete(decodedTokens.keys().next().value as string);
+      decodedTokens.set(cacheKey, { claims: claims.data, expiresAtMs: exp * 1000 });
+    }
+    return claims.data;
   }
   return null;
 }
