@@ -3,6 +3,7 @@
  * command, and serialise the answer, refusing one larger than the limit. Everything here runs off the server's
  * event loop; the answer travels back as a JSON string, so the main thread neither parses nor serialises it.
  */
+import type { MessagePort } from 'node:worker_threads';
 import { getComputeCommand } from '../../shared/compute/commands';
 import { ComputeInputError, errorCodes } from '../../shared/compute/types';
 import { toApiIssues, type ApiIssue } from '../../shared/contracts/errors';
@@ -12,6 +13,8 @@ export interface EngineTask {
   request: unknown;
   /** Largest answer (bytes of UTF-8 JSON) the caller accepts. */
   maxAnswerBytes: number;
+  /** The worker says "started" on it when the task begins to run (after the engine has loaded). */
+  startedPort?: MessagePort;
 }
 
 export type EngineTaskResult =

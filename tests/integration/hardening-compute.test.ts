@@ -14,6 +14,8 @@ beforeAll(async () => {
   // Time limit 3 s, answers up to 20 kB, two threads.
   t = await createTestApp({ env: { STILLSPAN_COMPUTE_TIMEOUT_S: '3', STILLSPAN_COMPUTE_MAX_ANSWER_MB: '0.02', STILLSPAN_COMPUTE_THREADS: '2' } });
   viewer = await signIn(t.app, t.people.viewer.email);
+  // Both workers load the engine before the clock matters.
+  await Promise.all([1, 2].map(() => viewer.post('/api/compute/tune').send({ method: 'den-hartog', massRatio: 0.02, structureFrequencyHz: 1.85 }).expect(200)));
 });
 
 afterAll(async () => {
@@ -62,7 +64,8 @@ describe('compute in worker threads', () => {
     expect(heavyMs).toBeGreaterThan(2500);
     expect(heavyMs).toBeLessThan(10_000);
 
-    // The stopped worker was replaced: the pool computes again.
+    // The stopped worker was replaced (the new one loads the engine first; that wait does not count against the
+    // time limit): the pool computes again.
     const tune = await viewer.post('/api/compute/tune').send({ method: 'den-hartog', massRatio: 0.02, structureFrequencyHz: 1.85 }).expect(200);
     // Den Hartog, Mechanical Vibrations (1956): optimum frequency ratio 1/(1+μ).
     expect(tune.body.frequencyRatio).toBeCloseTo(1 / 1.02, 6);
