@@ -86,6 +86,10 @@ export function createEnginePool(options: EnginePoolOptions): EnginePool {
           `The computation took longer than ${Math.round(options.taskTimeoutMs / 1000)} s and was stopped: ask for fewer points, factors or dampers`,
         );
       }
+      if (outcome === 'running' && error instanceof Error && error.name === 'AbortError') {
+        // The pool is closing (the server shuts down) with this task still queued or running.
+        throw new HttpError(503, 'shutting_down', 'The server is shutting down: try again in a moment');
+      }
       if (outcome === 'queue' || (error instanceof Error && /queue is at limit/i.test(error.message))) {
         throw new HttpError(503, 'compute_busy', 'The server is busy with other computations: try again in a moment');
       }
