@@ -33,8 +33,19 @@ function withMembership(db: Database) {
     .innerJoin(organisations, eq(organisations.id, memberships.organisationId));
 }
 
+/** Prepared once per database handle: this read runs on every signed-in request (requireUser). */
+const userByIdStatements = new WeakMap<Database, ReturnType<typeof prepareUserById>>();
+function prepareUserById(db: Database) {
+  return withMembership(db).where(eq(users.id, sql.placeholder('id'))).limit(1).prepare('user_with_membership_by_id');
+}
+
 export async function findUserById(db: Database, id: string): Promise<UserWithMembership | undefined> {
-  const [row] = await withMembership(db).where(eq(users.id, id)).limit(1);
+  let statement = userByIdStatements.get(db);
+  if (!statement) {
+    statement = prepareUserById(db);
+    userByIdStatements.set(db, statement);
+  }
+  const [row] = await statement.execute({ id });
   return row;
 }
 
