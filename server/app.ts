@@ -2,15 +2,15 @@ import { ExpressAuth } from '@auth/express';
 import express, { type Express, type RequestHandler } from 'express';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
-import { signInThrottle } from './auth/sign-in-throttle';
+import { signInThrottle, type SignInThrottleOptions } from './auth/sign-in-throttle';
 import type { AppContext } from './context';
 import { defaultClientDir } from './env';
 import { requireUser } from './middleware/auth';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
-import { requireJsonBody, sameOrigin } from './middleware/same-origin';
+import { jsonBody, requireJsonBody, sameOrigin } from './middleware/same-origin';
 import { computeRouter } from './modules/compute/compute.router';
 import { configRouter } from './modules/config/config.router';
-import { devMailRouter } from './modules/dev-mail/dev-mail.router';
+import { devMailRouter, loopbackOnly, requireDemoAdmin } from './modules/dev-mail/dev-mail.router';
 import { healthRouter } from './modules/health/health.router';
 import { meRouter } from './modules/me/me.router';
 import { invitationsRouter, organisationRouter } from './modules/members/members.router';
@@ -40,11 +40,14 @@ const securityHeaders: RequestHandler = (_req, res, next) => {
 };
 
 /** The whole HTTP application, without listening: the server and the tests (supertest) both use it. */
-export function createApp(ctx: AppContext, options: { clientDir?: string | null } = {}): Express {
+export function createApp(ctx: AppContext, options: { clientDir?: string | null; signInThrottle?: SignInThrottleOptions } = {}): Express {
   const app = express();
   app.disable('x-powered-by');
-  // Auth.js reads the protocol and host; behind a reverse proxy they come from X-Forwarded-*.
-  app.set('trust proxy', true);
+  // The client address (sign-in throttle) and protocol come from X-Forwarded-* only when the peer is trusted:
+  // by default a reverse proxy on the same machine (TRUST_PROXY, see README).
+  app.set('trust proxy', ctx.env.trustProxy);
+  // API answers are never cached (no-store), so an ETag would only cost a hash of every body on the event loop.
+  app.set('etag', false);
 
   app.use(securityHeaders);
   app.use('/api', (_req, res, next) => {
@@ -52,19 +55,27 @@ export function createApp(ctx: AppContext, options: { clientDir?: string | null 
     next();
   });
   app.use('/api', sameOrigin(ctx.env.appUrl));
-  app.use('/api/auth/callback/credentials', ...signInThrottle());
+  app.use('/api/auth/callback/credentials', ...signInThrottle(ctx.pool, options.signInThrottle));
   app.use('/api/auth', ExpressAuth(ctx.authConfig));
 
-  app.use('/api', requireJsonBody, express.json({ limit: '5mb' }));
+  app.use('/api', requireJsonBody);
+  // Body limits per route: compute requests carry matrices; everything else is small.
+  app.use('/api/compute', jsonBody('5mb'));
+  app.use(['/api/projects', '/api/organisation', '/api/me', '/api/invitations'], jsonBody('64kb'));
+  app.use('/api', jsonBody('1mb'));
   app.use('/api/health', healthRouter(ctx.pool));
   app.use('/api/config', configRouter(ctx));
   app.use('/api/invitations', invitationsRouter(ctx));
-  if (!ctx.env.isProduction && ctx.fakeSmtp) app.use('/api/dev/mail', devMailRouter(ctx.fakeSmtp));
+  if (!ctx.env.isProduction && ctx.fakeSmtp) {
+    app.use('/api/dev/mail', loopbackOnly, requireUser(ctx.db, ctx.authConfig), requireDemoAdmin, devMailRouter(ctx.fakeSmtp));
+  }
 
   // Mounted once for every signed-in route, so that a request falling through from one router to the next (and on
   // to the API 404) reads the session and the person once.
-  app.use(['/api/me', '/api/projects', '/api/organisation', '/api/compute'], requireUser(ctx.db, ctx.authConfig));
-  app.use('/api/me', meRouter(ctx.db));
+  // Compute uses no stored data: during a database outage the verified session token stands in for the read.
+  app.use('/api/compute', requireUser(ctx.db, ctx.authConfig, { whenDatabaseDown: 'token' }));
+  app.use(['/api/me', '/api/projects', '/api/organisation'], requireUser(ctx.db, ctx.authConfig));
+  app.use('/api/me', meRouter(ctx.db, ctx.authConfig));
   app.use('/api/projects/:id/members', projectMembersRouter(ctx));
   app.use('/api/projects/:projectId/structures/:structureId/modes', modesRouter(ctx));
   app.use('/api/projects/:projectId/structures/:structureId/models', lumpedModelsRouter(ctx));
@@ -73,7 +84,7 @@ export function createApp(ctx: AppContext, options: { clientDir?: string | null 
   app.use('/api/projects/:projectId/comfort-criteria', comfortCriteriaRouter(ctx));
   app.use('/api/projects', projectsRouter(ctx));
   app.use('/api/organisation', organisationRouter(ctx));
-  app.use('/api/compute', computeRouter());
+  app.use('/api/compute', computeRouter(ctx.enginePool));
   app.use('/api', apiNotFound);
 
   // The built client (vite build → dist/client), with every other GET answered by index.html for the client router.

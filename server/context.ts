@@ -4,6 +4,7 @@ import type { Database } from './db/client';
 import type { Env } from './env';
 import type { FakeSmtp } from './mail/fake-smtp';
 import type { Mailer } from './mail/mailer';
+import type { EnginePool } from './workers/engine-pool';
 
 /** What the app's routers need, built once by the server (or by a test). */
 export interface AppContext {
@@ -14,4 +15,6 @@ export interface AppContext {
   /** The in-process fake SMTP server, when it runs (never in production). */
   fakeSmtp: FakeSmtp | null;
   authConfig: ExpressAuthConfig;
+  /** Worker threads that run the numerical engine off the event loop. */
+  enginePool: EnginePool;
 }

@@ -20,6 +20,9 @@ describe('parseEnv', () => {
     expect(env).toMatchObject({
       nodeEnv: 'development',
       port: 3000,
+      host: '127.0.0.1',
+      trustProxy: 'loopback',
+      computeTimeoutMs: 30_000,
       pgPort: 54329,
       databaseUrl: 'postgres://postgres@127.0.0.1:54329/stillspan',
       appUrl: 'http://localhost:3000',

@@ -18,6 +18,13 @@ const port = (fallback: number) =>
 const rawEnvSchema = z.object({
   NODE_ENV: z.enum(['development', 'test', 'production'], { error: 'must be development, test or production' }).default('development'),
   PORT: port(3000),
+  HOST: z.string().min(1).default('127.0.0.1'),
+  TRUST_PROXY: z
+    .string()
+    .min(1)
+    .default('loopback')
+    // Express's `trust proxy`: true/false, a number of hops, or addresses/subnets and the names loopback, linklocal, uniquelocal.
+    .transform((value): boolean | number | string => (value === 'true' ? true : value === 'false' ? false : /^\d+$/.test(value) ? Number(value) : value)),
   DATABASE_URL: z
     .string()
     .regex(/^postgres(ql)?:\/\//, 'must be a postgres:// connection URL')
@@ -31,12 +38,19 @@ const rawEnvSchema = z.object({
   STILLSPAN_PG_PORT: port(54329),
   STILLSPAN_DATA_DIR: z.string().min(1).optional(),
   STILLSPAN_CLIENT_DIR: z.string().min(1).optional(),
+  STILLSPAN_COMPUTE_THREADS: z.coerce.number({ error: 'must be a number' }).int('must be a whole number').min(1, 'must be at least 1').max(256).optional(),
+  STILLSPAN_COMPUTE_TIMEOUT_S: z.coerce.number({ error: 'must be a number of seconds' }).positive('must be greater than 0').max(3600, 'must be at most 3600').default(30),
+  STILLSPAN_COMPUTE_MAX_ANSWER_MB: z.coerce.number({ error: 'must be a number of megabytes' }).positive('must be greater than 0').max(512).default(16),
 });
 
 export interface Env {
   nodeEnv: 'development' | 'test' | 'production';
   isProduction: boolean;
   port: number;
+  /** Interface the server listens on (127.0.0.1 unless HOST says otherwise). */
+  host: string;
+  /** Express `trust proxy`: which peers' X-Forwarded-For is believed for the client address. */
+  trustProxy: boolean | number | string;
   databaseUrl: string;
   authSecret: string;
   appUrl: string;
@@ -48,6 +62,12 @@ export interface Env {
   dataDir: string;
   /** The built client the server serves (vite build output). */
   clientDir: string;
+  /** Worker threads of the engine pool (default: the number of cores). */
+  computeThreads: number | undefined;
+  /** Time limit of one engine task. */
+  computeTimeoutMs: number;
+  /** Largest compute answer, in bytes of JSON. */
+  computeMaxAnswerBytes: number;
 }
 
 export class EnvError extends Error {
@@ -96,6 +116,8 @@ export function parseEnv(source: Record<string, string | undefined> = process.en
     nodeEnv: raw.NODE_ENV,
     isProduction,
     port: raw.PORT,
+    host: raw.HOST,
+    trustProxy: raw.TRUST_PROXY,
     databaseUrl: raw.DATABASE_URL ?? `postgres://postgres@127.0.0.1:${raw.STILLSPAN_PG_PORT}/stillspan`,
     authSecret: raw.AUTH_SECRET ?? developmentSecret(dataDir),
     appUrl: (raw.APP_URL ?? `http://localhost:${raw.PORT}`).replace(/\/+$/, ''),
@@ -106,6 +128,9 @@ export function parseEnv(source: Record<string, string | undefined> = process.en
     pgPort: raw.STILLSPAN_PG_PORT,
     dataDir,
     clientDir: raw.STILLSPAN_CLIENT_DIR ? resolve(raw.STILLSPAN_CLIENT_DIR) : defaultClientDir,
+    computeThreads: raw.STILLSPAN_COMPUTE_THREADS,
+    computeTimeoutMs: Math.round(raw.STILLSPAN_COMPUTE_TIMEOUT_S * 1000),
+    computeMaxAnswerBytes: Math.round(raw.STILLSPAN_COMPUTE_MAX_ANSWER_MB * 1e6),
   };
 }
 

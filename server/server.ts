@@ -8,6 +8,7 @@ import { seedDemoIfEmpty } from './db/seed';
 import type { Env } from './env';
 import { startFakeSmtp } from './mail/fake-smtp';
 import { createMailer } from './mail/mailer';
+import { createEnginePool } from './workers/engine-pool';
 
 function log(line: string): void {
   process.stdout.write(`[stillspan] ${line}\n`);
@@ -37,11 +38,13 @@ export async function createContext(env: Env, options: { seed?: boolean } = {}):
   const mailer = fakeSmtp
     ? createMailer({ host: fakeSmtp.host, port: fakeSmtp.port, from: env.mailFrom, ignoreTls: true })
     : createMailer({ host: env.smtpHost, port: env.smtpPort, from: env.mailFrom });
-  return { env, pool, db, mailer, fakeSmtp, authConfig: createAuthConfig({ db, secret: env.authSecret }) };
+  const enginePool = createEnginePool({ threads: env.computeThreads, taskTimeoutMs: env.computeTimeoutMs, maxAnswerBytes: env.computeMaxAnswerBytes });
+  return { env, pool, db, mailer, fakeSmtp, enginePool, authConfig: createAuthConfig({ db, secret: env.authSecret }) };
 }
 
 export async function closeContext(ctx: AppContext): Promise<void> {
   ctx.mailer.close();
+  await ctx.enginePool.close();
   await ctx.fakeSmtp?.close();
   await ctx.pool.end();
 }
@@ -53,7 +56,7 @@ export async function startServer(env: Env): Promise<RunningServer> {
   const server: Server = createServer(app);
   await new Promise<void>((resolvePromise, reject) => {
     server.once('error', reject);
-    server.listen(env.port, () => {
+    server.listen(env.port, env.host, () => {
       server.off('error', reject);
       resolvePromise();
     });
@@ -62,7 +65,7 @@ export async function startServer(env: Env): Promise<RunningServer> {
     throw error.code === 'EADDRINUSE' ? new Error(`Port ${env.port} is taken: stop the other program or set PORT`) : error;
   });
   const port = (server.address() as AddressInfo).port;
-  log(`serving on http://localhost:${port} (${env.nodeEnv})`);
+  log(`serving on http://${env.host.includes(':') ? `[${env.host}]` : env.host}:${port} (${env.nodeEnv})`);
   if (context.fakeSmtp) log(`mails are caught by the fake SMTP server on 127.0.0.1:${context.fakeSmtp.port}; see /api/dev/mail`);
   let closing: Promise<void> | undefined;
   return {

@@ -4,9 +4,9 @@ import Credentials from '@auth/express/providers/credentials';
 import { z } from 'zod';
 import type { Database } from '../db/client';
 import { accounts, authenticators, sessions, users, verificationTokens } from '../db/schema';
-import { findUserByEmail } from '../modules/users/users.repository';
+import { bumpSessionGeneration, findUserByEmail, upgradePasswordHash } from '../modules/users/users.repository';
 import { roleSchema } from '../../shared/contracts/roles';
-import { verifyPassword } from './password';
+import { hashPassword, passwordNeedsRehash, verifyPassword } from './password';
 
 /** How long a sign-in lasts without activity; the JWT is renewed at most once an hour while it is used. */
 export const sessionMaxAgeS = 12 * 60 * 60;
@@ -21,6 +21,8 @@ const expectedAuthErrors = new Set(['CredentialsSignin', 'JWTSessionError', 'Mis
 
 /** The token's own claims beside `sub` (the user id). */
 const claimsSchema = z.object({ organisationId: z.string(), role: roleSchema });
+/** The person's session generation at sign-in (docs/decisions/0013-session-generation.md). */
+const generationSchema = z.object({ sessionGeneration: z.number().int() });
 
 export function createAuthConfig(options: { db: Database; secret: string }): ExpressAuthConfig {
   const { db } = options;
@@ -46,7 +48,18 @@ export function createAuthConfig(options: { db: Database; secret: string }): Exp
           const user = await findUserByEmail(db, parsed.data.email);
           const ok = await verifyPassword(parsed.data.password, user?.passwordHash);
           if (!user || !ok) return null;
-          return { id: user.id, email: user.email, name: user.name, organisationId: user.organisationId, role: user.role };
+          // A hash from an earlier version (bcrypt) is replaced by an scrypt hash now that the password is known.
+          if (user.passwordHash && passwordNeedsRehash(user.passwordHash)) {
+            await upgradePasswordHash(db, user.id, user.passwordHash, await hashPassword(parsed.data.password));
+          }
+          return {
+            id: user.id,
+            email: user.email,
+            name: user.name,
+            organisationId: user.organisationId,
+            role: user.role,
+            sessionGeneration: user.sessionGeneration,
+          };
         },
       }),
     ],
@@ -57,6 +70,7 @@ export function createAuthConfig(options: { db: Database; secret: string }): Exp
           token.sub = user.id;
           token.organisationId = claims.organisationId;
           token.role = claims.role;
+          token.generation = generationSchema.parse(user).sessionGeneration;
         }
         return token;
       },
@@ -69,6 +83,13 @@ export function createAuthConfig(options: { db: Database; secret: string }): Exp
           role: claims.success ? claims.data.role : null,
         });
         return session;
+      },
+    },
+    events: {
+      // Signing out ends every session of the person, including copies of this cookie kept elsewhere.
+      async signOut(message) {
+        const sub = 'token' in message ? message.token?.sub : undefined;
+        if (typeof sub === 'string') await bumpSessionGeneration(db, sub);
       },
     },
     logger: {

@@ -2,6 +2,7 @@ import { drizzle, type NodePgDatabase } from 'drizzle-orm/node-postgres';
 import { migrate } from 'drizzle-orm/node-postgres/migrator';
 import { join } from 'node:path';
 import pg from 'pg';
+import { isDatabaseUnavailable, reportDatabaseOutage, reportDatabaseReachable } from './availability';
 import { repoRoot } from './cluster';
 import * as schema from './schema';
 
@@ -10,11 +11,14 @@ export type Database = NodePgDatabase<typeof schema>;
 export const migrationsFolder = join(repoRoot, 'drizzle');
 
 export function createPool(databaseUrl: string): pg.Pool {
-  const pool = new pg.Pool({ connectionString: databaseUrl, max: 10, connectionTimeoutMillis: 3000, idleTimeoutMillis: 10_000 });
-  // An idle client losing its connection (database restarted) must not crash the process.
+  // A connection that cannot be made within 2 s fails, so that an outage is answered 503 quickly.
+  const pool = new pg.Pool({ connectionString: databaseUrl, max: 10, connectionTimeoutMillis: 2000, idleTimeoutMillis: 10_000 });
+  // An idle client losing its connection (database restarted) must not crash the process; an outage is logged once.
   pool.on('error', (error) => {
-    process.stderr.write(`[db] idle connection error: ${error.message}\n`);
+    if (isDatabaseUnavailable(error)) reportDatabaseOutage(error);
+    else process.stderr.write(`[db] idle connection error: ${error.message}\n`);
   });
+  pool.on('connect', reportDatabaseReachable);
   return pool;
 }
 

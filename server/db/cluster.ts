@@ -249,7 +249,7 @@ export function findFreePort(): Promise<number> {
  * A fresh cluster for a test run: initdb in a new temporary folder, a free port, fsync off. `stop()` stops the server
  * and deletes the folder.
  */
-export async function startThrowawayCluster(): Promise<{ url: string; port: number; stop(): Promise<void> }> {
+export async function startThrowawayCluster(): Promise<{ url: string; port: number; stop(): Promise<void>; pause(): Promise<void>; resume(): Promise<void> }> {
   ensurePostgresInstalled();
   await ensurePostgresUser();
   const base = mkdtempSync(join(tmpdir(), 'stillspan-test-pg-'));
@@ -275,14 +275,25 @@ export async function startThrowawayCluster(): Promise<{ url: string; port: numb
   }
   await ensureDatabase(port);
   let stopped = false;
+  let paused = false;
+  const settings = ['-c fsync=off', '-c synchronous_commit=off', '-c full_page_writes=off'];
   return {
     url: clusterUrl(port),
     port,
+    /** Stops the server but keeps its data (an outage); `resume()` starts it again on the same port. */
+    async pause() {
+      await stopServer(paths.dataDir);
+      paused = true;
+    },
+    async resume() {
+      await startServer(paths, port, settings);
+      paused = false;
+    },
     async stop() {
       if (stopped) return;
       stopped = true;
       try {
-        await stopServer(paths.dataDir);
+        if (!paused) await stopServer(paths.dataDir);
       } finally {
         rmSync(base, { recursive: true, force: true });
       }

@@ -1,4 +1,4 @@
-import type { RequestHandler } from 'express';
+import express, { type RequestHandler } from 'express';
 import { errorBody } from './error-handler';
 
 const safeMethods = new Set(['GET', 'HEAD', 'OPTIONS']);
@@ -46,5 +46,16 @@ export const requireJsonBody: RequestHandler = (req, res, next) => {
     res.status(415).json(errorBody('unsupported_media_type', 'Send the request body as JSON (Content-Type: application/json)'));
     return;
   }
+  // JSON is UTF-8 (RFC 8259 §8.1): another charset is refused rather than misread.
+  const charset = /;\s*charset\s*=\s*"?([^";\s]+)/i.exec(req.get('content-type') ?? '')?.[1]?.toLowerCase();
+  if (hasBody && charset !== undefined && charset !== 'utf-8' && charset !== 'utf8') {
+    res.status(415).json(errorBody('unsupported_charset', `Send the JSON body in UTF-8 (charset=utf-8), not ${charset}`));
+    return;
+  }
   next();
 };
+
+/** Parses a JSON body up to `limit` (413 payload_too_large beyond); a body parsed by an earlier mount is kept. */
+export function jsonBody(limit: string): RequestHandler {
+  return express.json({ limit });
+}

@@ -6,3 +6,4 @@ export * from './projects';
 export * from './members';
 export * from './app-config';
 export * from './model';
+export * from './paging';

@@ -11,7 +11,7 @@ export const meSchema = z.object({
 export type Me = z.infer<typeof meSchema>;
 
 /** Body of PUT /api/me/password: the signed-in person changes their own password. */
-export const changePasswordSchema = z.object({
+export const changePasswordSchema = z.strictObject({
   currentPassword: z.string().min(1, 'is required').max(200),
   newPassword: z.string().min(10, 'must be at least 10 characters').max(200),
 });

@@ -1,5 +1,18 @@
 import { z } from 'zod';
+import { pagingSchema } from './paging';
 import { roleSchema } from './roles';
+
+/** A typed name: trimmed, 1–120 characters, no NUL character (no text column can store one). */
+const personName = () =>
+  z
+    .string()
+    .trim()
+    .min(1, 'is required')
+    .max(120, 'must be at most 120 characters')
+    .refine((value) => !value.includes('\u0000'), 'must not contain a NUL character (\\u0000)');
+
+/** RFC 5321 §4.5.3.1.3: a path holds at most 256 octets including its angle brackets, so an address at most 254. */
+export const maxEmailLength = 254;
 
 export const memberSchema = z.object({
   userId: z.string(),
@@ -20,27 +33,34 @@ export const invitationSchema = z.object({
 });
 export type Invitation = z.infer<typeof invitationSchema>;
 
+/** GET /api/organisation/members?page&pageSize: one page of the members and one of the invitations (newest first). */
 export const memberListSchema = z.object({
   members: z.array(memberSchema),
   invitations: z.array(invitationSchema),
+  paging: pagingSchema,
 });
 export type MemberList = z.infer<typeof memberListSchema>;
 
 /** GET /api/organisation/people (every member): who is in the organisation, e.g. to pick a project's team. */
-export const peopleListSchema = z.object({ people: z.array(memberSchema) });
+export const peopleListSchema = z.object({ people: z.array(memberSchema), paging: pagingSchema });
 export type PeopleList = z.infer<typeof peopleListSchema>;
 
 /** Body of POST /api/organisation/members (and POST /api/organisation/invitations): invite a person by e-mail. */
-export const createInvitationSchema = z.object({
-  email: z.string().trim().toLowerCase().pipe(z.email('must be an e-mail address')),
-  name: z.string().trim().min(1, 'is required').max(120).optional(),
+export const createInvitationSchema = z.strictObject({
+  email: z
+    .string()
+    .trim()
+    .toLowerCase()
+    .max(maxEmailLength, `must be at most ${maxEmailLength} characters`)
+    .pipe(z.email('must be an e-mail address')),
+  name: personName().optional(),
   role: roleSchema,
 });
 export type CreateInvitationInput = z.infer<typeof createInvitationSchema>;
 
 /** Body of POST /api/invitations/:token/accept (public: the token is the proof). */
-export const acceptInvitationSchema = z.object({
-  name: z.string().trim().min(1, 'is required').max(120),
+export const acceptInvitationSchema = z.strictObject({
+  name: personName(),
   password: z.string().min(10, 'must be at least 10 characters').max(200),
 });
 export type AcceptInvitationInput = z.infer<typeof acceptInvitationSchema>;
@@ -62,7 +82,7 @@ export const acceptedInvitationSchema = z.object({
 export type AcceptedInvitation = z.infer<typeof acceptedInvitationSchema>;
 
 /** PATCH /api/organisation/members/:userId (admin only). */
-export const updateMemberRoleSchema = z.object({ role: roleSchema });
+export const updateMemberRoleSchema = z.strictObject({ role: roleSchema });
 export type UpdateMemberRoleInput = z.infer<typeof updateMemberRoleSchema>;
 
 export const userIdParamsSchema = z.object({ userId: z.uuid('must be a user id (UUID)') });
@@ -78,6 +98,6 @@ export const projectMemberSchema = z.object({
   addedAt: z.string(),
 });
 export type ProjectMember = z.infer<typeof projectMemberSchema>;
-export const projectMemberListSchema = z.object({ members: z.array(projectMemberSchema) });
-export const addProjectMemberSchema = z.object({ userId: z.uuid('must be a user id (UUID)') });
+export const projectMemberListSchema = z.object({ members: z.array(projectMemberSchema), paging: pagingSchema });
+export const addProjectMemberSchema = z.strictObject({ userId: z.uuid('must be a user id (UUID)') });
 export type AddProjectMemberInput = z.infer<typeof addProjectMemberSchema>;

@@ -3,6 +3,7 @@
  * post the form, and read the JSON `{ url }` answer that the `X-Auth-Return-Redirect` header asks for.
  */
 import { z } from 'zod';
+import { apiErrorSchema } from '../../shared/contracts';
 import { ApiError, networkError } from './api-client';
 
 /** Query key of the signed-in person (null when signed out); a 401 anywhere clears it, which leads to sign-in. */
@@ -41,8 +42,12 @@ async function postAuthForm(path: string, fields: Record<string, string>): Promi
   } catch {
     throw networkError();
   }
-  const parsed = redirectSchema.safeParse(await response.json().catch(() => null));
+  const payload: unknown = await response.json().catch(() => null);
+  const parsed = redirectSchema.safeParse(payload);
   if (!parsed.success) {
+    // The server's own refusals (too many attempts from here, database unavailable) carry a message for people.
+    const refusal = apiErrorSchema.safeParse(payload);
+    if (refusal.success) throw new ApiError(response.status, refusal.data.error.code, refusal.data.error.message, refusal.data.error.issues);
     throw new ApiError(response.status, 'auth_failed', `The sign-in service answered ${response.status}.`);
   }
   return parsed.data.url;

@@ -100,13 +100,19 @@ describe('organisation and project team in the browser', () => {
 
   it('lets the invited person follow the mailed link, set a password and land with the role given', async () => {
     const { page } = browser;
+    // The mailbox holds live invitation links: only the demo organisation's admin reads it.
+    await signIn(page, baseUrl, 'admin@demo.stillspan.test');
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Dev mailbox' }).click();
     await page.getByRole('heading', { level: 1, name: 'Mailbox' }).waitFor();
     const mail = page.getByRole('article').filter({ hasText: inviteeEmail });
     await mail.waitFor();
     await browser.shot('team-05-dev-mailbox');
+    const link = await mail.getByRole('link', { name: /\/invitations\// }).getAttribute('href');
+    expect(link).toMatch(/\/invitations\/[A-Za-z0-9_-]+$/);
+    await signOut(page);
 
-    await mail.getByRole('link', { name: /\/invitations\// }).click();
+    // The invited person follows the link on their own.
+    await page.goto(link!);
     await page.getByRole('heading', { name: 'Join Stillspan' }).waitFor();
     await page.getByText(inviteeEmail).waitFor();
 

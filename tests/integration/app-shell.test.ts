@@ -11,14 +11,14 @@ import { createApp } from '../../server/app';
 import type { AppContext } from '../../server/context';
 import { parseEnv } from '../../server/env';
 import { closeContext, createContext } from '../../server/server';
-import { createTestApp, type TestApp } from '../support/test-app';
+import { createTestApp, signIn, signInDemoAdmin, type TestApp } from '../support/test-app';
 
 let t: TestApp;
 let clientDir: string;
 let production: AppContext | undefined;
 
 beforeAll(async () => {
-  t = await createTestApp();
+  t = await createTestApp({ demo: true });
   clientDir = mkdtempSync(join(tmpdir(), 'stillspan-client-'));
   writeFileSync(join(clientDir, 'index.html'), '<!doctype html><title>client shell</title>');
   writeFileSync(join(clientDir, 'app.js'), 'console.log(1)');
@@ -67,9 +67,21 @@ describe('serving the client', () => {
 });
 
 describe('development mailbox', () => {
-  it('is served outside production', async () => {
-    const response = await request(t.app).get('/api/dev/mail').expect(200);
+  it('is served outside production, to the demo organisation’s admin', async () => {
+    const demoAdmin = await signInDemoAdmin(t.app);
+    const response = await demoAdmin.get('/api/dev/mail').expect(200);
     expect(response.body).toEqual({ mails: [] });
+  });
+
+  it('is refused to anyone else: signed out 401, another organisation’s admin 403, from another address 404', async () => {
+    expect((await request(t.app).get('/api/dev/mail').expect(401)).body.error.code).toBe('unauthenticated');
+    await request(t.app).delete('/api/dev/mail').expect(401);
+    const otherAdmin = await signIn(t.app, t.people.admin.email);
+    expect((await otherAdmin.get('/api/dev/mail').expect(403)).body.error.code).toBe('forbidden');
+    await otherAdmin.delete('/api/dev/mail').expect(403);
+    // Through a proxy on this machine for a client elsewhere (X-Forwarded-For is believed from loopback).
+    const demoAdmin = await signInDemoAdmin(t.app);
+    await demoAdmin.get('/api/dev/mail').set('X-Forwarded-For', '203.0.113.9').expect(404);
   });
 
   it('does not exist in production, and /api/config lists no demo accounts there', async () => {

@@ -85,15 +85,22 @@ describe('sign-out', () => {
 });
 
 describe('roles are read on every request', () => {
-  it('a role changed by an admin applies to an open session at once', async () => {
+  it('a role changed by an admin ends the person’s sessions; signed in again, the new role applies', async () => {
     const admin = await signIn(t.app, t.people.admin.email);
-    const person = await signIn(t.app, t.people.owner.email);
-    await person.post('/api/projects').send({ name: 'Before promotion', kind: 'floor' }).expect(403);
+    const before = await signIn(t.app, t.people.owner.email);
+    await before.post('/api/projects').send({ name: 'Before promotion', kind: 'floor' }).expect(403);
     await admin.patch(`/api/organisation/members/${t.people.owner.id}`).send({ role: 'engineer' }).expect(200);
-    expect((await person.get('/api/me').expect(200)).body.role).toBe('engineer');
-    await person.post('/api/projects').send({ name: 'After promotion', kind: 'floor' }).expect(201);
+    // The session from before the change has ended (docs/decisions/0013-session-generation.md).
+    expect((await before.get('/api/me').expect(401)).body.error.code).toBe('session_ended');
+    const promoted = await signIn(t.app, t.people.owner.email);
+    expect((await promoted.get('/api/me').expect(200)).body.role).toBe('engineer');
+    await promoted.post('/api/projects').send({ name: 'After promotion', kind: 'floor' }).expect(201);
     await admin.patch(`/api/organisation/members/${t.people.owner.id}`).send({ role: 'owner' }).expect(200);
-    await person.post('/api/projects').send({ name: 'After demotion', kind: 'floor' }).expect(403);
+    await promoted.post('/api/projects').send({ name: 'After demotion', kind: 'floor' }).expect(401);
+    const demoted = await signIn(t.app, t.people.owner.email);
+    await demoted.post('/api/projects').send({ name: 'After demotion', kind: 'floor' }).expect(403);
+    // The admin who made the changes is still signed in.
+    await admin.get('/api/me').expect(200);
   });
 });
 

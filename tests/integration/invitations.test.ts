@@ -12,14 +12,17 @@ import { devMailListSchema } from '../../shared/contracts/app-config';
 import { invitationPreviewSchema, invitationSchema, memberListSchema, peopleListSchema } from '../../shared/contracts/members';
 import { meSchema } from '../../shared/contracts/me';
 import { roles, type Role } from '../../shared/contracts/roles';
-import { appUrl, createTestApp, signIn, type Agent, type TestApp } from '../support/test-app';
+import { appUrl, createTestApp, signIn, signInDemoAdmin, type Agent, type TestApp } from '../support/test-app';
 
 let t: TestApp;
 let admin: Agent;
+/** The demo organisation's admin, who may read the development mailbox. */
+let mailbox: Agent;
 
 beforeAll(async () => {
-  t = await createTestApp();
+  t = await createTestApp({ demo: true });
   admin = await signIn(t.app, t.people.admin.email);
+  mailbox = await signInDemoAdmin(t.app);
 });
 
 afterAll(async () => {
@@ -28,7 +31,7 @@ afterAll(async () => {
 
 /** The token in the newest mail to `to`, read from the development mailbox over HTTP. */
 async function tokenFromMail(to: string): Promise<string> {
-  const list = devMailListSchema.parse((await request(t.app).get('/api/dev/mail').expect(200)).body);
+  const list = devMailListSchema.parse((await mailbox.get('/api/dev/mail').expect(200)).body);
   const mail = list.mails.find((m) => m.to.includes(to));
   expect(mail, `a mail to ${to}`).toBeDefined();
   const link = mail!.text.match(/https?:\/\/\S+\/invitations\/([A-Za-z0-9_-]+)/);

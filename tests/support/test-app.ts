@@ -12,6 +12,7 @@ import { createApp } from '../../server/app';
 import { hashPassword } from '../../server/auth/password';
 import type { AppContext } from '../../server/context';
 import { memberships, organisations, projects, users } from '../../server/db/schema';
+import { demoAccounts, demoPassword } from '../../server/db/seed';
 import { parseEnv } from '../../server/env';
 import { closeContext, createContext } from '../../server/server';
 import type { Role } from '../../shared/contracts/roles';
@@ -52,7 +53,7 @@ export async function dropDatabase(port: number, name: string): Promise<void> {
 }
 
 /** Environment of the app under test: test mode, a fixed secret, the fake SMTP server on a free port. */
-export function testEnv(databaseUrl: string) {
+export function testEnv(databaseUrl: string, overrides: Record<string, string> = {}) {
   return parseEnv({
     NODE_ENV: 'test',
     DATABASE_URL: databaseUrl,
@@ -60,15 +61,20 @@ export function testEnv(databaseUrl: string) {
     APP_URL: appUrl,
     STILLSPAN_FAKE_SMTP: '1',
     SMTP_PORT: '0',
+    ...overrides,
   });
 }
 
-export async function createTestApp(): Promise<TestApp> {
+/**
+ * `env`: environment variables beside the test defaults (e.g. a short STILLSPAN_COMPUTE_TIMEOUT_S). `demo`: seed the
+ * invented demo organisation first (its admin, admin@demo.stillspan.test, is the one who may read the mailbox).
+ */
+export async function createTestApp(options: { env?: Record<string, string>; demo?: boolean } = {}): Promise<TestApp> {
   const port = inject('pgPort');
   const name = `test_${randomUUID().replace(/-/g, '')}`;
   await ensureDatabase(port, name, inject('pgTemplate'));
   const databaseUrl = clusterUrl(port, name);
-  const ctx = await createContext(testEnv(databaseUrl), { seed: false });
+  const ctx = await createContext(testEnv(databaseUrl, options.env), { seed: options.demo ?? false });
   const { db } = ctx;
 
   const passwordHash = await hashPassword(testPassword, 4);
@@ -132,3 +138,8 @@ export async function signIn(app: Express, email: string, password = testPasswor
 }
 
 export type Agent = Awaited<ReturnType<typeof signIn>>;
+
+/** Signs in as the demo organisation's admin (createTestApp({ demo: true })), who may read the development mailbox. */
+export function signInDemoAdmin(app: Express) {
+  return signIn(app, demoAccounts[0].email, demoPassword);
+}

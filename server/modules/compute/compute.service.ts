@@ -1,7 +1,7 @@
-import { getComputeCommand, computeCommands } from '../../../shared/compute/commands';
-import { ComputeInputError, errorCodes } from '../../../shared/compute/types';
-import { toApiIssues } from '../../../shared/contracts/errors';
+import { computeCommands, getComputeCommand } from '../../../shared/compute/commands';
+import { errorCodes } from '../../../shared/compute/types';
 import { HttpError } from '../../lib/http-error';
+import type { EnginePool } from '../../workers/engine-pool';
 
 export function listComputeCommands(): { name: string; summary: string }[] {
   return Object.values(computeCommands)
@@ -9,22 +9,13 @@ export function listComputeCommands(): { name: string; summary: string }[] {
     .sort((a, b) => a.name.localeCompare(b.name));
 }
 
-/** Validates the request with the command's own schema and runs it; the same rules as the `calc` command. */
-export function runComputeCommand(name: string, body: unknown): unknown {
-  const command = getComputeCommand(name);
-  if (!command) {
+/**
+ * Runs a command in the engine's worker pool, which validates the request with the command's own schema (the same
+ * rules as the `calc` command) and answers its JSON. An unknown command is refused here, before it is queued.
+ */
+export function runComputeCommand(pool: EnginePool, name: string, body: unknown): Promise<string> {
+  if (!getComputeCommand(name)) {
     throw new HttpError(404, errorCodes.unknownCommand, `There is no compute command "${name}"; GET /api/compute lists them`);
   }
-  const request = command.request.safeParse(body ?? {});
-  if (!request.success) {
-    const issues = toApiIssues(request.error);
-    throw new HttpError(400, errorCodes.invalidRequest, issues.length === 1 ? issues[0].message : `${issues.length} fields are invalid`, issues);
-  }
-  try {
-    return command.run(request.data);
-  } catch (error) {
-    // The commands turn the engine's input checks into ComputeInputError; anything else is a fault (500), as in `calc`.
-    if (error instanceof ComputeInputError) throw new HttpError(400, errorCodes.invalidRequest, error.message, error.issues);
-    throw error;
-  }
+  return pool.runCommand(name, body ?? {});
 }

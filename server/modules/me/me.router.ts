@@ -1,12 +1,15 @@
 import { Router } from 'express';
 import { currentUser } from '../../middleware/auth';
 import { changePasswordSchema, type Me } from '../../../shared/contracts/me';
+import type { ExpressAuthConfig } from '@auth/express';
+import { sessionMaxAgeS } from '../../auth/config';
+import { reissueSessionCookie } from '../../auth/session-token';
 import type { Database } from '../../db/client';
 import { validate } from '../../middleware/validate';
 import { changePassword } from './me.service';
 
 /** GET /api/me: the signed-in person, with their current role and organisation; PUT /api/me/password. */
-export function meRouter(db: Database): Router {
+export function meRouter(db: Database, authConfig: ExpressAuthConfig): Router {
   const router = Router();
   router.get('/', (req, res) => {
     const user = currentUser(req);
@@ -20,7 +23,9 @@ export function meRouter(db: Database): Router {
     res.json(body);
   });
   router.put('/password', validate({ body: changePasswordSchema }), async (req, res) => {
-    await changePassword(db, currentUser(req), req.body);
+    const generation = await changePassword(db, currentUser(req), req.body);
+    // Every other session has ended; the device that changed the password stays signed in.
+    await reissueSessionCookie(req, res, String(authConfig.secret), generation, sessionMaxAgeS);
     res.status(204).end();
   });
   return router;

@@ -2,6 +2,7 @@ import { and, desc, eq, isNull, sql } from 'drizzle-orm';
 import type { Database } from '../../db/client';
 import { invitations, memberships, organisations, users } from '../../db/schema';
 import type { Role } from '../../../shared/contracts/roles';
+import { bumpSessionGeneration } from '../users/users.repository';
 
 export type InvitationRow = typeof invitations.$inferSelect;
 export interface MemberRow {
@@ -14,13 +15,16 @@ export interface MemberRow {
 
 const memberColumns = { userId: users.id, email: users.email, name: users.name, role: memberships.role, joinedAt: memberships.createdAt };
 
-export function listMembers(db: Database, organisationId: string): Promise<MemberRow[]> {
+/** One page of the organisation's members by e-mail; `limit` rows from `offset`. */
+export function listMembers(db: Database, organisationId: string, page: { offset: number; limit: number }): Promise<MemberRow[]> {
   return db
     .select(memberColumns)
     .from(memberships)
     .innerJoin(users, eq(users.id, memberships.userId))
     .where(eq(memberships.organisationId, organisationId))
-    .orderBy(users.email);
+    .orderBy(users.email)
+    .limit(page.limit)
+    .offset(page.offset);
 }
 
 export async function findMember(db: Database, organisationId: string, userId: string): Promise<MemberRow | undefined> {
@@ -29,6 +33,17 @@ export async function findMember(db: Database, organisationId: string, userId: s
     .from(memberships)
     .innerJoin(users, eq(users.id, memberships.userId))
     .where(and(eq(memberships.organisationId, organisationId), eq(memberships.userId, userId)))
+    .limit(1);
+  return row;
+}
+
+/** The organisation's member with this e-mail address, if any. */
+export async function findMemberByEmail(db: Database, organisationId: string, email: string): Promise<MemberRow | undefined> {
+  const [row] = await db
+    .select(memberColumns)
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(and(eq(memberships.organisationId, organisationId), eq(users.email, email.trim().toLowerCase())))
     .limit(1);
   return row;
 }
@@ -62,10 +77,13 @@ export function updateMemberRole(db: Database, organisationId: string, userId: s
     const { adminCount, current } = await lockAdminsAndMember(tx, organisationId, userId);
     if (!current) return 'not_found';
     if (current.role === 'admin' && role !== 'admin' && adminCount <= 1) return 'last_admin';
+    if (current.role === role) return 'updated';
     await tx
       .update(memberships)
       .set({ role })
       .where(and(eq(memberships.organisationId, organisationId), eq(memberships.userId, userId)));
+    // A new role ends the person's sessions: they sign in again and get a token with it.
+    await bumpSessionGeneration(tx, userId);
     return 'updated';
   });
 }
@@ -101,8 +119,15 @@ export async function withdrawInvitation(db: Database, organisationId: string, i
   return 'withdrawn';
 }
 
-export function listInvitations(db: Database, organisationId: string): Promise<InvitationRow[]> {
-  return db.select().from(invitations).where(eq(invitations.organisationId, organisationId)).orderBy(desc(invitations.createdAt)).limit(200);
+/** One page of the organisation's invitations, newest first; `limit` rows from `offset`. */
+export function listInvitations(db: Database, organisationId: string, page: { offset: number; limit: number }): Promise<InvitationRow[]> {
+  return db
+    .select()
+    .from(invitations)
+    .where(eq(invitations.organisationId, organisationId))
+    .orderBy(desc(invitations.createdAt), invitations.id)
+    .limit(page.limit)
+    .offset(page.offset);
 }
 
 /** Stores a new invitation, replacing any invitation to the same address that is still open. */

@@ -10,6 +10,7 @@ import {
   updateMemberRoleSchema,
   userIdParamsSchema,
 } from '../../../shared/contracts/members';
+import { pageQuerySchema } from '../../../shared/contracts/paging';
 import { memberManagerRoles } from '../../../shared/contracts/roles';
 import * as service from './members.service';
 
@@ -20,14 +21,14 @@ import * as service from './members.service';
 export function organisationRouter(ctx: AppContext): Router {
   const router = Router();
 
-  router.get('/people', async (req, res) => {
-    res.json(await service.listPeople(ctx.db, currentUser(req)));
+  router.get('/people', validate({ query: pageQuerySchema }), async (req, res) => {
+    res.json(await service.listPeople(ctx.db, currentUser(req), parsed(pageQuerySchema, req.query)));
   });
 
   router.use(requireRole(...memberManagerRoles));
 
-  router.get('/members', async (req, res) => {
-    res.json(await service.listMembers(ctx.db, currentUser(req)));
+  router.get('/members', validate({ query: pageQuerySchema }), async (req, res) => {
+    res.json(await service.listMembers(ctx.db, currentUser(req), parsed(pageQuerySchema, req.query)));
   });
 
   const invite = async (req: Request, res: Response) => {

@@ -16,7 +16,9 @@ import type {
   MemberList,
   PeopleList,
 } from '../../../shared/contracts/members';
+import { pageOffset, type PageQuery } from '../../../shared/contracts/paging';
 import type { Role } from '../../../shared/contracts/roles';
+import { paged } from '../../lib/paging';
 import { emailRegistered } from '../users/users.repository';
 import * as repository from './members.repository';
 
@@ -51,14 +53,23 @@ function toInvitation(row: repository.InvitationRow): Invitation {
   };
 }
 
-export async function listMembers(db: Database, user: CurrentUser): Promise<MemberList> {
-  const [members, invitations] = await Promise.all([repository.listMembers(db, user.organisationId), repository.listInvitations(db, user.organisationId)]);
-  return { members: members.map(toMember), invitations: invitations.map(toInvitation) };
+/** One page of the members and the same page of the invitations; `hasMore` when either list goes on. */
+export async function listMembers(db: Database, user: CurrentUser, query: PageQuery): Promise<MemberList> {
+  const page = { offset: pageOffset(query), limit: query.pageSize + 1 };
+  const [memberRows, invitationRows] = await Promise.all([repository.listMembers(db, user.organisationId, page), repository.listInvitations(db, user.organisationId, page)]);
+  const members = paged(memberRows, query);
+  const invitations = paged(invitationRows, query);
+  return {
+    members: members.items.map(toMember),
+    invitations: invitations.items.map(toInvitation),
+    paging: { ...members.paging, hasMore: members.paging.hasMore || invitations.paging.hasMore },
+  };
 }
 
 /** The organisation's people without the invitations: readable by every member. */
-export async function listPeople(db: Database, user: CurrentUser): Promise<PeopleList> {
-  return { people: (await repository.listMembers(db, user.organisationId)).map(toMember) };
+export async function listPeople(db: Database, user: CurrentUser, query: PageQuery): Promise<PeopleList> {
+  const { items, paging } = paged(await repository.listMembers(db, user.organisationId, { offset: pageOffset(query), limit: query.pageSize + 1 }), query);
+  return { people: items.map(toMember), paging };
 }
 
 export async function changeMemberRole(db: Database, user: CurrentUser, userId: string, role: Role): Promise<Member> {
@@ -109,9 +120,12 @@ async function issueInvitation(
   input: CreateInvitationInput,
   mailRequired: boolean,
 ): Promise<{ invitation: Invitation; link: string; mailError: string | null }> {
-  if (await emailRegistered(deps.db, input.email)) {
-    throw new HttpError(409, 'already_registered', `${input.email} already has a Stillspan account`, [
-      { path: 'email', message: 'email: already has an account' },
+  // Someone already in this organisation is refused (the admin sees the members anyway). An address with an account
+  // in another organisation is answered exactly like a new one, so that an invitation reveals nothing about other
+  // organisations: the invitation is stored and mailed, and accepting it is refused (the person signs in instead).
+  if (await repository.findMemberByEmail(deps.db, source.organisationId, input.email)) {
+    throw new HttpError(409, 'already_member', `${input.email} is already a member of your organisation`, [
+      { path: 'email', message: 'email: is already a member of your organisation' },
     ]);
   }
   const token = randomBytes(32).toString('base64url');

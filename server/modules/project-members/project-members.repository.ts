@@ -20,10 +20,13 @@ function selectProjectMembers(db: Database, organisationId: string) {
     .innerJoin(memberships, and(eq(memberships.userId, users.id), eq(memberships.organisationId, organisationId)));
 }
 
-export function listProjectMembers(db: Database, organisationId: string, projectId: string): Promise<ProjectMemberRow[]> {
+/** One page of the project's people, in the order they were added; `limit` rows from `offset`. */
+export function listProjectMembers(db: Database, organisationId: string, projectId: string, page: { offset: number; limit: number }): Promise<ProjectMemberRow[]> {
   return selectProjectMembers(db, organisationId)
     .where(eq(projectMembers.projectId, projectId))
-    .orderBy(asc(projectMembers.addedAt), asc(users.email));
+    .orderBy(asc(projectMembers.addedAt), asc(users.email))
+    .limit(page.limit)
+    .offset(page.offset);
 }
 
 export async function findProjectMember(db: Database, organisationId: string, projectId: string, userId: string): Promise<ProjectMemberRow | undefined> {

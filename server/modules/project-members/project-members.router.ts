@@ -3,6 +3,7 @@ import type { AppContext } from '../../context';
 import { currentUser, requireRole } from '../../middleware/auth';
 import { parsed, validate } from '../../middleware/validate';
 import { addProjectMemberSchema, userIdParamsSchema } from '../../../shared/contracts/members';
+import { pageQuerySchema } from '../../../shared/contracts/paging';
 import { projectIdParamsSchema } from '../../../shared/contracts/projects';
 import { projectEditorRoles } from '../../../shared/contracts/roles';
 import * as service from './project-members.service';
@@ -14,8 +15,8 @@ export function projectMembersRouter(ctx: AppContext): Router {
   const router = Router({ mergeParams: true });
   const editors = requireRole(...projectEditorRoles);
 
-  router.get('/', validate({ params: projectIdParamsSchema }), async (req, res) => {
-    res.json({ members: await service.listProjectMembers(ctx.db, currentUser(req), parsed(projectIdParamsSchema, req.params).id) });
+  router.get('/', validate({ params: projectIdParamsSchema, query: pageQuerySchema }), async (req, res) => {
+    res.json(await service.listProjectMembers(ctx.db, currentUser(req), parsed(projectIdParamsSchema, req.params).id, parsed(pageQuerySchema, req.query)));
   });
 
   router.post('/', editors, validate({ params: projectIdParamsSchema, body: addProjectMemberSchema }), async (req, res) => {

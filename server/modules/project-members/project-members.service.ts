@@ -5,14 +5,18 @@ import type { ProjectMember } from '../../../shared/contracts/members';
 import { findMember } from '../members/members.repository';
 import { requireProject } from '../projects/projects.service';
 import * as repository from './project-members.repository';
+import { pageOffset, type PageQuery, type Paging } from '../../../shared/contracts/paging';
+import { paged } from '../../lib/paging';
 
 function toProjectMember(row: repository.ProjectMemberRow): ProjectMember {
   return { userId: row.userId, email: row.email, name: row.name ?? row.email, role: row.role, addedAt: row.addedAt.toISOString() };
 }
 
-export async function listProjectMembers(db: Database, user: CurrentUser, projectId: string): Promise<ProjectMember[]> {
+export async function listProjectMembers(db: Database, user: CurrentUser, projectId: string, query: PageQuery): Promise<{ members: ProjectMember[]; paging: Paging }> {
   await requireProject(db, user, projectId);
-  return (await repository.listProjectMembers(db, user.organisationId, projectId)).map(toProjectMember);
+  const rows = await repository.listProjectMembers(db, user.organisationId, projectId, { offset: pageOffset(query), limit: query.pageSize + 1 });
+  const { items, paging } = paged(rows, query);
+  return { members: items.map(toProjectMember), paging };
 }
 
 /** Adds a person of the same organisation to the project; returns the member and whether they were new. */

@@ -5,8 +5,27 @@ import { projectMembers, projects } from '../../db/schema';
 export type ProjectRow = typeof projects.$inferSelect;
 type ProjectChanges = Partial<Pick<ProjectRow, 'name' | 'kind' | 'location' | 'description'>>;
 
-export function listProjects(db: Database, organisationId: string): Promise<ProjectRow[]> {
-  return db.select().from(projects).where(eq(projects.organisationId, organisationId)).orderBy(desc(projects.updatedAt), projects.name);
+/** One page of the organisation's projects, most recently changed first; `limit` rows from `offset`. */
+export function listProjects(db: Database, organisationId: string, page: { offset: number; limit: number }): Promise<ProjectRow[]> {
+  let statement = listStatements.get(db);
+  if (!statement) {
+    statement = prepareList(db);
+    listStatements.set(db, statement);
+  }
+  return statement.execute({ organisationId, limit: page.limit, offset: page.offset });
+}
+
+/** Prepared once per database handle: the project list is the most frequent read. */
+const listStatements = new WeakMap<Database, ReturnType<typeof prepareList>>();
+function prepareList(db: Database) {
+  return db
+    .select()
+    .from(projects)
+    .where(eq(projects.organisationId, sql.placeholder('organisationId')))
+    .orderBy(desc(projects.updatedAt), projects.name, projects.id)
+    .limit(sql.placeholder('limit'))
+    .offset(sql.placeholder('offset'))
+    .prepare('projects_page');
 }
 
 export async function findProject(db: Database, organisationId: string, id: string): Promise<ProjectRow | undefined> {

@@ -2,7 +2,8 @@ import { Router } from 'express';
 import type { AppContext } from '../../context';
 import { currentUser, requireRole } from '../../middleware/auth';
 import { parsed, validate } from '../../middleware/validate';
-import { createProjectSchema, projectIdParamsSchema, updateProjectSchema, type ProjectList } from '../../../shared/contracts/projects';
+import { pageQuerySchema } from '../../../shared/contracts/paging';
+import { createProjectSchema, projectIdParamsSchema, updateProjectSchema } from '../../../shared/contracts/projects';
 import { projectEditorRoles } from '../../../shared/contracts/roles';
 import * as service from './projects.service';
 
@@ -11,9 +12,8 @@ export function projectsRouter(ctx: AppContext): Router {
   const router = Router();
   const editors = requireRole(...projectEditorRoles);
 
-  router.get('/', async (req, res) => {
-    const body: ProjectList = { projects: await service.listProjects(ctx.db, currentUser(req)) };
-    res.json(body);
+  router.get('/', validate({ query: pageQuerySchema }), async (req, res) => {
+    res.json(await service.listProjects(ctx.db, currentUser(req), parsed(pageQuerySchema, req.query)));
   });
 
   router.post('/', editors, validate({ body: createProjectSchema }), async (req, res) => {

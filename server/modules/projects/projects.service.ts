@@ -1,7 +1,9 @@
 import type { Database } from '../../db/client';
 import { HttpError, notFound } from '../../lib/http-error';
 import type { CurrentUser } from '../../middleware/auth';
-import type { CreateProjectInput, Project, UpdateProjectInput } from '../../../shared/contracts/projects';
+import { pageOffset, type PageQuery } from '../../../shared/contracts/paging';
+import type { CreateProjectInput, Project, ProjectList, UpdateProjectInput } from '../../../shared/contracts/projects';
+import { paged } from '../../lib/paging';
 import * as repository from './projects.repository';
 
 export function toProject(row: repository.ProjectRow): Project {
@@ -30,8 +32,11 @@ export async function requireProject(db: Database, user: CurrentUser, id: string
   return row;
 }
 
-export async function listProjects(db: Database, user: CurrentUser): Promise<Project[]> {
-  return (await repository.listProjects(db, user.organisationId)).map(toProject);
+export async function listProjects(db: Database, user: CurrentUser, query: PageQuery): Promise<ProjectList> {
+  // One row more than the page tells whether another page follows.
+  const rows = await repository.listProjects(db, user.organisationId, { offset: pageOffset(query), limit: query.pageSize + 1 });
+  const { items, paging } = paged(rows, query);
+  return { projects: items.map(toProject), paging };
 }
 
 export async function getProject(db: Database, user: CurrentUser, id: string): Promise<Project> {

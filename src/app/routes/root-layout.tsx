@@ -23,7 +23,8 @@ export function RootLayoutRoute() {
     nav.push({ to: '/projects', label: 'Projects' });
     if (canManageMembers(me.role)) nav.push({ to: '/members', label: 'Members' });
   }
-  if (config?.devMailbox) nav.push({ to: '/dev/mail', label: 'Dev mailbox' });
+  // The server opens the mailbox to the demo organisation's admin only (it holds live invitation links).
+  if (config?.devMailbox && me?.role === 'admin') nav.push({ to: '/dev/mail', label: 'Dev mailbox' });
   nav.push({ to: '/about', label: 'About' });
 
   const account = me ? (

@@ -1,5 +1,6 @@
 import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import {
+  maxPageSize,
   projectListSchema,
   projectMemberListSchema,
   projectSchema,
@@ -18,10 +19,24 @@ export const projectKeys = {
   members: (projectId: string) => ['projects', projectId, 'members'] as const,
 };
 
+/** Pages the list is read in at most: the client shows up to this many × maxPageSize projects. */
+const maxProjectListPages = 25;
+
+/** Every project of the organisation, read page by page (the API pages its lists). */
+async function fetchAllProjects(signal: AbortSignal): Promise<{ projects: Project[] }> {
+  const projects: Project[] = [];
+  for (let page = 1; page <= maxProjectListPages; page += 1) {
+    const data = await apiRequest(`/api/projects?page=${page}&pageSize=${maxPageSize}`, { schema: projectListSchema, signal });
+    projects.push(...data.projects);
+    if (!data.paging.hasMore) break;
+  }
+  return { projects };
+}
+
 export const projectsQueryOptions = () =>
   queryOptions({
     queryKey: projectKeys.list(),
-    queryFn: ({ signal }) => apiRequest('/api/projects', { schema: projectListSchema, signal }),
+    queryFn: ({ signal }) => fetchAllProjects(signal),
     select: (data) => data.projects,
   });
 

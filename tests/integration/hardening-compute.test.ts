@@ -1,0 +1,104 @@
+/**
+ * The engine runs in a pool of worker threads: a heavy computation holds up neither the health check nor signed-in
+ * reads, ends at its time limit with 503 compute_timeout (the worker is replaced and the next request works), and an
+ * answer beyond the size limit is refused with 422 answer_too_large.
+ */
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createTestApp, signIn, type Agent, type TestApp } from '../support/test-app';
+
+let t: TestApp;
+let viewer: Agent;
+
+beforeAll(async () => {
+  // Time limit 3 s, answers up to 20 kB, two threads.
+  t = await createTestApp({ env: { STILLSPAN_COMPUTE_TIMEOUT_S: '3', STILLSPAN_COMPUTE_MAX_ANSWER_MB: '0.02', STILLSPAN_COMPUTE_THREADS: '2' } });
+  viewer = await signIn(t.app, t.people.viewer.email);
+  // Both workers load the engine before the clock matters.
+  await Promise.all([1, 2].map(() => viewer.post('/api/compute/tune').send({ method: 'den-hartog', massRatio: 0.02, structureFrequencyHz: 1.85 }).expect(200)));
+});
+
+afterAll(async () => {
+  await t?.close();
+});
+
+const structure = { modalMassKg: 30_000, frequencyHz: 2, dampingRatio: 0.01 };
+const tmds = Array.from({ length: 50 }, (_, i) => ({ massKg: 10 + i, frequencyHz: 1.9 + i * 0.002, dampingRatio: 0.08 }));
+const factors = (n: number) => Array.from({ length: n }, (_, i) => 0.5 + i / n);
+/** The heaviest robustness map the schema accepts: 501 × 501 factors, 50 dampers (minutes of work in one thread). */
+const heavy = {
+  structure,
+  tmds,
+  loadCase: { kind: 'harmonic', modalForceAmplitudeN: 100, pacingRangeHz: [1.6, 2.4] },
+  structureFrequencyFactors: factors(501),
+  tmdDampingFactors: factors(501),
+};
+
+async function timed<T>(run: () => Promise<T>): Promise<{ value: T; ms: number }> {
+  const started = performance.now();
+  const value = await run();
+  return { value, ms: performance.now() - started };
+}
+
+describe('compute in worker threads', () => {
+  it('a heavy computation leaves health and signed-in reads answering within a second, then ends with 503 compute_timeout', async () => {
+    const heavyStarted = performance.now();
+    const heavyResponse = viewer.post('/api/compute/robustness').send(heavy).then((r) => r);
+    // Let it reach a worker.
+    await new Promise((wait) => setTimeout(wait, 300));
+    const health = await timed(() => request(t.app).get('/api/health'));
+    expect(health.value.status).toBe(200);
+    expect(health.ms).toBeLessThan(1000);
+    const me = await timed(() => viewer.get('/api/me'));
+    expect(me.value.status).toBe(200);
+    expect(me.ms).toBeLessThan(1000);
+    const projects = await timed(() => viewer.get('/api/projects'));
+    expect(projects.value.status).toBe(200);
+    expect(projects.ms).toBeLessThan(1000);
+
+    const response = await heavyResponse;
+    expect(response.status).toBe(503);
+    expect(response.body.error.code).toBe('compute_timeout');
+    expect(response.body.error.message).toMatch(/longer than 3 s/);
+    const heavyMs = performance.now() - heavyStarted;
+    expect(heavyMs).toBeGreaterThan(2500);
+    expect(heavyMs).toBeLessThan(10_000);
+
+    // The stopped worker was replaced (the new one loads the engine first; that wait does not count against the
+    // time limit): the pool computes again.
+    const tune = await viewer.post('/api/compute/tune').send({ method: 'den-hartog', massRatio: 0.02, structureFrequencyHz: 1.85 }).expect(200);
+    // Den Hartog, Mechanical Vibrations (1956): optimum frequency ratio 1/(1+μ).
+    expect(tune.body.frequencyRatio).toBeCloseTo(1 / 1.02, 6);
+  });
+
+  it('several heavy computations at once still leave health answering', async () => {
+    const running = [1, 2, 3].map(() => viewer.post('/api/compute/robustness').send(heavy).then((r) => r));
+    await new Promise((wait) => setTimeout(wait, 300));
+    const health = await timed(() => request(t.app).get('/api/health'));
+    expect(health.value.status).toBe(200);
+    expect(health.ms).toBeLessThan(1000);
+    for (const response of await Promise.all(running)) {
+      expect(response.status).toBe(503);
+      expect(response.body.error.code).toBe('compute_timeout');
+    }
+  });
+
+  it('an answer beyond the size limit is 422 answer_too_large, naming the size', async () => {
+    const response = await viewer.post('/api/compute/robustness').send({
+      structure,
+      tmds: tmds.slice(0, 1),
+      loadCase: heavy.loadCase,
+      structureFrequencyFactors: factors(200),
+      tmdDampingFactors: factors(20),
+    });
+    expect(response.status).toBe(422);
+    expect(response.body.error.code).toBe('answer_too_large');
+    expect(response.body.error.message).toMatch(/^The answer would be \d+ kB, more than the 20 kB allowed/);
+  });
+
+  it('a compute request body beyond 5 MB is 413', async () => {
+    const response = await viewer.post('/api/compute/tune').set('Content-Type', 'application/json').send(`{"pad":"${'x'.repeat(5_300_000)}"}`);
+    expect(response.status).toBe(413);
+    expect(response.body.error.code).toBe('payload_too_large');
+  });
+});
