@@ -6,3 +6,5 @@ export * from './projects';
 export * from './members';
 export * from './app-config';
 export * from './model';
+export * from './variants';
+export * from './preferences';
