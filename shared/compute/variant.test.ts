@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { computeVariantCurves, computeVariantResult, computeVariantSize, sampleAdaptively, tuneVariantDamper, type VariantComputeInput } from './variant';
+import { computeVariantCurves, computeVariantResult, computeVariantSize, sampleAdaptively, tuneVariantDamper, type VariantComputeInput, type VariantLoadCaseInput } from './variant';
 import { designCommands } from './design-commands';
 import { ComputeInputError } from './types';
 
@@ -7,7 +7,7 @@ import { ComputeInputError } from './types';
 const mode = { modalMassKg: 30_000, frequencyHz: 2.0, dampingRatio: 0.005, direction: 'vertical' as const, modeShapeMean: 0.6 };
 const crowd = { id: 'lc-crowd', name: 'crowd', spec: { kind: 'crowd' as const, guide: 'setra' as const, densityPerM2: 0.8, deckAreaM2: 120, harmonic: 1 as const } };
 const walker = { id: 'lc-walker', name: 'walker', spec: { kind: 'walker' as const } };
-const input = (over: Partial<VariantComputeInput['variant']> = {}, loadCases = [crowd, walker]): VariantComputeInput => ({
+const input = (over: Partial<VariantComputeInput['variant']> = {}, loadCases: VariantLoadCaseInput[] = [crowd, walker]): VariantComputeInput => ({
   mode,
   loadCases,
   criteria: { spec: { set: 'setra', class: 'maximum' } },

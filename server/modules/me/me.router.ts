@@ -2,10 +2,12 @@ import { Router } from 'express';
 import { currentUser } from '../../middleware/auth';
 import { changePasswordSchema, type Me } from '../../../shared/contracts/me';
 import type { Database } from '../../db/client';
-import { validate } from '../../middleware/validate';
+import { parsed, validate } from '../../middleware/validate';
 import { changePassword } from './me.service';
+import { updatePreferencesSchema } from '../../../shared/contracts/preferences';
+import { getPreferences, updatePreferences } from './preferences.service';
 
-/** GET /api/me: the signed-in person, with their current role and organisation; PUT /api/me/password. */
+/** GET /api/me: the signed-in person, with their current role and organisation; PUT /api/me/password; GET/PATCH /api/me/preferences. */
 export function meRouter(db: Database): Router {
   const router = Router();
   router.get('/', (req, res) => {
@@ -22,6 +24,12 @@ export function meRouter(db: Database): Router {
   router.put('/password', validate({ body: changePasswordSchema }), async (req, res) => {
     await changePassword(db, currentUser(req), req.body);
     res.status(204).end();
+  });
+  router.get('/preferences', async (req, res) => {
+    res.json(await getPreferences(db, currentUser(req)));
+  });
+  router.patch('/preferences', validate({ body: updatePreferencesSchema }), async (req, res) => {
+    res.json(await updatePreferences(db, currentUser(req), parsed(updatePreferencesSchema, req.body)));
   });
   return router;
 }
