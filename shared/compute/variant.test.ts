@@ -132,3 +132,35 @@ describe('computeVariantCurves', () => {
     expect(Math.max(...(history?.structureAccelerationMPerS2 ?? []).map(Math.abs))).toBe(history?.peakAccelerationMPerS2);
   });
 });
+
+describe('published closed forms through a variant', () => {
+  it('tunes Warburton’s white-noise optimum: f = √(1+μ/2)/(1+μ), ζ_a = √(μ(1+3μ/4)/(4(1+μ)(1+μ/2)))', () => {
+    // Warburton, Earthquake Engineering and Structural Dynamics 10 (1982), force on an undamped primary.
+    const mu = 0.04;
+    const tmd = tuneVariantDamper(mode, mu, { method: 'warburton-random' });
+    expect(tmd.frequencyHz).toBeCloseTo((2.0 * Math.sqrt(1 + mu / 2)) / (1 + mu), 12);
+    expect(tmd.dampingRatio).toBeCloseTo(Math.sqrt((mu * (1 + (3 * mu) / 4)) / (4 * (1 + mu) * (1 + mu / 2))), 12);
+  });
+
+  it('finds the bare mode’s resonant acceleration F/(M · 2ζ√(1−ζ²)) in the stored result and on the sampled curve', () => {
+    // Single-DOF acceleration response factor, maximum 1/(2ζ√(1−ζ²)): textbook structural dynamics (e.g. Chopra,
+    // Dynamics of Structures, harmonic excitation; the book is cited from memory).
+    const forceN = 500;
+    const harmonic = { id: 'lc-h', name: 'harmonic', spec: { kind: 'harmonic' as const, modalForceAmplitudeN: forceN, pacingRangeHz: [1.5, 2.5] as [number, number] } };
+    const exact = forceN / (30_000 * 2 * 0.005 * Math.sqrt(1 - 0.005 ** 2));
+    const v = input({}, [harmonic]);
+    const result = computeVariantResult(v);
+    expect(result.loadCases[0].bareStructurePeakAccelerationMPerS2).toBeCloseTo(exact, 6);
+    const curves = computeVariantCurves(v, 0);
+    const sampledTop = Math.max(...curves.response[0].bareStructureAccelerationMPerS2.map((a) => a ?? 0));
+    expect(sampledTop).toBeGreaterThan(0.999 * exact);
+    expect(sampledTop).toBeLessThanOrEqual(exact * (1 + 1e-9));
+  });
+
+  it('widens the detuning check with a damper damping tolerance (never lower than without it)', () => {
+    const without = computeVariantResult(input());
+    const withTolerance = computeVariantResult(input({ tmdDampingToleranceRatio: 0.3 }));
+    expect(withTolerance.detuning.worstUtilisation).toBeGreaterThanOrEqual(without.detuning.worstUtilisation);
+    expect(withTolerance.detuning.tmdDampingToleranceRatio).toBe(0.3);
+  });
+});
