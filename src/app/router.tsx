@@ -18,6 +18,12 @@ const members = () => import('./routes/members').then((module) => ({ Component: 
 const projectLayout = () => import('./routes/project-layout').then((module) => ({ Component: module.ProjectLayoutRoute }));
 const projectOverview = () => import('./routes/project-overview').then((module) => ({ Component: module.ProjectOverviewRoute }));
 const projectMembers = () => import('./routes/project-members').then((module) => ({ Component: module.ProjectMembersRoute }));
+const tuningVariants = () =>
+  import('./routes/tuning-variants').then((module) => ({ Component: module.TuningVariantsRoute, loader: module.tuningVariantsLoader }));
+const tuningVariant = () =>
+  import('./routes/tuning-variant').then((module) => ({ Component: module.TuningVariantRoute, loader: module.tuningVariantLoader }));
+const tuningVariantEdit = () =>
+  import('./routes/tuning-variant').then((module) => ({ Component: module.TuningVariantEditRoute, loader: module.tuningVariantLoader }));
 const projectSection = (slug: string) => () =>
   import('./routes/project-section').then((module) => ({ Component: module.projectSectionRoute(slug) }));
 
@@ -53,6 +59,10 @@ export const router = createBrowserRouter([
                     children: [
                       { index: true, lazy: projectOverview },
                       { path: 'members', lazy: projectMembers },
+                      { path: 'tuning-variants', lazy: tuningVariants },
+                      { path: 'tuning-variants/new', lazy: tuningVariantEdit },
+                      { path: 'tuning-variants/:variantId', lazy: tuningVariant },
+                      { path: 'tuning-variants/:variantId/edit', lazy: tuningVariantEdit },
                       ...projectSections
                         .filter((entry) => !entry.available)
                         .map((entry) => ({ path: entry.slug, lazy: projectSection(entry.slug) })),

@@ -11,8 +11,9 @@
  * Frequencies (Hz), damping ratios and mass ratios have no unit to convert.
  */
 
-export const unitSystems = ['si', 'us-customary'] as const;
-export type UnitSystem = (typeof unitSystems)[number];
+import type { UnitSystem } from '../../shared/contracts/preferences';
+
+export type { UnitSystem };
 
 export const KG_PER_LB = 0.45359237;
 export const M_PER_IN = 0.0254;
