@@ -3,6 +3,7 @@ import type { Database } from '../../db/client';
 import type { Executor } from '../../db/executor';
 import { HttpError, invalidField, notFound } from '../../lib/http-error';
 import { givenFields, nothingToChange, versionConflict } from '../../lib/versioned';
+import { FOREIGN_KEY_VIOLATION, pgErrorCode } from '../../lib/pg-errors';
 import type { CurrentUser } from '../../middleware/auth';
 import { ComputeInputError } from '../../../shared/compute/types';
 import { variantEngineVersion, type VariantComputeInput } from '../../../shared/compute/variant';
@@ -22,6 +23,20 @@ import * as repository from './variants.repository';
 import { computeVariant } from './variant-compute';
 
 const variantNotFound = () => notFound('The tuning variant', 'variant_not_found');
+
+/** A mode, load case or criteria deleted between reading it and storing the variant: the keys refuse the write. */
+async function storing<T>(write: () => Promise<T>): Promise<T> {
+  try {
+    return await write();
+  } catch (error) {
+    if (pgErrorCode(error) === FOREIGN_KEY_VIOLATION) {
+      throw new HttpError(409, 'reference_deleted', 'A mode, load case or comfort criteria the variant names was deleted meanwhile; nothing was stored', [
+        { path: '', message: 'a mode, load case or comfort criteria the variant names was deleted meanwhile' },
+      ]);
+    }
+    throw error;
+  }
+}
 
 /** The engine's refusal of a variant's inputs as a 400 naming the variant's fields. */
 function computeRefusal(error: ComputeInputError): HttpError {
@@ -175,7 +190,7 @@ export async function createVariant(db: Database, user: CurrentUser, projectId: 
   };
   const computeInput = await computeInputOf(db, scope, { ...values, loadCaseIds: input.loadCaseIds });
   const computed = await computation(computeInput, true);
-  return toVariant(await repository.insertVariant(db, scope, user.id, { ...values, ...computed }, input.loadCaseIds));
+  return toVariant(await storing(() => repository.insertVariant(db, scope, user.id, { ...values, ...computed }, input.loadCaseIds)));
 }
 
 const changeableFields = [
@@ -190,7 +205,7 @@ async function applyChanges(db: Database, scope: ProjectScope, id: string, input
   if (current.row.version !== version) throw versionConflict('The tuning variant', version, current.row.version);
   const merged = { ...current.row, ...changes, loadCaseIds: loadCaseIds ?? current.loadCaseIds };
   const computed = await computation(await computeInputOf(db, scope, merged), true);
-  const updated = await repository.updateVariantAtVersion(db, scope, id, version, { ...changes, ...computed }, loadCaseIds);
+  const updated = await storing(() => repository.updateVariantAtVersion(db, scope, id, version, { ...changes, ...computed }, loadCaseIds));
   if (updated) return toVariant(updated);
   const now = await repository.findVariant(db, scope, id);
   if (!now) throw variantNotFound();
