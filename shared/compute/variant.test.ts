@@ -164,3 +164,24 @@ describe('published closed forms through a variant', () => {
     expect(withTolerance.detuning.tmdDampingToleranceRatio).toBe(0.3);
   });
 });
+
+describe('frequency-dependent limits', () => {
+  it('checks ISO 10137 against its limit at each frequency, the same utilisation as assess', () => {
+    const floorMode = { modalMassKg: 25_000, frequencyHz: 6.0, dampingRatio: 0.03, direction: 'vertical' as const };
+    const v: VariantComputeInput = {
+      mode: floorMode,
+      loadCases: [{ id: 'lc-floor', name: 'floor walking', spec: { kind: 'floor-walking' } }],
+      criteria: { spec: { set: 'iso10137', class: 'office' } },
+      variant: { massRatio: 0.02, tuning: { method: 'den-hartog' }, structureFrequencyToleranceRatio: 0 },
+    };
+    const result = computeVariantResult(v);
+    const answer = designCommands.assess.run(
+      designCommands.assess.request.parse({ structure: floorMode, tmds: [result.tmd], loadCase: { kind: 'floor-walking' }, criteria: { set: 'iso10137', class: 'office' }, hardware: { unitCount: 1 } }),
+    );
+    expect(result.loadCases[0].utilisation).toBe(answer.utilisation);
+    // With no detuning band the detuned worst is the nominal utilisation.
+    expect(result.detuning.worstUtilisation).toBeCloseTo(answer.utilisation, 9);
+    const curves = computeVariantCurves(v, 0);
+    expect(curves.response.every((b) => b.limitMPerS2?.length === b.frequencyHz.length)).toBe(true);
+  });
+});

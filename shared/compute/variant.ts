@@ -96,8 +96,10 @@ export function variantFieldOf(enginePath: string, loadCaseIndex: number): strin
   const [head, ...rest] = enginePath.split('.');
   switch (head) {
     case 'structure':
-    case 'structureDampingRatio':
       return 'modeId';
+    case 'structureDampingRatio':
+      // A method that gives no tuning for the mode's damping ratio (Ioi & Ikeda's fit, H∞ above 1/√2).
+      return 'tuning';
     case 'loadCase':
       return `loadCaseIds.${loadCaseIndex}`;
     case 'criteria':
@@ -543,7 +545,7 @@ export function sampleAdaptively(
 
 const finiteOrNull = (v: number) => (Number.isFinite(v) ? v : null);
 
-function responseBands(request: AssessRequest, envelope: LoadEnvelope, tmd: VariantTmd): VariantResponseBand[] {
+function responseBands(request: AssessRequest, envelope: LoadEnvelope, tmd: VariantTmd, limit: ComfortLimit): VariantResponseBand[] {
   const structure = request.structure;
   const system = createModeTmdSystem(structure, [tmd]);
   const bare = createModeTmdSystem(structure, []);
@@ -574,6 +576,7 @@ function responseBands(request: AssessRequest, envelope: LoadEnvelope, tmd: Vari
       accelerationMPerS2: sampled.values[0],
       bareStructureAccelerationMPerS2: sampled.values[1].map(finiteOrNull),
       tmdStrokeM: sampled.values[2],
+      ...(limit.frequencyDependent ? { limitMPerS2: sampled.frequencyHz.map((f) => limit.limitMPerS2(f)) } : {}),
     };
   });
 }
@@ -679,7 +682,7 @@ export function computeVariantCurves(input: VariantComputeInput, loadCaseIndex: 
   const envelope = prepared.envelope as LoadEnvelope;
   return {
     ...common,
-    response: responseBands(request, envelope, tmd),
+    response: responseBands(request, envelope, tmd, prepared.limit),
     peak: { frequencyHz: answer.atFrequencyHz, accelerationMPerS2: answer.peakAccelerationMPerS2 },
     bareStructurePeak: { frequencyHz: answer.bareStructureAtFrequencyHz, accelerationMPerS2: answer.bareStructurePeakAccelerationMPerS2 },
     robustness: asVariantError(loadCaseIndex, () => robustnessMap(input, request, tmd, prepared.limit, answer.atFrequencyHz)),

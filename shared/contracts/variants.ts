@@ -283,6 +283,8 @@ export const variantResponseBandSchema = z.object({
   accelerationMPerS2: z.array(z.number()),
   bareStructureAccelerationMPerS2: z.array(z.number().nullable()),
   tmdStrokeM: z.array(z.number()),
+  /** The comfort limit at each frequency, for criteria whose limit depends on frequency (ISO 10137); absent otherwise. */
+  limitMPerS2: z.array(z.number()).optional(),
 });
 export type VariantResponseBand = z.infer<typeof variantResponseBandSchema>;
 
