@@ -1,7 +1,7 @@
 import { Scatter } from 'react-chartjs-2';
 import type { Plugin } from 'chart.js';
 import { formatTick } from './chart-theme';
-import { utilisationColour, utilisationScaleStops } from './utilisation-scale';
+import { utilisationColour } from './utilisation-scale';
 
 export interface HeatMapChartProps {
   /** Column positions (horizontal axis), ascending and evenly spaced. */
@@ -28,7 +28,7 @@ interface CellOptions {
   xs: ArrayLike<number>;
   ys: ArrayLike<number>;
   values: ArrayLike<number>;
-  limit: number;
+  colour: (value: number) => string;
   marker: { x: number; y: number } | null;
   region: { x0: number; x1: number; y0: number; y1: number } | null;
 }
@@ -37,7 +37,7 @@ interface CellOptions {
 const cells: Plugin<'scatter'> = {
   id: 'stillspanCells',
   beforeDatasetsDraw(chart, _args, options) {
-    const { xs, ys, values, limit, marker, region } = options as unknown as CellOptions;
+    const { xs, ys, values, colour, marker, region } = options as unknown as CellOptions;
     if (!xs || xs.length === 0 || ys.length === 0) return;
     const { ctx, chartArea, scales } = chart;
     const nx = xs.length;
@@ -59,7 +59,7 @@ const cells: Plugin<'scatter'> = {
         const [ya, yb] = half(ys, iy);
         const py0 = Math.floor(scales.y.getPixelForValue(yb));
         const py1 = Math.ceil(scales.y.getPixelForValue(ya));
-        ctx.fillStyle = utilisationColour(values[ix * ny + iy] / limit);
+        ctx.fillStyle = colour(values[ix * ny + iy]);
         ctx.fillRect(px0, py0, px1 - px0, py1 - py0);
       }
     }
@@ -99,8 +99,9 @@ const cells: Plugin<'scatter'> = {
 };
 
 /**
- * A map of values over two parameters, drawn as edge-to-edge cells in Stillspan's utilisation scale: deep tide well
- * inside the limit, the paper colour at the limit, ember beyond it. Hovering a cell reads its value.
+ * A map of values over two parameters, drawn as edge-to-edge cells in Stillspan's utilisation scale: tide inside the
+ * limit (deepest at the map's least value), the paper colour at the limit, ember beyond it. Hovering a cell reads its
+ * value.
  */
 export default function HeatMapChart({
   xs,
@@ -119,6 +120,7 @@ export default function HeatMapChart({
   const ny = ys.length;
   const points: { x: number; y: number; v: number }[] = [];
   for (let ix = 0; ix < nx; ix++) for (let iy = 0; iy < ny; iy++) points.push({ x: xs[ix], y: ys[iy], v: values[ix * ny + iy] });
+  const scale = cellScale(values, limit);
   const dx = nx > 1 ? (xs[1] - xs[0]) / 2 : 0.5;
   const dy = ny > 1 ? (ys[1] - ys[0]) / 2 : 0.5;
   return (
@@ -135,7 +137,7 @@ export default function HeatMapChart({
             animation: false,
             interaction: { mode: 'nearest', intersect: true },
             plugins: {
-              ...({ stillspanCells: { xs, ys, values, limit, marker, region } } as object),
+              ...({ stillspanCells: { xs, ys, values, colour: scale.colour, marker, region } } as object),
               legend: { display: false },
               tooltip: {
                 displayColors: false,
@@ -169,27 +171,64 @@ export default function HeatMapChart({
           }}
         />
       </div>
-      <UtilisationLegend />
+      <ScaleLegend scale={scale} unitLabel={valueLabel} />
       <figcaption className="text-caption text-ink-muted">{description}</figcaption>
     </figure>
   );
 }
 
-/** The scale's key: a bar from the deepest tide to the deepest ember, with utilisation marks. */
-function UtilisationLegend() {
-  const top = utilisationScaleStops[utilisationScaleStops.length - 1].utilisation;
-  const gradient = utilisationScaleStops.map((stop) => `${stop.colour} ${(stop.utilisation / top) * 100}%`).join(', ');
-  const marks = [0, 0.5, 1, 1.5, 2];
+interface CellScale {
+  lo: number;
+  /** Largest value at or below the limit (the end of the tide part). */
+  hiBelow: number;
+  top: number;
+  limit: number;
+  colour: (value: number) => string;
+}
+
+/**
+ * Colours of the cells: below the limit the tide part of the scale is spread over the map's own values (so a map far
+ * inside the limit still shows its shape), reaching the paper colour only at the limit itself; above the limit the
+ * ember part by utilisation.
+ */
+function cellScale(values: ArrayLike<number>, limit: number): CellScale {
+  let lo = Infinity;
+  let top = -Infinity;
+  for (let i = 0; i < values.length; i++) {
+    if (Number.isFinite(values[i])) {
+      lo = Math.min(lo, values[i]);
+      top = Math.max(top, values[i]);
+    }
+  }
+  if (!Number.isFinite(lo)) lo = top = 0;
+  const crosses = top > limit;
+  const hiBelow = crosses ? limit : top;
+  const span = hiBelow - lo;
+  const colour = (value: number) => {
+    if (value > limit) return utilisationColour(value / limit);
+    const t = span > 0 ? Math.min(Math.max((value - lo) / span, 0), 1) : 0;
+    return utilisationColour(crosses ? t : t * 0.85);
+  };
+  return { lo, hiBelow, top, limit, colour };
+}
+
+/** The scale's key: the tide part from the map's least value, the ember part above the limit when the map reaches it. */
+function ScaleLegend({ scale, unitLabel }: { scale: CellScale; unitLabel: string }) {
+  const tide = Array.from({ length: 9 }, (_, i) => scale.colour(scale.lo + ((scale.hiBelow - scale.lo) * i) / 8)).join(', ');
+  const crosses = scale.top > scale.limit;
+  const ember = crosses ? Array.from({ length: 9 }, (_, i) => scale.colour(scale.limit + ((scale.top - scale.limit) * i) / 8)).join(', ') : '';
   return (
-    <div className="flex flex-col gap-1" aria-hidden="true">
-      <div className="h-3 w-full max-w-md rounded-pill border border-paper-line" style={{ background: `linear-gradient(to right, ${gradient})` }} />
-      <div className="relative h-4 w-full max-w-md text-caption text-ink-muted">
-        {marks.map((mark) => (
-          <span key={mark} className="absolute -translate-x-1/2" style={{ left: `${(mark / top) * 100}%` }}>
-            {mark === 1 ? 'limit' : `${mark * 100} %`}
-          </span>
-        ))}
+    <div className="flex max-w-lg flex-col gap-1 text-caption text-ink-muted">
+      <div className="flex h-3 overflow-hidden rounded-pill border border-paper-line" aria-hidden="true">
+        <div className="flex-1" style={{ background: `linear-gradient(to right, ${tide})` }} />
+        {crosses ? <div className="flex-1" style={{ background: `linear-gradient(to right, ${ember})` }} /> : null}
       </div>
+      <div className="flex justify-between gap-2">
+        <span>{formatTick(scale.lo)}</span>
+        <span>{crosses ? `limit ${formatTick(scale.limit)}` : `${formatTick(scale.hiBelow)} (limit ${formatTick(scale.limit)})`}</span>
+        {crosses ? <span>{formatTick(scale.top)}</span> : null}
+      </div>
+      <span>{unitLabel}: tide below the comfort limit, ember above it</span>
     </div>
   );
 }

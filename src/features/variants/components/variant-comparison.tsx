@@ -43,7 +43,7 @@ export function VariantComparison({ projectId, variants, loadCases }: { projectI
         v.result ? `${formatNumber(v.result.tmd.frequencyHz, 4)} Hz, ζ ${formatPercent(v.result.tmd.dampingRatio, 3)} (${describeTuning(v.tuning)})` : describeTuning(v.tuning),
     },
     { label: 'Governing peak', value: (v) => v.result?.governing.peakAccelerationMPerS2 ?? null, show: (v) => units.format('acceleration', v.result?.governing.peakAccelerationMPerS2, 3) },
-    { label: 'Use of limit', value: (v) => v.result?.governing.utilisation ?? null, show: (v) => (v.result ? `${Math.round(v.result.governing.utilisation * 100)} %` : '—') },
+    { label: 'Use of limit', value: (v) => v.result?.governing.utilisation ?? null, show: (v) => (v.result ? `${formatNumber(v.result.governing.utilisation * 100, 3)} %` : '—') },
     {
       label: 'Worst detuned peak',
       value: (v) => v.result?.detuning.worstPeakAccelerationMPerS2 ?? null,

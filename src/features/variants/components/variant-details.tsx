@@ -70,6 +70,11 @@ export function VariantDetails({ projectId, variant, mode, criteria, canEdit, on
                 {formatNumber(result.tmd.frequencyHz, 4)} Hz, {describeTuning(variant.tuning)}
               </Fact>
               <Fact label="Damping ratio">{formatPercent(result.tmd.dampingRatio, 3)} of critical at {formatNumber(result.tmd.frequencyHz, 4)} Hz</Fact>
+              <Fact label="Governing peak">
+                <span className="font-semibold tabular-nums" data-testid="stored-governing-peak">
+                  {units.format('acceleration', result.governing.peakAccelerationMPerS2, 4)}
+                </span>
+              </Fact>
               <Fact label="Governing">
                 <span className="inline-flex items-center gap-2">
                   <VerdictTag verdict={result.governing.verdict} size="small" /> {Math.round(result.governing.utilisation * 100)} % of the limit

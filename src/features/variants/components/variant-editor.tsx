@@ -61,7 +61,7 @@ export function VariantEditor({ projectId, variant, modes, loadCases, comfortCri
       variant
         ? variantToForm(variant, units.system)
         : emptyVariantForm({
-            modeId: modes[0]?.mode.id,
+            modeId: (modes.find((choice) => choice.mode.direction === 'vertical') ?? modes[0])?.mode.id,
             loadCaseIds: loadCases.slice(0, 1).map((lc) => lc.id),
             criteriaId: comfortCriteria[0]?.id,
           }),
@@ -335,7 +335,7 @@ export function VariantEditor({ projectId, variant, modes, loadCases, comfortCri
           ) : null}
           {result ? (
             <>
-              <dl className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4" aria-label="Governing figures">
+              <dl className="grid gap-3 sm:grid-cols-2" aria-label="Governing figures">
                 <div className="flex flex-col gap-1 rounded-plate bg-paper px-3 py-2">
                   <dt className="text-caption font-semibold uppercase tracking-[0.06em] text-ink-muted">Governing peak</dt>
                   <dd className="text-title font-semibold tabular-nums text-ink" data-testid="live-governing-peak">

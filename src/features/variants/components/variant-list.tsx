@@ -52,7 +52,8 @@ export function VariantList({ projectId, variants, modes, selected, onToggle }: 
                   {variant.name}
                 </Link>
               </Td>
-              <Td className="text-ink-soft">{mode ? `${mode.mode.label} (${formatNumber(mode.mode.frequencyHz, 4)} Hz)` : '—'}</Td>
+              <Td className="text-ink-soft">{mode ? mode.mode.label : '—'}
+                {mode ? <div className="text-caption text-ink-muted">{formatNumber(mode.mode.frequencyHz, 4)} Hz</div> : null}</Td>
               <Td className="text-right tabular-nums">{formatPercent(variant.massRatio, 3)}</Td>
               <Td className="text-ink-soft">{describeTuning(variant.tuning)}</Td>
               <Td className="text-right tabular-nums">{units.format('acceleration', result?.governing.peakAccelerationMPerS2, 3)}</Td>

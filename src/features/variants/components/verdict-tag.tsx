@@ -1,3 +1,5 @@
+import { formatNumber } from '../../../lib/format';
+
 /**
  * A verdict in words and a shape, never by colour alone: a filled square for "meets", an open one with a slash for
  * "exceeds".
@@ -33,12 +35,12 @@ export function UtilisationBar({ utilisation }: { utilisation: number | null | u
   }
   const width = Math.min(utilisation / 1.5, 1) * 100;
   return (
-    <span className="inline-flex items-center gap-2">
-      <span className="relative h-2 w-20 overflow-hidden rounded-pill bg-paper-sunk" aria-hidden="true">
+    <span className="inline-flex items-center gap-2 whitespace-nowrap">
+      <span className="relative h-2 w-16 shrink-0 overflow-hidden rounded-pill bg-paper-sunk" aria-hidden="true">
         <span className={`absolute inset-y-0 left-0 ${utilisation <= 1 ? 'bg-tide-600' : 'bg-ember-500'}`} style={{ width: `${width}%` }} />
         <span className="absolute inset-y-0 w-px bg-ink" style={{ left: `${100 / 1.5}%` }} />
       </span>
-      <span className="tabular-nums">{Math.round(utilisation * 100)} %</span>
+      <span className="tabular-nums">{formatNumber(utilisation * 100, 3)} %</span>
     </span>
   );
 }
