@@ -75,7 +75,7 @@ describe('tuning variants', () => {
     await verdicts.waitFor();
     // The stored result agrees with what the live check showed (the same shared code on the server).
     await expect(page.getByTestId('stored-governing-peak').textContent()).resolves.toBe(after);
-    await page.getByRole('region', { name: 'Caution' }).first().waitFor();
+    await page.getByRole('complementary', { name: 'Caution' }).first().waitFor();
     await page.getByRole('region', { name: 'Robustness map' }).waitFor();
     await browser.shot('variants-02-variant-page');
   });
@@ -123,7 +123,13 @@ describe('tuning variants', () => {
     await expect(page.getByRole('link', { name: 'Edit variant' }).count()).resolves.toBe(0);
     await expect(page.getByRole('button', { name: 'Delete' }).count()).resolves.toBe(0);
     await expect(page.getByRole('button', { name: 'Find the smallest damper' }).count()).resolves.toBe(0);
+    // Display units are the reader's own: US customary shows accelerations in %g and strokes in inches.
+    await page.getByRole('radio', { name: /^US/ }).click();
+    await expect.poll(() => page.getByTestId('stored-governing-peak').textContent()).toMatch(/ %g$/);
+    await page.getByRole('region', { name: 'Hardware numbers' }).getByText(/lbf\/in/).first().waitFor();
     await browser.shot('variants-04-owner-reads');
+    await page.getByRole('radio', { name: /^SI/ }).click();
+    await expect.poll(() => page.getByTestId('stored-governing-peak').textContent()).toMatch(/ m\/s²$/);
     await signOut(page);
   });
 
