@@ -78,6 +78,16 @@ describe('tuning variants', () => {
     await page.getByRole('complementary', { name: 'Caution' }).first().waitFor();
     await page.getByRole('region', { name: 'Robustness map' }).waitFor();
     await browser.shot('variants-02-variant-page');
+
+    // The smallest damper meeting the criteria over the detuning band: found, shown, applied.
+    await page.getByRole('button', { name: 'Find the smallest damper' }).click();
+    const smallest = page.getByTestId('smallest-mass-ratio');
+    await smallest.waitFor({ timeout: 60_000 });
+    const found = parseFloat((await smallest.textContent()) ?? '');
+    expect(found).toBeGreaterThan(0);
+    expect(found).toBeLessThan(parseFloat(await page.getByRole('region', { name: 'Damper' }).getByText(/^\d[\d.]* %$/).first().textContent() ?? '100'));
+    await page.getByRole('button', { name: /^Apply / }).click();
+    await page.getByText('The variant now has this mass ratio; its result was computed again.').waitFor({ timeout: 60_000 });
   });
 
   it('creates a second variant tuned by H∞', async () => {

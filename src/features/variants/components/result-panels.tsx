@@ -47,23 +47,25 @@ export function LoadCaseVerdicts({ result }: { result: VariantComputation }) {
                   {governing && result.loadCases.length > 1 ? (
                     <span className="ml-2 rounded-pill bg-ink px-2 py-0.5 text-[0.7rem] font-semibold uppercase tracking-[0.06em] text-paper-raised">governs</span>
                   ) : null}
-                  <div className="text-caption text-ink-muted">{loadCase.loadModel.source}</div>
+                  <div className="line-clamp-2 max-w-[18rem] text-caption text-ink-muted" title={loadCase.loadModel.source}>
+                    {loadCase.loadModel.source}
+                  </div>
                 </Td>
                 <Td>
                   {loadCase.criterion ? (
                     <>
-                      <div className="tabular-nums">{units.format('acceleration', loadCase.criterion.limitMPerS2, 3)}</div>
-                      <div className="text-caption text-ink-muted">{loadCase.criterion.label}</div>
+                      <div className="whitespace-nowrap tabular-nums">{units.format('acceleration', loadCase.criterion.limitMPerS2, 3)}</div>
+                      <div className="text-caption text-ink-muted">{loadCase.criterion.set === 'custom' ? 'custom' : `${loadCase.criterion.set} ${loadCase.criterion.class}`}</div>
                     </>
                   ) : (
                     '—'
                   )}
                 </Td>
-                <Td className="text-right tabular-nums">
+                <Td className="whitespace-nowrap text-right tabular-nums">
                   {units.format('acceleration', loadCase.bareStructurePeakAccelerationMPerS2, 3)}
                   <div className="text-caption text-ink-muted">at {formatNumber(loadCase.bareStructureAtFrequencyHz, 4)} Hz</div>
                 </Td>
-                <Td className="text-right font-semibold tabular-nums">
+                <Td className="whitespace-nowrap text-right font-semibold tabular-nums">
                   {units.format('acceleration', loadCase.peakAccelerationMPerS2, 3)}
                   <div className="text-caption font-normal text-ink-muted">at {formatNumber(loadCase.atFrequencyHz, 4)} Hz</div>
                 </Td>
