@@ -1,6 +1,6 @@
 import { useEffect, useRef, useState } from 'react';
 import type { VariantComputeInput } from '../../../../shared/compute/variant';
-import type { LiveAnswer, LiveRequest } from '../workers/live-protocol';
+import type { BenchmarkAnswer, LiveAnswer, LiveRequest } from '../workers/live-protocol';
 
 /** Quiet time after the last change before a computation starts (a drag sends many changes). */
 const SETTLE_MS = 24;
@@ -19,14 +19,29 @@ export interface LiveState {
  */
 export function useLiveVariant(input: VariantComputeInput | null, loadCaseIndex: number): LiveState {
   const workerRef = useRef<Worker | null>(null);
-  const state = useRef({ nextId: 1, latestId: 0, inFlight: false, pending: null as LiveRequest | null });
+  const state = useRef({ nextId: 1, latestId: 0, inFlight: false, pending: null as LiveRequest | null, input: null as VariantComputeInput | null, loadCaseIndex: 0 });
   const [live, setLive] = useState<LiveState>({ answer: null, error: null, busy: false });
 
   useEffect(() => {
     const worker = new Worker(new URL('../workers/variant-live.worker.ts', import.meta.url), { type: 'module' });
     workerRef.current = worker;
     const s = state.current;
-    worker.onmessage = (event: MessageEvent<LiveAnswer>) => {
+    // The reference workload (a 400-point curve and a 51 × 51 map) on the current inputs, for the benchmark figure:
+    // `await window.stillspanBenchmark()` in the browser's console, or from the end-to-end suite.
+    const benchmarks = new Map<number, (answer: BenchmarkAnswer) => void>();
+    (globalThis as { stillspanBenchmark?: () => Promise<BenchmarkAnswer> }).stillspanBenchmark = () =>
+      new Promise((resolve) => {
+        if (!s.input) return resolve({ id: 0, benchmark: true, error: 'no inputs yet' });
+        const id = s.nextId++;
+        benchmarks.set(id, resolve);
+        worker.postMessage({ id, input: s.input, loadCaseIndex: s.loadCaseIndex, benchmark: true } satisfies LiveRequest);
+      });
+    worker.onmessage = (event: MessageEvent<LiveAnswer | BenchmarkAnswer>) => {
+      if ('benchmark' in event.data) {
+        benchmarks.get(event.data.id)?.(event.data);
+        benchmarks.delete(event.data.id);
+        return;
+      }
       s.inFlight = false;
       const answer = event.data;
       if (s.pending) {
@@ -46,6 +61,7 @@ export function useLiveVariant(input: VariantComputeInput | null, loadCaseIndex:
     return () => {
       worker.terminate();
       workerRef.current = null;
+      delete (globalThis as { stillspanBenchmark?: unknown }).stillspanBenchmark;
       s.inFlight = false;
       s.pending = null;
     };
@@ -59,6 +75,8 @@ export function useLiveVariant(input: VariantComputeInput | null, loadCaseIndex:
       const worker = workerRef.current;
       if (!worker) return;
       const request: LiveRequest = { id: s.nextId++, input, loadCaseIndex };
+      s.input = input;
+      s.loadCaseIndex = loadCaseIndex;
       s.latestId = request.id;
       setLive((previous) => (previous.busy ? previous : { ...previous, busy: true }));
       if (s.inFlight) {

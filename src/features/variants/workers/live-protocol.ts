@@ -6,6 +6,15 @@ export interface LiveRequest {
   id: number;
   input: VariantComputeInput;
   loadCaseIndex: number;
+  /** Run the reference workload (benchmark.ts) instead of the live check. */
+  benchmark?: boolean;
+}
+
+export interface BenchmarkAnswer {
+  id: number;
+  benchmark: true;
+  figures?: import('./benchmark').BenchmarkFigures;
+  error?: string;
 }
 
 export type LiveAnswer =

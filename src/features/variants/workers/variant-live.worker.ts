@@ -6,12 +6,23 @@
  */
 import { computeVariantCurves, computeVariantResult, type VariantComputeInput } from '../../../../shared/compute/variant';
 import { ComputeInputError } from '../../../../shared/compute/types';
-import type { LiveRequest, LiveAnswer } from './live-protocol';
+import type { BenchmarkAnswer, LiveRequest, LiveAnswer } from './live-protocol';
+import { runLiveBenchmark } from './benchmark';
 
 declare const self: DedicatedWorkerGlobalScope;
 
 self.onmessage = (event: MessageEvent<LiveRequest>) => {
-  const { id, input, loadCaseIndex } = event.data;
+  const { id, input, loadCaseIndex, benchmark } = event.data;
+  if (benchmark) {
+    let answer: BenchmarkAnswer;
+    try {
+      answer = { id, benchmark: true, figures: runLiveBenchmark(input as VariantComputeInput, loadCaseIndex) };
+    } catch (error) {
+      answer = { id, benchmark: true, error: error instanceof Error ? error.message : String(error) };
+    }
+    self.postMessage(answer);
+    return;
+  }
   const started = performance.now();
   try {
     const result = computeVariantResult(input as VariantComputeInput);
