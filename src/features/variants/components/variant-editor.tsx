@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import {
   createVariantSchema,
@@ -16,6 +16,8 @@ import { Panel } from '../../../components/ui/panel';
 import { isApiError } from '../../../lib/api-client';
 import { useDisplayUnits } from '../../../lib/display-units';
 import { formatNumber, formatPercent } from '../../../lib/format';
+import { numberOrUndefined } from '../../../lib/form-values';
+import { fromDisplay, toDisplay } from '../../../lib/units';
 import { useCreateVariant, useUpdateVariant, type ModeChoice } from '../api/variants';
 import { useLiveVariant } from '../hooks/use-live-variant';
 import { CurvesPanels } from './curves-panels';
@@ -74,10 +76,24 @@ export function VariantEditor({ projectId, variant, modes, loadCases, comfortCri
     handleSubmit,
     setError,
     setValue,
+    getValues,
     control,
     formState: { errors },
   } = useForm<VariantFormValues>({ resolver: variantResolver(units.system), defaultValues: defaults, mode: 'onChange' });
   const values = useWatch({ control }) as VariantFormValues;
+
+  // A change of display units while the form is open converts the one field typed in a unit (the hardware travel).
+  const shownSystem = useRef(units.system);
+  useEffect(() => {
+    const previous = shownSystem.current;
+    if (previous === units.system) return;
+    shownSystem.current = units.system;
+    const typed = numberOrUndefined(getValues('strokeLimit'));
+    if (typed !== undefined && Number.isFinite(typed)) {
+      const metres = fromDisplay('displacement', typed, previous);
+      setValue('strokeLimit', Number(toDisplay('displacement', metres, units.system).toPrecision(6)), { shouldValidate: true });
+    }
+  }, [units.system, getValues, setValue]);
 
   const selectedMode = modes.find((choice) => choice.mode.id === values.modeId);
   const selectedLoadCases = (values.loadCaseIds ?? []).map((id) => loadCases.find((lc) => lc.id === id)).filter((lc): lc is SavedLoadCase => Boolean(lc));
