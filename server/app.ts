@@ -21,6 +21,7 @@ import { loadCasesRouter } from './modules/load-cases/load-cases.router';
 import { lumpedModelsRouter } from './modules/lumped-models/lumped-models.router';
 import { modesRouter } from './modules/modes/modes.router';
 import { structuresRouter } from './modules/structures/structures.router';
+import { variantsRouter } from './modules/variants/variants.router';
 
 /**
  * Headers for every answer: no MIME sniffing, no framing by other sites, no referrer outside the site (invitation
@@ -82,6 +83,7 @@ export function createApp(ctx: AppContext, options: { clientDir?: string | null;
   app.use('/api/projects/:projectId/structures', structuresRouter(ctx));
   app.use('/api/projects/:projectId/load-cases', loadCasesRouter(ctx));
   app.use('/api/projects/:projectId/comfort-criteria', comfortCriteriaRouter(ctx));
+  app.use('/api/projects/:projectId/variants', variantsRouter(ctx));
   app.use('/api/projects', projectsRouter(ctx));
   app.use('/api/organisation', organisationRouter(ctx));
   app.use('/api/compute', computeRouter(ctx.enginePool));

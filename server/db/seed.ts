@@ -1,8 +1,9 @@
 /**
- * The demo: an invented organisation, its people and two invented projects, so that a fresh install can be tried
- * at once. Every name and place here is made up. Seeded only into an empty database and never in production.
+ * The demo: an invented organisation, its people and two invented projects with their structural model and tuning
+ * variants, so that a fresh install can be tried at once. Every name and place here is made up. Seeded only into an
+ * empty database and never in production.
  */
-import { count } from 'drizzle-orm';
+import { count, eq } from 'drizzle-orm';
 import { hashPassword } from '../auth/password';
 import {
   createComfortCriteriaSchema,
@@ -17,10 +18,24 @@ import {
   type CreateStructureInput,
 } from '../../shared/contracts/model';
 import type { Role } from '../../shared/contracts/roles';
+import { createVariantSchema, type VariantTuning } from '../../shared/contracts/variants';
 import { deriveModeValues } from '../modules/modes/modes.service';
 import type { Database } from './client';
 import type { Executor } from './executor';
-import { comfortCriteria, loadCases, lumpedModels, memberships, organisations, projectMembers, projects, structureModes, structures, users } from './schema';
+import {
+  comfortCriteria,
+  loadCases,
+  lumpedModels,
+  memberships,
+  organisations,
+  projectMembers,
+  projects,
+  structureModes,
+  structures,
+  tuningVariantLoadCases,
+  tuningVariants,
+  users,
+} from './schema';
 
 export const demoPassword = 'stillspan-demo';
 
@@ -66,7 +81,22 @@ interface DemoModel {
   modes: (Omit<CreateModeInput, 'source'> & { source?: CreateModeInput['source'] | { kind: 'lumped-model'; model: number; modeNumber: number; dofIndex: number } })[];
   loadCases: CreateLoadCaseInput[];
   comfortCriteria: CreateComfortCriteriaInput[];
+  /** Tuning variants naming their mode by label, load cases and criteria by name. */
+  variants: DemoVariant[];
 }
+
+interface DemoVariant {
+  name: string;
+  mode: string;
+  loadCases: string[];
+  criteria: string;
+  massRatio: number;
+  tuning: VariantTuning;
+  unitCount: number;
+  notes: string;
+}
+
+const demoVariantNote = 'Invented demo variant: a starting point for the study, not a design; its result is computed when it is first read.';
 
 // Invented footbridge girder: 46 m simply supported, EI 1.18e10 N m², 1800 kg/m (about 1.9 Hz, modal mass about 41 t).
 const footbridgeBeam = { lengthM: 46, bendingStiffnessNM2: 1.18e10, massPerLengthKgPerM: 1800 };
@@ -135,6 +165,28 @@ export const demoStructuralModels: Record<(typeof demoProjects)[number]['kind'],
       { name: 'Lateral crowd, HiVoSS TC3', spec: { kind: 'lateral', guide: 'hivoss', trafficClass: 'TC3', deckAreaM2: footbridgeDeckAreaM2 } },
     ],
     comfortCriteria: [{ name: 'Sétra mean comfort', spec: { set: 'setra', class: 'mean' } }],
+    variants: [
+      {
+        name: 'Den Hartog 2 % (invented demo variant)',
+        mode: 'First vertical (FE model, invented)',
+        loadCases: ['Crowd, Sétra class II', 'Single walker'],
+        criteria: 'Sétra mean comfort',
+        massRatio: 0.02,
+        tuning: { method: 'den-hartog' },
+        unitCount: 2,
+        notes: demoVariantNote,
+      },
+      {
+        name: 'H∞ 3 % (invented demo variant)',
+        mode: 'First vertical (FE model, invented)',
+        loadCases: ['Crowd, Sétra class II', 'Single walker'],
+        criteria: 'Sétra mean comfort',
+        massRatio: 0.03,
+        tuning: { method: 'hinf' },
+        unitCount: 2,
+        notes: demoVariantNote,
+      },
+    ],
   },
   floor: {
     structure: {
@@ -163,6 +215,28 @@ export const demoStructuralModels: Record<(typeof demoProjects)[number]['kind'],
     ],
     loadCases: [{ name: 'Floor walking (DG11)', spec: { kind: 'floor-walking' } }],
     comfortCriteria: [{ name: 'DG11 office', spec: { set: 'dg11', class: 'office' } }],
+    variants: [
+      {
+        name: 'Den Hartog 2 % (invented demo variant)',
+        mode: 'First vertical (FE model, invented)',
+        loadCases: ['Floor walking (DG11)'],
+        criteria: 'DG11 office',
+        massRatio: 0.02,
+        tuning: { method: 'den-hartog' },
+        unitCount: 4,
+        notes: demoVariantNote,
+      },
+      {
+        name: 'H∞ 3 % (invented demo variant)',
+        mode: 'First vertical (FE model, invented)',
+        loadCases: ['Floor walking (DG11)'],
+        criteria: 'DG11 office',
+        massRatio: 0.03,
+        tuning: { method: 'hinf' },
+        unitCount: 4,
+        notes: demoVariantNote,
+      },
+    ],
   },
 };
 
@@ -205,11 +279,38 @@ async function seedStructuralModel(tx: Executor, organisationId: string, project
       lumpedModelId: derived?.lumpedModelId ?? null,
     });
   }
-  for (const loadCase of demo.loadCases) {
-    await tx.insert(loadCases).values({ ...createLoadCaseSchema.parse(loadCase), projectId, createdBy });
+  const modeIds = new Map<string, string>();
+  for (const row of await tx.select({ id: structureModes.id, label: structureModes.label }).from(structureModes).where(eq(structureModes.structureId, structure.id))) {
+    modeIds.set(row.label, row.id);
   }
+  const loadCaseIds = new Map<string, string>();
+  for (const loadCase of demo.loadCases) {
+    const [row] = await tx.insert(loadCases).values({ ...createLoadCaseSchema.parse(loadCase), projectId, createdBy }).returning({ id: loadCases.id });
+    loadCaseIds.set(loadCase.name, row.id);
+  }
+  const criteriaIds = new Map<string, string>();
   for (const criteria of demo.comfortCriteria) {
-    await tx.insert(comfortCriteria).values({ ...createComfortCriteriaSchema.parse(criteria), projectId, createdBy });
+    const [row] = await tx.insert(comfortCriteria).values({ ...createComfortCriteriaSchema.parse(criteria), projectId, createdBy }).returning({ id: comfortCriteria.id });
+    criteriaIds.set(criteria.name, row.id);
+  }
+  // Tuning variants: stored without a result, which the first read computes (docs/decisions/0011-tuning-variants.md).
+  for (const variant of demo.variants) {
+    const input = createVariantSchema.parse({
+      name: variant.name,
+      modeId: modeIds.get(variant.mode),
+      loadCaseIds: variant.loadCases.map((name) => loadCaseIds.get(name)),
+      criteriaId: criteriaIds.get(variant.criteria),
+      massRatio: variant.massRatio,
+      tuning: variant.tuning,
+      unitCount: variant.unitCount,
+      notes: variant.notes,
+    });
+    const { loadCaseIds: ids, ...values } = input;
+    const [row] = await tx
+      .insert(tuningVariants)
+      .values({ ...values, tmdDampingToleranceRatio: values.tmdDampingToleranceRatio ?? null, notes: values.notes ?? null, projectId, createdBy })
+      .returning({ id: tuningVariants.id });
+    await tx.insert(tuningVariantLoadCases).values(ids.map((loadCaseId, position) => ({ variantId: row.id, position, loadCaseId })));
   }
 }
 

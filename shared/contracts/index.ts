@@ -7,3 +7,5 @@ export * from './members';
 export * from './app-config';
 export * from './model';
 export * from './paging';
+export * from './variants';
+export * from './preferences';

@@ -29,6 +29,12 @@ const projectComfortCriteria = () =>
     Component: module.ProjectComfortCriteriaRoute,
     loader: module.projectComfortCriteriaLoader,
   }));
+const tuningVariants = () =>
+  import('./routes/tuning-variants').then((module) => ({ Component: module.TuningVariantsRoute, loader: module.tuningVariantsLoader }));
+const tuningVariant = () =>
+  import('./routes/tuning-variant').then((module) => ({ Component: module.TuningVariantRoute, loader: module.tuningVariantLoader }));
+const tuningVariantEdit = () =>
+  import('./routes/tuning-variant').then((module) => ({ Component: module.TuningVariantEditRoute, loader: module.tuningVariantLoader }));
 const projectSection = (slug: string) => () =>
   import('./routes/project-section').then((module) => ({ Component: module.projectSectionRoute(slug) }));
 
@@ -68,6 +74,10 @@ export const router = createBrowserRouter([
                       { path: 'structures/:structureId', lazy: projectStructure },
                       { path: 'load-cases', lazy: projectLoadCases },
                       { path: 'comfort-criteria', lazy: projectComfortCriteria },
+                      { path: 'tuning-variants', lazy: tuningVariants },
+                      { path: 'tuning-variants/new', lazy: tuningVariantEdit },
+                      { path: 'tuning-variants/:variantId', lazy: tuningVariant },
+                      { path: 'tuning-variants/:variantId/edit', lazy: tuningVariantEdit },
                       ...projectSections
                         .filter((entry) => !entry.available)
                         .map((entry) => ({ path: entry.slug, lazy: projectSection(entry.slug) })),

@@ -3,3 +3,4 @@ export * from './organisations';
 export * from './projects';
 export * from './structural-model';
 export * from './sign-in-attempts';
+export * from './variants';

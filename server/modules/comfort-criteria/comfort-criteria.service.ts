@@ -6,6 +6,7 @@ import type { CurrentUser } from '../../middleware/auth';
 import { createComfortCriteriaSchema, updateComfortCriteriaSchema, type ComfortCriteria } from '../../../shared/contracts/model';
 import { requireProjectScope } from '../structures/structures.service';
 import * as repository from './comfort-criteria.repository';
+import { deleteUnlessUsedByVariants } from '../variants/variant-usage';
 
 type CreateComfortCriteriaParsed = z.output<typeof createComfortCriteriaSchema>;
 type UpdateComfortCriteriaParsed = z.output<typeof updateComfortCriteriaSchema>;
@@ -64,5 +65,6 @@ export async function updateComfortCriteria(
 
 export async function deleteComfortCriteria(db: Database, user: CurrentUser, projectId: string, id: string): Promise<void> {
   const scope = await requireProjectScope(db, user, projectId);
-  if (!(await repository.deleteComfortCriteria(db, scope, id))) throw criteriaNotFound();
+  const deleted = await deleteUnlessUsedByVariants(db, 'The comfort criteria', { criteriaId: id }, () => repository.deleteComfortCriteria(db, scope, id));
+  if (!deleted) throw criteriaNotFound();
 }

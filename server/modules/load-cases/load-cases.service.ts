@@ -6,6 +6,7 @@ import { createLoadCaseSchema, updateLoadCaseSchema, type SavedLoadCase } from '
 import type { z } from 'zod';
 import { requireProjectScope } from '../structures/structures.service';
 import * as repository from './load-cases.repository';
+import { deleteUnlessUsedByVariants } from '../variants/variant-usage';
 
 type CreateLoadCaseParsed = z.output<typeof createLoadCaseSchema>;
 type UpdateLoadCaseParsed = z.output<typeof updateLoadCaseSchema>;
@@ -57,5 +58,6 @@ export async function updateLoadCase(db: Database, user: CurrentUser, projectId:
 
 export async function deleteLoadCase(db: Database, user: CurrentUser, projectId: string, id: string): Promise<void> {
   const scope = await requireProjectScope(db, user, projectId);
-  if (!(await repository.deleteLoadCase(db, scope, id))) throw loadCaseNotFound();
+  const deleted = await deleteUnlessUsedByVariants(db, 'The load case', { loadCaseId: id }, () => repository.deleteLoadCase(db, scope, id));
+  if (!deleted) throw loadCaseNotFound();
 }

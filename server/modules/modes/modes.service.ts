@@ -11,6 +11,7 @@ import { deriveFromLumpedModel, derivedNumbersProblem } from '../lumped-models/l
 import { findLumpedModel, type StructureScope } from '../lumped-models/lumped-models.repository';
 import { requireStructure } from '../structures/structures.service';
 import * as repository from './modes.repository';
+import { deleteUnlessUsedByVariants } from '../variants/variant-usage';
 
 export function toSavedMode(row: repository.ModeRow, projectId: string): SavedMode {
   return {
@@ -157,5 +158,6 @@ export async function updateMode(
 
 export async function deleteMode(db: Database, user: CurrentUser, projectId: string, structureId: string, id: string): Promise<void> {
   const scope = await structureScope(db, user, projectId, structureId);
-  if (!(await repository.deleteMode(db, scope, id))) throw modeNotFound();
+  const deleted = await deleteUnlessUsedByVariants(db, 'The mode', { modeId: id }, () => repository.deleteMode(db, scope, id));
+  if (!deleted) throw modeNotFound();
 }

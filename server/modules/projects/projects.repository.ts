@@ -1,6 +1,6 @@
 import { and, desc, eq, sql } from 'drizzle-orm';
 import type { Database } from '../../db/client';
-import { projectMembers, projects } from '../../db/schema';
+import { projectMembers, projects, tuningVariants } from '../../db/schema';
 
 export type ProjectRow = typeof projects.$inferSelect;
 type ProjectChanges = Partial<Pick<ProjectRow, 'name' | 'kind' | 'location' | 'description'>>;
@@ -71,10 +71,21 @@ export async function updateProjectAtVersion(
   return row;
 }
 
+/**
+ * Deletes the project and everything in it. Its tuning variants go first, in the same transaction: they hold
+ * no-action keys on the project's modes, load cases and criteria, which the cascade from the project would
+ * otherwise check before it reached the variants.
+ */
 export async function deleteProject(db: Database, organisationId: string, id: string): Promise<boolean> {
-  const rows = await db
-    .delete(projects)
-    .where(and(eq(projects.id, id), eq(projects.organisationId, organisationId)))
-    .returning({ id: projects.id });
-  return rows.length > 0;
+  return db.transaction(async (tx) => {
+    const [project] = await tx
+      .select({ id: projects.id })
+      .from(projects)
+      .where(and(eq(projects.id, id), eq(projects.organisationId, organisationId)))
+      .for('update');
+    if (!project) return false;
+    await tx.delete(tuningVariants).where(eq(tuningVariants.projectId, id));
+    const rows = await tx.delete(projects).where(eq(projects.id, id)).returning({ id: projects.id });
+    return rows.length > 0;
+  });
 }

@@ -5,6 +5,7 @@ import type { CreateStructureInput, Structure, UpdateStructureInput } from '../.
 import type { Database } from '../../db/client';
 import { requireProject } from '../projects/projects.service';
 import * as repository from './structures.repository';
+import { deleteUnlessUsedByVariants } from '../variants/variant-usage';
 
 export function toStructure(row: repository.StructureRow): Structure {
   return {
@@ -76,5 +77,7 @@ export async function updateStructure(db: Database, user: CurrentUser, projectId
 
 export async function deleteStructure(db: Database, user: CurrentUser, projectId: string, id: string): Promise<void> {
   const scope = await requireProjectScope(db, user, projectId);
-  if (!(await repository.deleteStructure(db, scope, id))) throw structureNotFound();
+  // Deleting a structure deletes its modes: refused while a tuning variant uses one of them.
+  const deleted = await deleteUnlessUsedByVariants(db, 'A mode of the structure', { structureId: id }, () => repository.deleteStructure(db, scope, id));
+  if (!deleted) throw structureNotFound();
 }

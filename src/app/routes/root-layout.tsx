@@ -7,6 +7,8 @@ import { Badge } from '../../components/ui/badge';
 import { Button, buttonClass } from '../../components/ui/button';
 import { Loading } from '../../components/ui/loading';
 import { appConfigQueryOptions, meQueryOptions, useSignOut } from '../../features/auth/api/session';
+import { UnitSystemSwitch, useUnitSystemPreference } from '../../features/preferences/components/unit-system-switch';
+import { UnitSystemProvider } from '../../lib/display-units';
 import { formatRole } from '../../lib/format';
 
 /** The frame of every page: header with the navigation that fits the signed-in role, the page, the footer. */
@@ -17,6 +19,7 @@ export function RootLayoutRoute() {
   const navigate = useNavigate();
   const location = useLocation();
   const navigation = useNavigation();
+  const unitSystem = useUnitSystemPreference(Boolean(me));
 
   const nav: NavItem[] = [];
   if (me) {
@@ -38,6 +41,7 @@ export function RootLayoutRoute() {
           {me.organisation.name}
         </span>
       </div>
+      <UnitSystemSwitch />
       <Button
         tone="secondary"
         busy={signOut.isPending}
@@ -60,7 +64,9 @@ export function RootLayoutRoute() {
         </div>
       ) : null}
       {signOut.isError ? <p role="alert" className="mb-4 text-small text-signal-error">Sign-out failed. Try again.</p> : null}
-      <Outlet />
+      <UnitSystemProvider value={unitSystem}>
+        <Outlet />
+      </UnitSystemProvider>
     </AppShell>
   );
 }

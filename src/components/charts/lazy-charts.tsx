@@ -7,6 +7,8 @@ import { Loading } from '../ui/loading';
 
 const ModeShapeChartLazy = lazy(() => import('./mode-shape-chart'));
 const TimeHistoryChartLazy = lazy(() => import('./time-history-chart'));
+const FrequencyResponseChartLazy = lazy(() => import('./frequency-response-chart'));
+const HeatMapChartLazy = lazy(() => import('./heat-map-chart'));
 
 export function ModeShapeChart(props: ComponentProps<typeof ModeShapeChartLazy>) {
   return (
@@ -20,6 +22,22 @@ export function TimeHistoryChart(props: ComponentProps<typeof TimeHistoryChartLa
   return (
     <Suspense fallback={<Loading label="Loading the plot…" />}>
       <TimeHistoryChartLazy {...props} />
+    </Suspense>
+  );
+}
+
+export function FrequencyResponseChart(props: ComponentProps<typeof FrequencyResponseChartLazy>) {
+  return (
+    <Suspense fallback={<Loading label="Loading the plot…" />}>
+      <FrequencyResponseChartLazy {...props} />
+    </Suspense>
+  );
+}
+
+export function HeatMapChart(props: ComponentProps<typeof HeatMapChartLazy>) {
+  return (
+    <Suspense fallback={<Loading label="Loading the map…" />}>
+      <HeatMapChartLazy {...props} />
     </Suspense>
   );
 }

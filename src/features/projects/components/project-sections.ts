@@ -32,7 +32,7 @@ export const projectSections: ProjectSection[] = [
   {
     slug: 'tuning-variants',
     label: 'Tuning variants',
-    available: false,
+    available: true,
     purpose:
       'Mass ratio, tuning method and number of units; response with and without the damper over the pacing band, stroke and detuning robustness, compared side by side.',
   },
