@@ -9,7 +9,7 @@ import { availableParallelism } from 'node:os';
 import { MessageChannel } from 'node:worker_threads';
 import { Piscina } from 'piscina';
 import { HttpError } from '../lib/http-error';
-import type { EngineTask, EngineTaskResult } from './engine-task';
+import type { EngineJob, EngineTask, EngineTaskResult } from './engine-task';
 
 export interface EnginePoolOptions {
   /** Worker threads; default: the number of cores. */
@@ -36,6 +36,11 @@ export interface EnginePool {
   runCommand(command: string, request: unknown): Promise<string>;
   /** The same, with the answer parsed. */
   runCommandValue<T = unknown>(command: string, request: unknown): Promise<T>;
+  /**
+   * Runs engine work of the server's own modules (a tuning variant's result, size or curves) with the same time
+   * limit and answer bound; the engine's refusal of the input is HttpError 400 invalid_request with its issues.
+   */
+  runJob<T = unknown>(job: EngineJob): Promise<T>;
   readonly threads: number;
   close(): Promise<void>;
 }
@@ -57,9 +62,9 @@ export function createEnginePool(options: EnginePoolOptions): EnginePool {
     process.stderr.write(`[engine] worker error: ${error instanceof Error ? error.message : String(error)}\n`);
   });
 
-  async function runCommand(command: string, request: unknown): Promise<string> {
+  async function runTask(fields: Pick<EngineTask, 'command' | 'request' | 'job'>): Promise<string> {
     const { port1, port2 } = new MessageChannel();
-    const task: EngineTask = { command, request, maxAnswerBytes: options.maxAnswerBytes, startedPort: port2 };
+    const task: EngineTask = { ...fields, maxAnswerBytes: options.maxAnswerBytes, startedPort: port2 };
     const controller = new AbortController();
     let outcome = 'running' as 'running' | 'timeout' | 'queue';
     let runTimer: NodeJS.Timeout | undefined;
@@ -103,9 +108,14 @@ export function createEnginePool(options: EnginePoolOptions): EnginePool {
     return result.json;
   }
 
+  const runCommand = (command: string, request: unknown) => runTask({ command, request });
+
   return {
     threads,
     runCommand,
+    async runJob<T>(job: EngineJob) {
+      return JSON.parse(await runTask({ command: job.kind, request: null, job })) as T;
+    },
     async runCommandValue<T>(command: string, request: unknown) {
       return JSON.parse(await runCommand(command, request)) as T;
     },

@@ -7,9 +7,30 @@ import type { MessagePort } from 'node:worker_threads';
 import { getComputeCommand } from '../../shared/compute/commands';
 import { ComputeInputError, errorCodes } from '../../shared/compute/types';
 import { toApiIssues, type ApiIssue } from '../../shared/contracts/errors';
+import { computeVariantCurves, computeVariantResult, computeVariantSize, type VariantComputeInput } from '../../shared/compute/variant';
+
+/** Engine work of the server's own modules (not a compute command of the API): a tuning variant's computations. */
+export type EngineJob =
+  | { kind: 'variant-result'; input: VariantComputeInput }
+  | { kind: 'variant-size'; input: VariantComputeInput }
+  | { kind: 'variant-curves'; input: VariantComputeInput; loadCaseIndex: number };
+
+function runJob(job: EngineJob): unknown {
+  switch (job.kind) {
+    case 'variant-result':
+      return computeVariantResult(job.input);
+    case 'variant-size':
+      return computeVariantSize(job.input);
+    case 'variant-curves':
+      return computeVariantCurves(job.input, job.loadCaseIndex);
+  }
+}
 
 export interface EngineTask {
+  /** A compute command of the API (validated by its own schema here) … */
   command: string;
+  /** … or, instead, a job of the server's own modules, whose input the module built and checked. */
+  job?: EngineJob;
   request: unknown;
   /** Largest answer (bytes of UTF-8 JSON) the caller accepts. */
   maxAnswerBytes: number;
@@ -25,7 +46,37 @@ function formatBytes(bytes: number): string {
   return bytes >= 1e6 ? `${(bytes / 1e6).toFixed(1)} MB` : `${Math.ceil(bytes / 1e3)} kB`;
 }
 
+function serialise(answer: unknown, maxAnswerBytes: number): EngineTaskResult {
+  const json = JSON.stringify(answer);
+  const bytes = Buffer.byteLength(json, 'utf8');
+  if (bytes > maxAnswerBytes) {
+    return {
+      ok: false,
+      status: 422,
+      code: 'answer_too_large',
+      message: `The answer would be ${formatBytes(bytes)}, more than the ${formatBytes(maxAnswerBytes)} allowed: ask for fewer points or factors`,
+      issues: [],
+    };
+  }
+  return { ok: true, json };
+}
+
+function refusal(error: unknown): EngineTaskResult {
+  // The engine's input checks throw ComputeInputError; anything else is a fault (500).
+  if (error instanceof ComputeInputError) return { ok: false, status: 400, code: errorCodes.invalidRequest, message: error.message, issues: error.issues };
+  throw error;
+}
+
 export function runEngineTask(task: EngineTask): EngineTaskResult {
+  if (task.job) {
+    let answer: unknown;
+    try {
+      answer = runJob(task.job);
+    } catch (error) {
+      return refusal(error);
+    }
+    return serialise(answer, task.maxAnswerBytes);
+  }
   const command = getComputeCommand(task.command);
   if (!command) {
     return { ok: false, status: 404, code: errorCodes.unknownCommand, message: `There is no compute command "${task.command}"; GET /api/compute lists them`, issues: [] };
@@ -39,20 +90,7 @@ export function runEngineTask(task: EngineTask): EngineTaskResult {
   try {
     answer = command.run(request.data);
   } catch (error) {
-    // The commands turn the engine's input checks into ComputeInputError; anything else is a fault (500).
-    if (error instanceof ComputeInputError) return { ok: false, status: 400, code: errorCodes.invalidRequest, message: error.message, issues: error.issues };
-    throw error;
+    return refusal(error);
   }
-  const json = JSON.stringify(answer);
-  const bytes = Buffer.byteLength(json, 'utf8');
-  if (bytes > task.maxAnswerBytes) {
-    return {
-      ok: false,
-      status: 422,
-      code: 'answer_too_large',
-      message: `The answer would be ${formatBytes(bytes)}, more than the ${formatBytes(task.maxAnswerBytes)} allowed: ask for fewer points or factors`,
-      issues: [],
-    };
-  }
-  return { ok: true, json };
+  return serialise(answer, task.maxAnswerBytes);
 }

@@ -20,24 +20,24 @@ export function variantsRouter(ctx: AppContext): Router {
   const editors = requireRole(...projectEditorRoles);
 
   router.get('/', validate({ params: projectParamsSchema }), async (req, res) => {
-    const body: VariantList = { variants: await service.listVariants(ctx.db, currentUser(req), parsed(projectParamsSchema, req.params).projectId) };
+    const body: VariantList = { variants: await service.listVariants(ctx.db, ctx.enginePool, currentUser(req), parsed(projectParamsSchema, req.params).projectId) };
     res.json(body);
   });
 
   router.post('/', editors, validate({ params: projectParamsSchema, body: createVariantSchema }), async (req, res) => {
     const { projectId } = parsed(projectParamsSchema, req.params);
-    const variant = await service.createVariant(ctx.db, currentUser(req), projectId, parsed(createVariantSchema, req.body));
+    const variant = await service.createVariant(ctx.db, ctx.enginePool, currentUser(req), projectId, parsed(createVariantSchema, req.body));
     res.status(201).location(`/api/projects/${projectId}/variants/${variant.id}`).json(variant);
   });
 
   router.get('/:variantId', validate({ params: variantParamsSchema }), async (req, res) => {
     const { projectId, variantId } = parsed(variantParamsSchema, req.params);
-    res.json(await service.getVariant(ctx.db, currentUser(req), projectId, variantId));
+    res.json(await service.getVariant(ctx.db, ctx.enginePool, currentUser(req), projectId, variantId));
   });
 
   router.patch('/:variantId', editors, validate({ params: variantParamsSchema, body: updateVariantSchema }), async (req, res) => {
     const { projectId, variantId } = parsed(variantParamsSchema, req.params);
-    res.json(await service.updateVariant(ctx.db, currentUser(req), projectId, variantId, parsed(updateVariantSchema, req.body)));
+    res.json(await service.updateVariant(ctx.db, ctx.enginePool, currentUser(req), projectId, variantId, parsed(updateVariantSchema, req.body)));
   });
 
   router.delete('/:variantId', editors, validate({ params: variantParamsSchema }), async (req, res) => {
@@ -48,13 +48,13 @@ export function variantsRouter(ctx: AppContext): Router {
 
   router.post('/:variantId/size', editors, validate({ params: variantParamsSchema, body: sizeVariantSchema }), async (req, res) => {
     const { projectId, variantId } = parsed(variantParamsSchema, req.params);
-    res.json(await service.sizeVariant(ctx.db, currentUser(req), projectId, variantId, parsed(sizeVariantSchema, req.body)));
+    res.json(await service.sizeVariant(ctx.db, ctx.enginePool, currentUser(req), projectId, variantId, parsed(sizeVariantSchema, req.body)));
   });
 
   router.get('/:variantId/curves', validate({ params: variantParamsSchema, query: variantCurvesQuerySchema }), async (req, res) => {
     const { projectId, variantId } = parsed(variantParamsSchema, req.params);
     const { loadCaseId } = parsed(variantCurvesQuerySchema, req.query);
-    res.json(await service.variantCurves(ctx.db, currentUser(req), projectId, variantId, loadCaseId));
+    res.json(await service.variantCurves(ctx.db, ctx.enginePool, currentUser(req), projectId, variantId, loadCaseId));
   });
 
   return router;

@@ -21,6 +21,7 @@ import { requireProjectScope } from '../structures/structures.service';
 import type { ProjectScope } from '../structures/structures.repository';
 import * as repository from './variants.repository';
 import { computeVariant } from './variant-compute';
+import type { EnginePool } from '../../workers/engine-pool';
 
 const variantNotFound = () => notFound('The tuning variant', 'variant_not_found');
 
@@ -96,10 +97,10 @@ async function computeInputOf(db: Executor, scope: ProjectScope, fields: Variant
 }
 
 /** Runs the computation: its result, or (`refuse` false) the engine's refusal kept as the variant's resultError. */
-async function computation(input: VariantComputeInput, refuse: boolean): Promise<repository.ComputationValues> {
+async function computation(engine: EnginePool, input: VariantComputeInput, refuse: boolean): Promise<repository.ComputationValues> {
   const base = { inputsHash: variantInputsHash(input), engineVersion: variantEngineVersion, computedAt: new Date() };
   try {
-    return { ...base, result: await computeVariant({ kind: 'result', input }), resultError: null };
+    return { ...base, result: await computeVariant(engine, { kind: 'result', input }), resultError: null };
   } catch (error) {
     if (!(error instanceof ComputeInputError)) throw error;
     if (refuse) throw computeRefusal(error);
@@ -142,7 +143,7 @@ function toVariant(record: repository.VariantRecord): Variant {
  * cases and criteria as they are now, its own settings, the engine version) equals the stored one; otherwise it is
  * recomputed and stored first. No stale number is ever served.
  */
-async function fresh(db: Database, scope: ProjectScope, record: repository.VariantRecord): Promise<Variant> {
+async function fresh(db: Database, engine: EnginePool, scope: ProjectScope, record: repository.VariantRecord): Promise<Variant> {
   const input = await computeInputOf(db, scope, { ...record.row, loadCaseIds: record.loadCaseIds }).catch((error: unknown) => {
     // A thing the variant points at can no longer be read in its project (cannot happen while the keys hold).
     if (error instanceof HttpError) return null;
@@ -150,16 +151,16 @@ async function fresh(db: Database, scope: ProjectScope, record: repository.Varia
   });
   if (!input) throw new HttpError(409, 'variant_inputs_missing', 'A mode, load case or criteria of this tuning variant is missing');
   if (record.row.inputsHash === variantInputsHash(input) && record.row.engineVersion === variantEngineVersion) return toVariant(record);
-  const values = await computation(input, false);
+  const values = await computation(engine, input, false);
   await repository.storeComputation(db, record.row.id, record.row.version, values);
   return toVariant({ ...record, row: { ...record.row, ...values } });
 }
 
-export async function listVariants(db: Database, user: CurrentUser, projectId: string): Promise<Variant[]> {
+export async function listVariants(db: Database, engine: EnginePool, user: CurrentUser, projectId: string): Promise<Variant[]> {
   const scope = await requireProjectScope(db, user, projectId);
   const records = await repository.listVariants(db, scope);
   const out: Variant[] = [];
-  for (const record of records) out.push(await fresh(db, scope, record));
+  for (const record of records) out.push(await fresh(db, engine, scope, record));
   return out;
 }
 
@@ -169,12 +170,12 @@ async function requireVariant(db: Database, scope: ProjectScope, id: string): Pr
   return record;
 }
 
-export async function getVariant(db: Database, user: CurrentUser, projectId: string, id: string): Promise<Variant> {
+export async function getVariant(db: Database, engine: EnginePool, user: CurrentUser, projectId: string, id: string): Promise<Variant> {
   const scope = await requireProjectScope(db, user, projectId);
-  return fresh(db, scope, await requireVariant(db, scope, id));
+  return fresh(db, engine, scope, await requireVariant(db, scope, id));
 }
 
-export async function createVariant(db: Database, user: CurrentUser, projectId: string, input: CreateVariantParsed): Promise<Variant> {
+export async function createVariant(db: Database, engine: EnginePool, user: CurrentUser, projectId: string, input: CreateVariantParsed): Promise<Variant> {
   const scope = await requireProjectScope(db, user, projectId);
   const values: repository.VariantValues = {
     name: input.name,
@@ -189,7 +190,7 @@ export async function createVariant(db: Database, user: CurrentUser, projectId: 
     notes: input.notes ?? null,
   };
   const computeInput = await computeInputOf(db, scope, { ...values, loadCaseIds: input.loadCaseIds });
-  const computed = await computation(computeInput, true);
+  const computed = await computation(engine, computeInput, true);
   return toVariant(await storing(() => repository.insertVariant(db, scope, user.id, { ...values, ...computed }, input.loadCaseIds)));
 }
 
@@ -197,14 +198,14 @@ const changeableFields = [
   'name', 'modeId', 'loadCaseIds', 'criteriaId', 'massRatio', 'tuning', 'unitCount', 'structureFrequencyToleranceRatio', 'tmdDampingToleranceRatio', 'hardware', 'notes',
 ];
 
-async function applyChanges(db: Database, scope: ProjectScope, id: string, input: UpdateVariantParsed): Promise<Variant> {
+async function applyChanges(db: Database, engine: EnginePool, scope: ProjectScope, id: string, input: UpdateVariantParsed): Promise<Variant> {
   const { version, loadCaseIds, ...fields } = input;
   const changes = givenFields(fields) as Partial<repository.VariantValues>;
   if (Object.keys(changes).length === 0 && loadCaseIds === undefined) throw nothingToChange(changeableFields);
   const current = await requireVariant(db, scope, id);
   if (current.row.version !== version) throw versionConflict('The tuning variant', version, current.row.version);
   const merged = { ...current.row, ...changes, loadCaseIds: loadCaseIds ?? current.loadCaseIds };
-  const computed = await computation(await computeInputOf(db, scope, merged), true);
+  const computed = await computation(engine, await computeInputOf(db, scope, merged), true);
   const updated = await storing(() => repository.updateVariantAtVersion(db, scope, id, version, { ...changes, ...computed }, loadCaseIds));
   if (updated) return toVariant(updated);
   const now = await repository.findVariant(db, scope, id);
@@ -212,9 +213,9 @@ async function applyChanges(db: Database, scope: ProjectScope, id: string, input
   throw versionConflict('The tuning variant', version, now.row.version);
 }
 
-export async function updateVariant(db: Database, user: CurrentUser, projectId: string, id: string, input: UpdateVariantParsed): Promise<Variant> {
+export async function updateVariant(db: Database, engine: EnginePool, user: CurrentUser, projectId: string, id: string, input: UpdateVariantParsed): Promise<Variant> {
   const scope = await requireProjectScope(db, user, projectId);
-  return applyChanges(db, scope, id, input);
+  return applyChanges(db, engine, scope, id, input);
 }
 
 export async function deleteVariant(db: Database, user: CurrentUser, projectId: string, id: string): Promise<void> {
@@ -228,6 +229,7 @@ export async function deleteVariant(db: Database, user: CurrentUser, projectId: 
  */
 export async function sizeVariant(
   db: Database,
+  engine: EnginePool,
   user: CurrentUser,
   projectId: string,
   id: string,
@@ -241,7 +243,7 @@ export async function sizeVariant(
   const input = await computeInputOf(db, scope, { ...record.row, loadCaseIds: record.loadCaseIds });
   let sized: Awaited<ReturnType<typeof computeVariant<'size'>>>;
   try {
-    sized = await computeVariant({ kind: 'size', input });
+    sized = await computeVariant(engine, { kind: 'size', input });
   } catch (error) {
     if (error instanceof ComputeInputError) throw computeRefusal(error);
     throw error;
@@ -250,19 +252,19 @@ export async function sizeVariant(
   if (!(sized.massRatio > 0)) {
     throw invalidField('apply', 'the bare structure already meets the criteria over the detuning band: there is no mass ratio to apply');
   }
-  const variant = await applyChanges(db, scope, id, { version: body.version as number, massRatio: sized.massRatio });
+  const variant = await applyChanges(db, engine, scope, id, { version: body.version as number, massRatio: sized.massRatio });
   return { ...sized, applied: true, variant };
 }
 
 /** Plot data of one of the variant's load cases. */
-export async function variantCurves(db: Database, user: CurrentUser, projectId: string, id: string, loadCaseId: string): Promise<VariantCurves> {
+export async function variantCurves(db: Database, engine: EnginePool, user: CurrentUser, projectId: string, id: string, loadCaseId: string): Promise<VariantCurves> {
   const scope = await requireProjectScope(db, user, projectId);
   const record = await requireVariant(db, scope, id);
   const index = record.loadCaseIds.indexOf(loadCaseId);
   if (index < 0) throw invalidField('loadCaseId', 'is not one of this variant\'s load cases');
   const input = await computeInputOf(db, scope, { ...record.row, loadCaseIds: record.loadCaseIds });
   try {
-    return await computeVariant({ kind: 'curves', input, loadCaseIndex: index });
+    return await computeVariant(engine, { kind: 'curves', input, loadCaseIndex: index });
   } catch (error) {
     if (error instanceof ComputeInputError) throw computeRefusal(error);
     throw error;
