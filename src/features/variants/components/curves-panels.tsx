@@ -10,21 +10,25 @@ export function joinBands(curves: VariantCurves) {
   const withDamper: number[] = [];
   const bare: number[] = [];
   const stroke: number[] = [];
+  // The limit at each frequency, for criteria whose limit depends on frequency (null: one limit for all).
+  const varyingLimit = bands.length > 0 && bands.every((band) => band.limitMPerS2) ? ([] as number[]) : null;
   bands.forEach((band, b) => {
     if (b > 0) {
       frequenciesHz.push((bands[b - 1].hiHz + band.loHz) / 2);
       withDamper.push(NaN);
       bare.push(NaN);
       stroke.push(NaN);
+      varyingLimit?.push(NaN);
     }
     for (let i = 0; i < band.frequencyHz.length; i++) {
       frequenciesHz.push(band.frequencyHz[i]);
       withDamper.push(band.accelerationMPerS2[i]);
       bare.push(band.bareStructureAccelerationMPerS2[i] ?? NaN);
       stroke.push(band.tmdStrokeM[i]);
+      varyingLimit?.push(band.limitMPerS2?.[i] ?? NaN);
     }
   });
-  return { frequenciesHz, withDamper, bare, stroke, bandsHz: bands.map((band) => [band.loHz, band.hiHz] as const) };
+  return { frequenciesHz, withDamper, bare, stroke, varyingLimit, bandsHz: bands.map((band) => [band.loHz, band.hiHz] as const) };
 }
 
 interface CurvesPanelsProps {
@@ -75,8 +79,9 @@ export function CurvesPanels({ curves, strokeLimitM, structureFrequencyTolerance
           series={[
             { label: 'with damper', values: joined.withDamper.map(a), colourIndex: 0 },
             { label: 'bare structure', values: joined.bare.map(a), muted: true },
+            ...(joined.varyingLimit ? [{ label: 'comfort limit at each frequency', values: joined.varyingLimit.map(a), colourIndex: 4 }] : []),
           ]}
-          limit={limit}
+          limit={joined.varyingLimit ? null : limit}
           bandsHz={joined.bandsHz}
           valueAxisLabel={accelerationLabel}
           description={`Peak acceleration at each force frequency of ${curves.name}, with the damper and without; the shaded bands are the ones the load case loads, the dashed rule the comfort limit. Peak with the damper ${

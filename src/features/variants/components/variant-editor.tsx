@@ -347,7 +347,11 @@ export function VariantEditor({ projectId, variant, modes, loadCases, comfortCri
             </Notice>
           ) : null}
           {!liveInput && !live.busy ? (
-            <p className="text-small text-ink-muted">Choose a mode, at least one load case and the comfort criteria, and give a mass ratio, to see the check.</p>
+            <p className="text-small text-ink-muted">
+              {result
+                ? 'Showing the last inputs the engine could check: correct the fields marked in the form to update it.'
+                : 'Choose a mode, at least one load case and the comfort criteria, and give a mass ratio, to see the check.'}
+            </p>
           ) : null}
           {result ? (
             <>
