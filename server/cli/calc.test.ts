@@ -110,7 +110,7 @@ describe('calc: answers', processTests, () => {
 
 describe('calc: refusals (exit 2, error JSON as the last stderr line)', processTests, () => {
   it('unknown command, unreadable file, invalid JSON, wrong arguments', () => {
-    expectRefused('shake', {}, 'unknown_command', '', /command: must be one of .*free, modes, response.*tune/);
+    expectRefused('shake', {}, 'unknown_command', '', /command: must be one of .*free, identify, modes, response.*tune/);
     const missing = calc(['modes', join(scratch, 'nowhere.json')]);
     expect(missing.status).toBe(2);
     const lines = missing.stderr.trim().split('\n');

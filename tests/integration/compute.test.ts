@@ -73,7 +73,7 @@ describe('POST /api/compute/:command', () => {
   });
 
   it('registers every command of the engine and of the design methods', () => {
-    expect(names.sort()).toEqual(['assess', 'free', 'modes', 'response', 'robustness', 'size', 'tune']);
+    expect(names.sort()).toEqual(['assess', 'free', 'identify', 'modes', 'response', 'robustness', 'size', 'tune']);
   });
 
   // The same JSON in and out as the `calc` command: one valid request per command (invented values), answered by
