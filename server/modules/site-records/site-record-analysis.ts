@@ -1,0 +1,76 @@
+/**
+ * The analysis of one site record: read the stored file, pick the channel, run `identify`. One async function, so
+ * that it can move to a pool of compute workers without changing its callers.
+ */
+import { identifyCommand } from '../../../shared/compute/identify-command';
+import { ComputeInputError } from '../../../shared/compute/types';
+import { identifyRequestSchema, type IdentifyResponse } from '../../../shared/contracts/identify';
+import { parseRecordFile, RecordFileError, type ParsedRecordFile } from '../../../shared/engine/signal/record-csv';
+import { HttpError, invalidField } from '../../lib/http-error';
+
+export interface AnalyseRecordInput {
+  fileBytes: Uint8Array;
+  /** Column name, or 0-based index among the acceleration columns (a string of digits counts as an index). */
+  channel?: string | number;
+  /** For a single-column file. */
+  sampleRateHz?: number;
+  method?: 'spectrum' | 'decay';
+  bandHz?: [number, number];
+}
+
+export interface AnalysedRecord {
+  file: Omit<ParsedRecordFile, 'accelerationMPerS2'> & { sampleCount: number };
+  analysis: IdentifyResponse;
+}
+
+function channelOption(channel: string | number | undefined): string | number | undefined {
+  if (typeof channel === 'string' && /^\d+$/.test(channel.trim())) return Number(channel.trim());
+  return channel;
+}
+
+/** A refused file as 400 naming `file` (with the row and column in the message when there is one). */
+function fileError(error: RecordFileError): HttpError {
+  const where = [error.row === null ? null : `row ${error.row}`, error.column === null ? null : `column "${error.column}"`].filter(Boolean).join(', ');
+  const message = error.message.startsWith('row ') || where === '' ? `file: ${error.message}` : `file: ${where}: ${error.message}`;
+  return new HttpError(400, 'invalid_request', message, [{ path: 'file', message }]);
+}
+
+export async function analyseRecord(input: AnalyseRecordInput): Promise<AnalysedRecord> {
+  const text = new TextDecoder('utf-8').decode(input.fileBytes);
+  let parsed: ParsedRecordFile;
+  try {
+    parsed = parseRecordFile(text, { channel: channelOption(input.channel), sampleRateHz: input.sampleRateHz });
+  } catch (error) {
+    if (error instanceof RecordFileError) {
+      if (error.message.startsWith('channel')) throw invalidField('channel', error.message.replace(/^channel /, ''));
+      if (error.message.includes('sampleRateHz must not')) throw invalidField('sampleRateHz', 'must not be given for a file with a time column');
+      throw fileError(error);
+    }
+    throw error;
+  }
+  const request = identifyRequestSchema.safeParse({
+    sampleRateHz: parsed.sampleRateHz,
+    accelerationMPerS2: Array.from(parsed.accelerationMPerS2),
+    bandHz: input.bandHz,
+    method: input.method,
+  });
+  if (!request.success) {
+    const issues = request.error.issues.map((issue) => {
+      const head = String(issue.path[0] ?? '');
+      // The samples and their sample rate come from the file: name it.
+      const path = head === 'accelerationMPerS2' || head === 'sampleRateHz' ? 'file' : head;
+      const what = head === 'accelerationMPerS2' ? 'the record' : head === 'sampleRateHz' ? 'the sample rate' : '';
+      return { path, message: `${path}: ${what ? `${what} ` : ''}${issue.message}` };
+    });
+    throw new HttpError(400, 'invalid_request', issues.map((issue) => issue.message).join('; '), issues);
+  }
+  let analysis: IdentifyResponse;
+  try {
+    analysis = identifyCommand.run(request.data);
+  } catch (error) {
+    if (error instanceof ComputeInputError) throw new HttpError(400, 'invalid_request', error.message, error.issues);
+    throw error;
+  }
+  const { accelerationMPerS2, ...file } = parsed;
+  return { file: { ...file, sampleCount: accelerationMPerS2.length }, analysis };
+}
