@@ -6,6 +6,8 @@
 import { count, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { siteRecords } from '../../server/db/schema';
+import { demoSiteRecordCsv, demoSiteRecords } from '../../server/db/seed';
+import { analyseRecord } from '../../server/modules/site-records/site-record-analysis';
 import { apiErrorSchema } from '../../shared/contracts/errors';
 import { retuneResponseSchema, siteRecordListSchema, siteRecordSchema, type SiteRecord } from '../../shared/contracts/site-records';
 import { decayRecord } from '../../shared/engine/signal/test-records';
@@ -260,5 +262,17 @@ describe('new analysis, comparison and re-tune', () => {
     expect(answer.withinTuningRange).toBe(Math.abs(target / 1.95 - 1) <= 0.1);
     const bad = await engineer.post(`/api/projects/${projectId}/site-records/${record.id}/retune`).send({ massRatio: -1, method: 'den-hartog' }).expect(400);
     expect(apiErrorSchema.parse(bad.body).error.issues[0].path).toBe('massRatio');
+  });
+});
+
+describe('demo site records', () => {
+  it('are invented decays whose analysis finds the oscillator the seed made', async () => {
+    for (const record of demoSiteRecords) {
+      expect(record.notes).toMatch(/^Invented demo record/);
+      const { analysis } = await analyseRecord({ fileBytes: Buffer.from(demoSiteRecordCsv(record)) });
+      expect(analysis.method).toBe('decay');
+      expect(Math.abs(analysis.frequencyHz! / record.oscillator.frequencyHz - 1)).toBeLessThan(2e-3);
+      expect(Math.abs(analysis.dampingRatio! / record.oscillator.dampingRatio - 1)).toBeLessThan(0.1);
+    }
   });
 });
