@@ -140,3 +140,16 @@ export type SiteRecord = z.infer<typeof siteRecordSchema>;
 
 export const siteRecordListSchema = z.object({ siteRecords: z.array(siteRecordSchema) });
 export type SiteRecordList = z.infer<typeof siteRecordListSchema>;
+
+/** The record's time history for a plot: the chosen channel, thinned to at most this many points (each bucket's lowest and highest sample, in time order). */
+export const SITE_RECORD_PLOT_POINTS = 4000;
+export const siteRecordTimeHistorySchema = z.object({
+  channel: z.string(),
+  sampleRateHz: z.number(),
+  sampleCount: z.number(),
+  /** True when the plot holds fewer points than the record. */
+  thinned: z.boolean(),
+  timesS: z.array(z.number()),
+  accelerationMPerS2: z.array(z.number()),
+});
+export type SiteRecordTimeHistory = z.infer<typeof siteRecordTimeHistorySchema>;

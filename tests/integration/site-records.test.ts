@@ -9,7 +9,7 @@ import { siteRecords } from '../../server/db/schema';
 import { demoSiteRecordCsv, demoSiteRecords } from '../../server/db/seed';
 import { analyseRecord } from '../../server/modules/site-records/site-record-analysis';
 import { apiErrorSchema } from '../../shared/contracts/errors';
-import { retuneResponseSchema, siteRecordListSchema, siteRecordSchema, type SiteRecord } from '../../shared/contracts/site-records';
+import { retuneResponseSchema, siteRecordListSchema, siteRecordSchema, siteRecordTimeHistorySchema, type SiteRecord } from '../../shared/contracts/site-records';
 import { decayRecord } from '../../shared/engine/signal/test-records';
 import { createTestApp, signIn, type Agent, type TestApp } from '../support/test-app';
 
@@ -94,6 +94,11 @@ describe('upload and analysis', () => {
     expect(Math.abs(first.analysis.frequencyHz! / deck.frequencyHz - 1)).toBeLessThan(5e-4);
     expect(Math.abs(first.analysis.dampingRatio! / deck.dampingRatio - 1)).toBeLessThan(0.03);
     expect(response.headers.location).toBe(`/api/projects/${projectId}/site-records/${first.id}`);
+    // 3000 samples: the plot gets them all, at the file's times.
+    const history = siteRecordTimeHistorySchema.parse((await viewer.get(`/api/projects/${projectId}/site-records/${first.id}/time-history`).expect(200)).body);
+    expect(history).toMatchObject({ channel: 'acc_1_mps2', sampleCount: 3000, thinned: false });
+    expect(history.timesS[1500]).toBeCloseTo(30, 9);
+    await outsider.get(`/api/projects/${projectId}/site-records/${first.id}/time-history`).expect(404);
   });
 
   it('analyses the channel chosen by name or index', async () => {

@@ -6,6 +6,7 @@ import { identifyCommand } from '../../../shared/compute/identify-command';
 import { ComputeInputError } from '../../../shared/compute/types';
 import { identifyRequestSchema, type IdentifyResponse } from '../../../shared/contracts/identify';
 import { parseRecordFile, RecordFileError, type ParsedRecordFile } from '../../../shared/engine/signal/record-csv';
+import { SITE_RECORD_PLOT_POINTS, type SiteRecordTimeHistory } from '../../../shared/contracts/site-records';
 import { HttpError, invalidField } from '../../lib/http-error';
 
 export interface AnalyseRecordInput {
@@ -35,11 +36,44 @@ function fileError(error: RecordFileError): HttpError {
   return new HttpError(400, 'invalid_request', message, [{ path: 'file', message }]);
 }
 
+function readStoredFile(fileBytes: Uint8Array, channel: string | number | undefined, sampleRateHz: number | undefined): ParsedRecordFile {
+  const text = new TextDecoder('utf-8').decode(fileBytes);
+  return parseRecordFile(text, { channel: channelOption(channel), sampleRateHz });
+}
+
+/** The stored record's chosen channel for a plot, thinned to each bucket's lowest and highest sample. */
+export function recordTimeHistory(fileBytes: Uint8Array, channel: number, sampleRateHz: number | undefined): SiteRecordTimeHistory {
+  const file = readStoredFile(fileBytes, channel, sampleRateHz);
+  const samples = file.accelerationMPerS2;
+  const n = samples.length;
+  const dt = 1 / file.sampleRateHz;
+  const base = { channel: file.channelName, sampleRateHz: file.sampleRateHz, sampleCount: n };
+  if (n <= SITE_RECORD_PLOT_POINTS) {
+    return { ...base, thinned: false, timesS: Array.from({ length: n }, (_, i) => i * dt), accelerationMPerS2: Array.from(samples) };
+  }
+  const buckets = SITE_RECORD_PLOT_POINTS / 2;
+  const timesS: number[] = [];
+  const values: number[] = [];
+  for (let b = 0; b < buckets; b++) {
+    const start = Math.floor((b * n) / buckets);
+    const end = Math.floor(((b + 1) * n) / buckets);
+    let low = start;
+    let high = start;
+    for (let i = start + 1; i < end; i++) {
+      if (samples[i] < samples[low]) low = i;
+      if (samples[i] > samples[high]) high = i;
+    }
+    const [first, second] = low <= high ? [low, high] : [high, low];
+    timesS.push(first * dt, second * dt);
+    values.push(samples[first], samples[second]);
+  }
+  return { ...base, thinned: true, timesS, accelerationMPerS2: values };
+}
+
 export async function analyseRecord(input: AnalyseRecordInput): Promise<AnalysedRecord> {
-  const text = new TextDecoder('utf-8').decode(input.fileBytes);
   let parsed: ParsedRecordFile;
   try {
-    parsed = parseRecordFile(text, { channel: channelOption(input.channel), sampleRateHz: input.sampleRateHz });
+    parsed = readStoredFile(input.fileBytes, input.channel, input.sampleRateHz);
   } catch (error) {
     if (error instanceof RecordFileError) {
       if (error.message.startsWith('channel')) throw invalidField('channel', error.message.replace(/^channel /, ''));

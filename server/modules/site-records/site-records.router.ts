@@ -70,6 +70,11 @@ export function siteRecordsRouter(ctx: AppContext): Router {
     res.json(await service.getSiteRecord(ctx.db, currentUser(req), projectId, siteRecordId));
   });
 
+  router.get('/:siteRecordId/time-history', validate({ params: siteRecordParamsSchema }), async (req, res) => {
+    const { projectId, siteRecordId } = parsed(siteRecordParamsSchema, req.params);
+    res.json(await service.getSiteRecordTimeHistory(ctx.db, currentUser(req), projectId, siteRecordId));
+  });
+
   router.post('/:siteRecordId/analyse', uploaders, validate({ params: siteRecordParamsSchema, body: analyseSiteRecordSchema }), async (req, res) => {
     const { projectId, siteRecordId } = parsed(siteRecordParamsSchema, req.params);
     res.json(await service.reanalyseSiteRecord(ctx.db, currentUser(req), projectId, siteRecordId, parsed(analyseSiteRecordSchema, req.body)));

@@ -9,6 +9,7 @@ import type {
   RetuneResponse,
   SiteRecord,
   SiteRecordComparison,
+  SiteRecordTimeHistory,
   UploadSiteRecordFields,
 } from '../../../shared/contracts/site-records';
 import { EngineInputError } from '../../../shared/engine/linalg';
@@ -16,7 +17,7 @@ import { retuneDamper } from '../../../shared/engine/retune';
 import { findMode, type ModeRow } from '../modes/modes.repository';
 import { findStructure, type ProjectScope } from '../structures/structures.repository';
 import { requireProjectScope } from '../structures/structures.service';
-import { analyseRecord } from './site-record-analysis';
+import { analyseRecord, recordTimeHistory } from './site-record-analysis';
 import * as repository from './site-records.repository';
 
 const siteRecordNotFound = () => notFound('The site record', 'site_record_not_found');
@@ -92,6 +93,13 @@ export async function listSiteRecords(db: Database, user: CurrentUser, projectId
 export async function getSiteRecord(db: Database, user: CurrentUser, projectId: string, id: string): Promise<SiteRecord> {
   const scope = await requireProjectScope(db, user, projectId);
   return readRecord(db, scope, id);
+}
+
+export async function getSiteRecordTimeHistory(db: Database, user: CurrentUser, projectId: string, id: string): Promise<SiteRecordTimeHistory> {
+  const scope = await requireProjectScope(db, user, projectId);
+  const row = await repository.findSiteRecordFile(db, scope, id);
+  if (!row) throw siteRecordNotFound();
+  return recordTimeHistory(row.fileBytes, row.channelIndex, row.givenSampleRateHz ?? undefined);
 }
 
 export interface UploadedFile {
