@@ -29,6 +29,8 @@ const projectComfortCriteria = () =>
     Component: module.ProjectComfortCriteriaRoute,
     loader: module.projectComfortCriteriaLoader,
   }));
+const projectSiteRecords = () =>
+  import('./routes/project-site-records').then((module) => ({ Component: module.ProjectSiteRecordsRoute, loader: module.projectSiteRecordsLoader }));
 const projectSection = (slug: string) => () =>
   import('./routes/project-section').then((module) => ({ Component: module.projectSectionRoute(slug) }));
 
@@ -68,6 +70,7 @@ export const router = createBrowserRouter([
                       { path: 'structures/:structureId', lazy: projectStructure },
                       { path: 'load-cases', lazy: projectLoadCases },
                       { path: 'comfort-criteria', lazy: projectComfortCriteria },
+                      { path: 'site-records', lazy: projectSiteRecords },
                       ...projectSections
                         .filter((entry) => !entry.available)
                         .map((entry) => ({ path: entry.slug, lazy: projectSection(entry.slug) })),

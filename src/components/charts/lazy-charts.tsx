@@ -7,6 +7,8 @@ import { Loading } from '../ui/loading';
 
 const ModeShapeChartLazy = lazy(() => import('./mode-shape-chart'));
 const TimeHistoryChartLazy = lazy(() => import('./time-history-chart'));
+const SpectrumChartLazy = lazy(() => import('./spectrum-chart'));
+const DecayChartLazy = lazy(() => import('./decay-chart'));
 
 export function ModeShapeChart(props: ComponentProps<typeof ModeShapeChartLazy>) {
   return (
@@ -20,6 +22,22 @@ export function TimeHistoryChart(props: ComponentProps<typeof TimeHistoryChartLa
   return (
     <Suspense fallback={<Loading label="Loading the plot…" />}>
       <TimeHistoryChartLazy {...props} />
+    </Suspense>
+  );
+}
+
+export function SpectrumChart(props: ComponentProps<typeof SpectrumChartLazy>) {
+  return (
+    <Suspense fallback={<Loading label="Loading the plot…" />}>
+      <SpectrumChartLazy {...props} />
+    </Suspense>
+  );
+}
+
+export function DecayChart(props: ComponentProps<typeof DecayChartLazy>) {
+  return (
+    <Suspense fallback={<Loading label="Loading the plot…" />}>
+      <DecayChartLazy {...props} />
     </Suspense>
   );
 }
