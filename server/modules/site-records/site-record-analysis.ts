@@ -94,7 +94,8 @@ export async function analyseRecord(input: AnalyseRecordInput): Promise<Analysed
       // The samples and their sample rate come from the file: name it.
       const path = head === 'accelerationMPerS2' || head === 'sampleRateHz' ? 'file' : head;
       const what = head === 'accelerationMPerS2' ? 'the record' : head === 'sampleRateHz' ? 'the sample rate' : '';
-      return { path, message: `${path}: ${what ? `${what} ` : ''}${issue.message}` };
+      const prefix = what && !issue.message.startsWith(what) ? `${what} ` : '';
+      return { path, message: `${path}: ${prefix}${issue.message}` };
     });
     throw new HttpError(400, 'invalid_request', issues.map((issue) => issue.message).join('; '), issues);
   }
