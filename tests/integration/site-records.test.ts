@@ -84,8 +84,13 @@ let first: SiteRecord;
 
 describe('upload and analysis', () => {
   it('finds the frequency and damping of a decay made in the test (engineer uploads)', async () => {
-    const response = await upload(engineer, decayCsv([deck, pier]), { structureId, modeId, condition: 'without-damper', notes: 'test decay' }).expect(201);
+    const csv = decayCsv([deck, pier]);
+    const response = await upload(engineer, csv, { structureId, modeId, condition: 'without-damper', notes: 'test decay' }).expect(201);
     first = siteRecordSchema.parse(response.body);
+    // The file is kept byte for byte, so that it can be analysed again.
+    const [stored] = await t.ctx.db.select({ fileBytes: siteRecords.fileBytes }).from(siteRecords).where(eq(siteRecords.id, first.id));
+    expect(Buffer.compare(stored.fileBytes, Buffer.from(csv))).toBe(0);
+    expect(first.fileSizeBytes).toBe(Buffer.byteLength(csv));
     expect(first.channel).toBe('acc_1_mps2');
     expect(first.channels).toEqual(['acc_1_mps2', 'acc_2_mps2']);
     expect(first.sampleRateHz).toBeCloseTo(rateHz, 6);
