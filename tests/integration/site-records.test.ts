@@ -272,6 +272,10 @@ describe('new analysis, comparison and re-tune', () => {
     expect(answer.withinTuningRange).toBe(Math.abs(target / 1.95 - 1) <= 0.1);
     const bad = await engineer.post(`/api/projects/${projectId}/site-records/${record.id}/retune`).send({ massRatio: -1, method: 'den-hartog' }).expect(400);
     expect(apiErrorSchema.parse(bad.body).error.issues[0].path).toBe('massRatio');
+    // A with-damper record shows structure and damper together: not the structure to tune to.
+    const coupled = list.siteRecords.find((r) => r.condition === 'with-damper')!;
+    const refused = await engineer.post(`/api/projects/${projectId}/site-records/${coupled.id}/retune`).send({ massRatio: 0.02, method: 'den-hartog' }).expect(409);
+    expect(apiErrorSchema.parse(refused.body).error.code).toBe('not_the_bare_structure');
   });
 });
 

@@ -172,6 +172,14 @@ export async function retuneFromSiteRecord(db: Database, user: CurrentUser, proj
   const scope = await requireProjectScope(db, user, projectId);
   const row = await repository.findSiteRecord(db, scope, id);
   if (!row) throw siteRecordNotFound();
+  if (row.condition === 'with-damper') {
+    // With the damper working the record shows the coupled system, not the structure the damper is tuned to.
+    throw new HttpError(
+      409,
+      'not_the_bare_structure',
+      'A record with the damper working shows the structure and damper together: re-tune from a record without the damper or with it locked',
+    );
+  }
   const { frequencyHz, dampingRatio } = row.analysis;
   if (frequencyHz === null || dampingRatio === null) {
     throw new HttpError(409, 'no_measured_mode', 'The record shows no clear mode (see its warnings): analyse it again with another band or method before re-tuning');

@@ -271,7 +271,7 @@ export function SiteRecordDetails({ projectId, record, canAnalyse, canDelete }: 
           <AnalyseAgain projectId={projectId} record={record} />
         </section>
       ) : null}
-      {a.frequencyHz !== null && a.dampingRatio !== null ? (
+      {a.frequencyHz !== null && a.dampingRatio !== null && record.condition !== 'with-damper' ? (
         <section aria-label="Re-tune" className="flex flex-col gap-2">
           <h4 className="text-small font-semibold text-ink-soft">Re-tune the damper to the measured structure</h4>
           <RetuneForm projectId={projectId} record={record} />
