@@ -70,7 +70,7 @@ export async function deleteSiteRecord(db: Executor, scope: ProjectScope, id: st
   return rows.length > 0;
 }
 
-/** The newest without-damper record of a mode with a measured damping ratio, other than `exceptId`. */
+/** The without-damper records of a mode, newest first (the comparison takes the first with a damping ratio). */
 export async function findWithoutDamperRecords(db: Executor, scope: ProjectScope, modeId: string): Promise<{ id: string; analysis: SiteRecordRow['analysis'] }[]> {
   return db
     .select({ id: siteRecords.id, analysis: siteRecords.analysis })
