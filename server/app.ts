@@ -20,6 +20,7 @@ import { comfortCriteriaRouter } from './modules/comfort-criteria/comfort-criter
 import { loadCasesRouter } from './modules/load-cases/load-cases.router';
 import { lumpedModelsRouter } from './modules/lumped-models/lumped-models.router';
 import { modesRouter } from './modules/modes/modes.router';
+import { siteRecordsRouter } from './modules/site-records/site-records.router';
 import { structuresRouter } from './modules/structures/structures.router';
 import { variantsRouter } from './modules/variants/variants.router';
 
@@ -84,6 +85,7 @@ export function createApp(ctx: AppContext, options: { clientDir?: string | null;
   app.use('/api/projects/:projectId/load-cases', loadCasesRouter(ctx));
   app.use('/api/projects/:projectId/comfort-criteria', comfortCriteriaRouter(ctx));
   app.use('/api/projects/:projectId/variants', variantsRouter(ctx));
+  app.use('/api/projects/:projectId/site-records', siteRecordsRouter(ctx));
   app.use('/api/projects', projectsRouter(ctx));
   app.use('/api/organisation', organisationRouter(ctx));
   app.use('/api/compute', computeRouter(ctx.enginePool));

@@ -30,12 +30,15 @@ import {
   organisations,
   projectMembers,
   projects,
+  siteRecords,
   structureModes,
   structures,
   tuningVariantLoadCases,
   tuningVariants,
   users,
 } from './schema';
+import { decayRecord } from '../../shared/engine/signal/test-records';
+import { analyseRecord } from '../modules/site-records/site-record-analysis';
 
 export const demoPassword = 'stillspan-demo';
 
@@ -241,7 +244,7 @@ export const demoStructuralModels: Record<(typeof demoProjects)[number]['kind'],
 };
 
 /** Seeds one project's structural model through the same contract checks and derivations as the API. */
-async function seedStructuralModel(tx: Executor, organisationId: string, projectId: string, createdBy: string, demo: DemoModel): Promise<void> {
+async function seedStructuralModel(tx: Executor, organisationId: string, projectId: string, createdBy: string, demo: DemoModel): Promise<SeededModel> {
   const [structure] = await tx
     .insert(structures)
     .values({ ...createStructureSchema.parse(demo.structure), projectId, createdBy })
@@ -256,6 +259,7 @@ async function seedStructuralModel(tx: Executor, organisationId: string, project
       .returning();
     modelIds.push(row.id);
   }
+  const orderedModeIds: string[] = [];
   for (const mode of demo.modes) {
     let source: CreateModeInput['source'];
     if (mode.source && 'model' in mode.source) {
@@ -266,7 +270,7 @@ async function seedStructuralModel(tx: Executor, organisationId: string, project
     }
     const input = createModeSchema.parse({ ...mode, source });
     const derived = await deriveModeValues(tx, scope, input.source);
-    await tx.insert(structureModes).values({
+    const [modeRow] = await tx.insert(structureModes).values({
       structureId: structure.id,
       createdBy,
       label: input.label,
@@ -277,7 +281,8 @@ async function seedStructuralModel(tx: Executor, organisationId: string, project
       modeShapeMean: derived?.modeShapeMean ?? input.modeShapeMean ?? null,
       source: input.source,
       lumpedModelId: derived?.lumpedModelId ?? null,
-    });
+    }).returning({ id: structureModes.id });
+    orderedModeIds.push(modeRow.id);
   }
   const modeIds = new Map<string, string>();
   for (const row of await tx.select({ id: structureModes.id, label: structureModes.label }).from(structureModes).where(eq(structureModes.structureId, structure.id))) {
@@ -312,6 +317,71 @@ async function seedStructuralModel(tx: Executor, organisationId: string, project
       .returning({ id: tuningVariants.id });
     await tx.insert(tuningVariantLoadCases).values(ids.map((loadCaseId, position) => ({ variantId: row.id, position, loadCaseId })));
   }
+  return { structureId: structure.id, modeIds: orderedModeIds };
+}
+
+interface SeededModel {
+  structureId: string;
+  /** In the order of the demo's modes. */
+  modeIds: string[];
+}
+
+/**
+ * Invented site records of the demo footbridge's first vertical mode: free decays after a heel drop, made by the
+ * seed from a single-DOF oscillator with a little noise (seeded, so every install gets the same files), one before
+ * and one after the damper was installed. The numbers are invented for the demo; no bridge was measured.
+ */
+export const demoSiteRecords = [
+  {
+    condition: 'without-damper' as const,
+    oscillator: { frequencyHz: 1.93, dampingRatio: 0.007 },
+    seed: 4101,
+    fileName: 'wrenmoor-heel-drop-before-damper.csv',
+    measuredAt: '2026-03-10T07:40:00Z',
+    notes: 'Invented demo record (not a measurement): heel drop at midspan before the damper was fitted, made by the seed from a 1.93 Hz, 0.7 % oscillator with noise.',
+  },
+  {
+    condition: 'with-damper' as const,
+    oscillator: { frequencyHz: 1.91, dampingRatio: 0.034 },
+    seed: 4102,
+    fileName: 'wrenmoor-heel-drop-with-damper.csv',
+    measuredAt: '2026-04-21T07:15:00Z',
+    notes: 'Invented demo record (not a measurement): heel drop at midspan with the damper working, made by the seed from a 1.91 Hz, 3.4 % oscillator with noise.',
+  },
+];
+
+/** A demo record as a CSV file: time in s, midspan and quarter-span acceleration in m/s² (the quarter point at 0.7 of midspan). */
+export function demoSiteRecordCsv(record: (typeof demoSiteRecords)[number]): string {
+  const sampleRateHz = 100;
+  const samples = decayRecord({ ...record.oscillator, sampleRateHz }, 60, record.seed, { initialVelocityMPerS: 0.004, noiseStd: 0.0008, quietS: 3 });
+  const lines = ['time_s,midspan_mps2,quarter_span_mps2'];
+  for (let i = 0; i < samples.length; i++) lines.push(`${(i / sampleRateHz).toFixed(2)},${samples[i].toFixed(6)},${(0.7 * samples[i]).toFixed(6)}`);
+  return `${lines.join('\n')}\n`;
+}
+
+async function seedSiteRecords(tx: Executor, projectId: string, createdBy: string, model: SeededModel): Promise<void> {
+  for (const record of demoSiteRecords) {
+    const fileBytes = Buffer.from(demoSiteRecordCsv(record), 'utf8');
+    const { file, analysis } = await analyseRecord({ fileBytes });
+    await tx.insert(siteRecords).values({
+      projectId,
+      structureId: model.structureId,
+      modeId: model.modeIds[0],
+      condition: record.condition,
+      fileName: record.fileName,
+      fileBytes,
+      channel: file.channelName,
+      channelIndex: file.channelIndex,
+      channels: file.channels,
+      givenSampleRateHz: null,
+      sampleRateHz: file.sampleRateHz,
+      sampleCount: file.sampleCount,
+      measuredAt: new Date(record.measuredAt),
+      notes: record.notes,
+      analysis,
+      createdBy,
+    });
+  }
 }
 
 /** True when the database holds no organisation yet. */
@@ -338,7 +408,10 @@ export async function seedDemoIfEmpty(db: Database): Promise<boolean> {
       .insert(projects)
       .values(demoProjects.map((project) => ({ ...project, organisationId: organisation.id, createdBy: engineerId })))
       .returning({ id: projects.id, kind: projects.kind });
-    for (const project of rows) await seedStructuralModel(tx, organisation.id, project.id, engineerId, demoStructuralModels[project.kind]);
+    for (const project of rows) {
+      const model = await seedStructuralModel(tx, organisation.id, project.id, engineerId, demoStructuralModels[project.kind]);
+      if (project.kind === 'footbridge') await seedSiteRecords(tx, project.id, idByEmail.get('fabricator@demo.stillspan.test')!, model);
+    }
     const team = ['engineer@demo.stillspan.test', 'owner@demo.stillspan.test', 'fabricator@demo.stillspan.test'].map((email) => idByEmail.get(email)!);
     await tx.insert(projectMembers).values(rows.flatMap((project) => team.map((userId) => ({ projectId: project.id, userId }))));
   });

@@ -1,7 +1,7 @@
 import express from 'express';
 import request from 'supertest';
 import { describe, expect, it } from 'vitest';
-import { sameOrigin } from './same-origin';
+import { requireJsonBody, sameOrigin } from './same-origin';
 
 function app() {
   const a = express();
@@ -29,5 +29,24 @@ describe('sameOrigin', () => {
       expect(response.status, origin).toBe(403);
       expect(response.body.error.code).toBe('cross_origin');
     }
+  });
+});
+
+describe('requireJsonBody', () => {
+  function jsonApp() {
+    const a = express();
+    a.use('/api', requireJsonBody);
+    a.all('/api/{*rest}', (_req, res) => {
+      res.json({ ok: true });
+    });
+    return a;
+  }
+
+  it('lets multipart through only for the upload of a site record', async () => {
+    await request(jsonApp()).post('/api/projects/p1/site-records').field('a', 'b').expect(200);
+    await request(jsonApp()).post('/api/projects/p1/structures').field('a', 'b').expect(415);
+    await request(jsonApp()).post('/api/projects/p1/site-records/r1/analyse').field('a', 'b').expect(415);
+    await request(jsonApp()).patch('/api/projects/p1/site-records').field('a', 'b').expect(415);
+    await request(jsonApp()).post('/api/projects/p1/site-records').set('Content-Type', 'text/plain').send('x').expect(415);
   });
 });

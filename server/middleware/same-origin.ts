@@ -35,9 +35,19 @@ export function sameOrigin(appUrl: string): RequestHandler {
   };
 }
 
-/** State-changing API routes take JSON: a body of another type is refused before any handler runs. */
+/** The one route that takes a file: POST /api/projects/:projectId/site-records (multipart/form-data). */
+const multipartRoute = /^\/projects\/[^/]+\/site-records\/?$/;
+
+/**
+ * State-changing API routes take JSON: a body of another type is refused before any handler runs. The exception is
+ * the upload of a site record, which may be multipart/form-data (mounted under /api, so req.path starts at /projects).
+ */
 export const requireJsonBody: RequestHandler = (req, res, next) => {
   if (safeMethods.has(req.method) || req.method === 'DELETE') {
+    next();
+    return;
+  }
+  if (req.method === 'POST' && multipartRoute.test(req.path) && req.is('multipart/form-data')) {
     next();
     return;
   }

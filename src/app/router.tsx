@@ -35,6 +35,8 @@ const tuningVariant = () =>
   import('./routes/tuning-variant').then((module) => ({ Component: module.TuningVariantRoute, loader: module.tuningVariantLoader }));
 const tuningVariantEdit = () =>
   import('./routes/tuning-variant').then((module) => ({ Component: module.TuningVariantEditRoute, loader: module.tuningVariantLoader }));
+const projectSiteRecords = () =>
+  import('./routes/project-site-records').then((module) => ({ Component: module.ProjectSiteRecordsRoute, loader: module.projectSiteRecordsLoader }));
 const projectSection = (slug: string) => () =>
   import('./routes/project-section').then((module) => ({ Component: module.projectSectionRoute(slug) }));
 
@@ -78,6 +80,7 @@ export const router = createBrowserRouter([
                       { path: 'tuning-variants/new', lazy: tuningVariantEdit },
                       { path: 'tuning-variants/:variantId', lazy: tuningVariant },
                       { path: 'tuning-variants/:variantId/edit', lazy: tuningVariantEdit },
+                      { path: 'site-records', lazy: projectSiteRecords },
                       ...projectSections
                         .filter((entry) => !entry.available)
                         .map((entry) => ({ path: entry.slug, lazy: projectSection(entry.slug) })),

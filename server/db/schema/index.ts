@@ -4,3 +4,4 @@ export * from './projects';
 export * from './structural-model';
 export * from './sign-in-attempts';
 export * from './variants';
+export * from './site-records';

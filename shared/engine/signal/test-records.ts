@@ -1,6 +1,6 @@
 /**
- * Synthetic site records with a known frequency and damping, for tests only: a single-DOF oscillator
- * ẍ + 2ζωẋ + ω²x = p(t) integrated exactly for a force held constant over each sample (zero-order hold), and its
+ * Synthetic site records with a known frequency and damping, for tests and the seed's invented demo records: a
+ * single-DOF oscillator ẍ + 2ζωẋ + ω²x = p(t) integrated exactly for a force held constant over each sample (zero-order hold), and its
  * free decay in closed form (Chopra, Dynamics of Structures, ch. 2, from memory).
  */
 import { seededRandom } from '../test-fixtures';

@@ -9,6 +9,8 @@ const ModeShapeChartLazy = lazy(() => import('./mode-shape-chart'));
 const TimeHistoryChartLazy = lazy(() => import('./time-history-chart'));
 const FrequencyResponseChartLazy = lazy(() => import('./frequency-response-chart'));
 const HeatMapChartLazy = lazy(() => import('./heat-map-chart'));
+const SpectrumChartLazy = lazy(() => import('./spectrum-chart'));
+const DecayChartLazy = lazy(() => import('./decay-chart'));
 
 export function ModeShapeChart(props: ComponentProps<typeof ModeShapeChartLazy>) {
   return (
@@ -34,10 +36,26 @@ export function FrequencyResponseChart(props: ComponentProps<typeof FrequencyRes
   );
 }
 
+export function SpectrumChart(props: ComponentProps<typeof SpectrumChartLazy>) {
+  return (
+    <Suspense fallback={<Loading label="Loading the plot…" />}>
+      <SpectrumChartLazy {...props} />
+    </Suspense>
+  );
+}
+
 export function HeatMapChart(props: ComponentProps<typeof HeatMapChartLazy>) {
   return (
     <Suspense fallback={<Loading label="Loading the map…" />}>
       <HeatMapChartLazy {...props} />
+    </Suspense>
+  );
+}
+
+export function DecayChart(props: ComponentProps<typeof DecayChartLazy>) {
+  return (
+    <Suspense fallback={<Loading label="Loading the plot…" />}>
+      <DecayChartLazy {...props} />
     </Suspense>
   );
 }

@@ -51,7 +51,8 @@ export const projectSections: ProjectSection[] = [
   {
     slug: 'site-records',
     label: 'Site records',
-    available: false,
-    purpose: 'Measured acceleration records from site: spectrum, peak frequency and damping, compared with the design.',
+    available: true,
+    purpose:
+      'Measured acceleration records from site: time history, spectrum and decay, frequency and damping ratio compared with the design mode, and the re-tune of the damper.',
   },
 ];
