@@ -21,7 +21,7 @@ const expectedAuthErrors = new Set(['CredentialsSignin', 'JWTSessionError', 'Mis
 
 /** The token's own claims beside `sub` (the user id). */
 const claimsSchema = z.object({ organisationId: z.string(), role: roleSchema });
-/** The person's session generation at sign-in (docs/decisions/0013-session-generation.md). */
+/** The person's session generation at sign-in (docs/decisions/0017-session-generation.md). */
 const generationSchema = z.object({ sessionGeneration: z.number().int() });
 
 export function createAuthConfig(options: { db: Database; secret: string }): ExpressAuthConfig {

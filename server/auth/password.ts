@@ -2,7 +2,7 @@
  * Password hashing with Node's scrypt (RFC 7914), run asynchronously in libuv's thread pool so that a sign-in never
  * holds up the event loop. Stored as `scrypt$<log2 N>$<r>$<p>$<salt, base64>$<key, base64>`. Hashes made by
  * earlier versions with bcrypt are still accepted (bcryptjs's asynchronous compare) and replaced by an scrypt hash
- * at the next successful sign-in. See docs/decisions/0011-password-hashing.md.
+ * at the next successful sign-in. See docs/decisions/0015-password-hashing.md.
  */
 import bcrypt from 'bcryptjs';
 import { randomBytes, scrypt, timingSafeEqual, type ScryptOptions } from 'node:crypto';

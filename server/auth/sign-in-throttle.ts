@@ -67,7 +67,7 @@ function clientAddress(req: Request): string {
  *   gets 429 for that address until the window passes; the rightful owner signing in from elsewhere is not affected;
  * - per client address: after `maxPerClient` attempts within the window (a flood of addresses), that client gets 429.
  * Every attempt is counted before the password is checked, so simultaneous guesses cannot slip past the limit; a
- * successful sign-in clears its pair's count and gives the client's attempt back. See docs/decisions/0012-sign-in-throttle.md.
+ * successful sign-in clears its pair's count and gives the client's attempt back. See docs/decisions/0016-sign-in-throttle.md.
  */
 export function signInThrottle(pool: pg.Pool, options: SignInThrottleOptions = {}): RequestHandler[] {
   const maxPair = options.maxPerAddressAndClient ?? signInThrottleDefaults.maxPerAddressAndClient;

@@ -2,7 +2,7 @@
  * The `calc` command's core, independent of where its commands come from: argument checks, reading the request,
  * schema validation, running the command and the exit code. It imports no command, no schema and no zod, so the
  * launcher (server/cli/calc.mjs) can answer `--help` or an unknown command without loading any of them, and load only
- * the bundle of the one command asked for (docs/decisions/0010-calc-start-up.md).
+ * the bundle of the one command asked for (docs/decisions/0013-calc-start-up.md).
  * Exit 0 with the answer on stdout; exit 2 with `{ "error": { code, message, issues } }` as the last line of stderr
  * for bad input (unknown command, unreadable file, invalid JSON, a request the schema or the mathematics refuses);
  * exit 1 for an internal failure. The same commands and schemas serve POST /api/compute/<command>.

@@ -1,5 +1,5 @@
 #!/usr/bin/env node
-// Launcher of the `calc` command (docs/decisions/0008-calc-launcher.md, 0010-calc-start-up.md). Node 20 cannot run
+// Launcher of the `calc` command (docs/decisions/0008-calc-launcher.md, 0013-calc-start-up.md). Node 20 cannot run
 // TypeScript and a TypeScript loader costs a few hundred milliseconds at every start, so the sources are bundled by
 // esbuild, minified, into .cache/calc/<build>/: a small core (arguments, reading, exit codes; no command, no zod) and,
 // for each module of commands that shared/compute/commands.ts imports, one bundle with that module and the core. A run

@@ -298,7 +298,7 @@ async function seedStructuralModel(tx: Executor, organisationId: string, project
     const [row] = await tx.insert(comfortCriteria).values({ ...createComfortCriteriaSchema.parse(criteria), projectId, createdBy }).returning({ id: comfortCriteria.id });
     criteriaIds.set(criteria.name, row.id);
   }
-  // Tuning variants: stored without a result, which the first read computes (docs/decisions/0011-tuning-variants.md).
+  // Tuning variants: stored without a result, which the first read computes (docs/decisions/0012-tuning-variants.md).
   for (const variant of demo.variants) {
     const input = createVariantSchema.parse({
       name: variant.name,

@@ -31,7 +31,7 @@ export interface RequireUserOptions {
    * 'refuse' (default): when the database cannot be reached, 503 database_unavailable.
    * 'token': for routes that use no stored data (compute), the verified session token stands in for the database
    * read: its role and organisation are those at sign-in, and a session ended by sign-out or a password change is
-   * not noticed until the database is back (docs/decisions/0013-session-generation.md).
+   * not noticed until the database is back (docs/decisions/0017-session-generation.md).
    */
   whenDatabaseDown?: 'refuse' | 'token';
 }

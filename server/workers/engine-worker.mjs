@@ -1,7 +1,7 @@
 // Entry of the engine's worker threads (piscina). Node.js 20 cannot load TypeScript by itself: when the process
 // already runs with a TypeScript loader (`node --import tsx`, inherited by worker threads) the task module is
 // imported directly; otherwise (vitest's workers, a process started without it) tsx's scoped import loads it.
-// See docs/decisions/0010-engine-worker-pool.md.
+// See docs/decisions/0014-engine-worker-pool.md.
 import { URL } from 'node:url';
 
 const taskModule = new URL('./engine-task.ts', import.meta.url).href;

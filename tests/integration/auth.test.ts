@@ -90,7 +90,7 @@ describe('roles are read on every request', () => {
     const before = await signIn(t.app, t.people.owner.email);
     await before.post('/api/projects').send({ name: 'Before promotion', kind: 'floor' }).expect(403);
     await admin.patch(`/api/organisation/members/${t.people.owner.id}`).send({ role: 'engineer' }).expect(200);
-    // The session from before the change has ended (docs/decisions/0013-session-generation.md).
+    // The session from before the change has ended (docs/decisions/0017-session-generation.md).
     expect((await before.get('/api/me').expect(401)).body.error.code).toBe('session_ended');
     const promoted = await signIn(t.app, t.people.owner.email);
     expect((await promoted.get('/api/me').expect(200)).body.role).toBe('engineer');

@@ -16,7 +16,7 @@ export const users = pgTable(
     passwordHash: text(),
     /**
      * Goes up by one when the person signs out, changes their password, gets another role or leaves: a session token
-     * carries the generation it was issued in and is refused once it differs (docs/decisions/0013-session-generation.md).
+     * carries the generation it was issued in and is refused once it differs (docs/decisions/0017-session-generation.md).
      */
     sessionGeneration: integer().notNull().default(0),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),

@@ -2,7 +2,7 @@
  * Tuning variants of a project and the display preferences of a person. A variant points at one of the project's
  * modes, one or more load cases (in order, through `tuning_variant_load_cases`) and one set of comfort criteria; the
  * foreign keys refuse deleting any of them while a variant uses it. Its computed result is stored beside it as jsonb
- * with the hash of the inputs it was computed from and the engine version (docs/decisions/0011-tuning-variants.md).
+ * with the hash of the inputs it was computed from and the engine version (docs/decisions/0012-tuning-variants.md).
  */
 import { sql } from 'drizzle-orm';
 import { check, doublePrecision, index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
