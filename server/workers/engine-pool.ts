@@ -88,7 +88,7 @@ export function createEnginePool(options: EnginePoolOptions): EnginePool {
         throw new HttpError(
           503,
           'compute_timeout',
-          `The computation took longer than ${Math.round(options.taskTimeoutMs / 1000)} s and was stopped: ask for fewer points, factors or dampers`,
+          `The computation took longer than ${Number((options.taskTimeoutMs / 1000).toPrecision(3))} s and was stopped: ask for fewer points, factors or dampers`,
         );
       }
       if (outcome === 'running' && error instanceof Error && error.name === 'AbortError') {
