@@ -136,7 +136,7 @@ describe('a re-tuned variant from a site record', () => {
 
     const fMeasured = bare.analysis.frequencyHz!;
     const mu = 0.02;
-    // Den Hartog, Mechanical Vibrations (4th ed., 1956): optimum damper frequency f_s / (1 + μ) and damping ratio
+    // Den Hartog, Mechanical Vibrations (4th ed., 1956; edition from memory): optimum damper frequency f_s / (1 + μ) and damping ratio
     // √(3μ / (8 (1 + μ))), referred to the damper's own frequency.
     expect(made.tuning).toEqual({ frequencyHz: expect.any(Number), dampingRatio: expect.any(Number) });
     const tuning = made.tuning as { frequencyHz: number; dampingRatio: number };
