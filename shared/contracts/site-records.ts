@@ -94,6 +94,25 @@ export const retuneResponseSchema = z.object({
 });
 export type RetuneResponse = z.infer<typeof retuneResponseSchema>;
 
+/**
+ * POST …/site-records/:siteRecordId/retuned-variant: a new tuning variant, a copy of `variantId` (a variant on the
+ * record's mode, tuned by a method) whose damper is set by hand to what that method gives for the structure as
+ * measured. The answer is the new variant (201). Its result is computed on the design mode as stored: the as-built
+ * damper checked on the design model.
+ */
+export const retunedVariantRequestSchema = z.strictObject({
+  variantId: z.uuid('must be a tuning variant id (UUID)'),
+  /** The new variant's name; by default the original's with the record's file name. */
+  name: z
+    .string({ error: typeError('must be text') })
+    .trim()
+    .min(1, 'must not be empty')
+    .max(120, 'must be at most 120 characters')
+    .refine((value) => !value.includes('\u0000'), 'must not contain a NUL character (\\u0000)')
+    .optional(),
+});
+export type RetunedVariantRequest = z.infer<typeof retunedVariantRequestSchema>;
+
 export const siteRecordComparisonSchema = z.object({
   modeId: z.string(),
   modeLabel: z.string(),

@@ -8,6 +8,7 @@ import { projectParamsSchema } from '../../../shared/contracts/model';
 import { projectEditorRoles, type Role } from '../../../shared/contracts/roles';
 import {
   analyseSiteRecordSchema,
+  retunedVariantRequestSchema,
   retuneRequestSchema,
   SITE_RECORD_MAX_FILE_BYTES,
   siteRecordParamsSchema,
@@ -46,7 +47,7 @@ const receiveFile: RequestHandler = (req, res, next) => {
   });
 };
 
-/** /api/projects/:projectId/site-records: everyone in the organisation reads (and may ask for a re-tune, which stores nothing); uploaders add and analyse again; admins and engineers delete. */
+/** /api/projects/:projectId/site-records: everyone in the organisation reads (and may ask for a re-tune, which stores nothing); uploaders add and analyse again; admins and engineers create a re-tuned variant and delete. */
 export function siteRecordsRouter(ctx: AppContext): Router {
   const router = Router({ mergeParams: true });
   const uploaders = requireRole(...siteRecordUploaderRoles);
@@ -84,6 +85,13 @@ export function siteRecordsRouter(ctx: AppContext): Router {
   router.post('/:siteRecordId/retune', validate({ params: siteRecordParamsSchema, body: retuneRequestSchema }), async (req, res) => {
     const { projectId, siteRecordId } = parsed(siteRecordParamsSchema, req.params);
     res.json(await service.retuneFromSiteRecord(ctx.db, currentUser(req), projectId, siteRecordId, parsed(retuneRequestSchema, req.body)));
+  });
+
+  // A new tuning variant: the variant's damper re-tuned to the measured structure, so only those who change variants.
+  router.post('/:siteRecordId/retuned-variant', editors, validate({ params: siteRecordParamsSchema, body: retunedVariantRequestSchema }), async (req, res) => {
+    const { projectId, siteRecordId } = parsed(siteRecordParamsSchema, req.params);
+    const variant = await service.createRetunedVariant(ctx.db, ctx.enginePool, currentUser(req), projectId, siteRecordId, parsed(retunedVariantRequestSchema, req.body));
+    res.status(201).location(`/api/projects/${projectId}/variants/${variant.id}`).json(variant);
   });
 
   router.delete('/:siteRecordId', editors, validate({ params: siteRecordParamsSchema }), async (req, res) => {

@@ -5,6 +5,7 @@ import { versionConflict } from '../../lib/versioned';
 import type { CurrentUser } from '../../middleware/auth';
 import type {
   AnalyseSiteRecordInput,
+  RetunedVariantRequest,
   RetuneRequest,
   RetuneResponse,
   SiteRecord,
@@ -12,8 +13,11 @@ import type {
   SiteRecordTimeHistory,
   UploadSiteRecordFields,
 } from '../../../shared/contracts/site-records';
+import { createVariantSchema, isManualTuning, type Variant } from '../../../shared/contracts/variants';
 import { EngineInputError } from '../../../shared/engine/linalg';
 import { retuneDamper } from '../../../shared/engine/retune';
+import { findProjectMode, findVariant } from '../variants/variants.repository';
+import { createVariant } from '../variants/variants.service';
 import { findMode, type ModeRow } from '../modes/modes.repository';
 import { findStructure, type ProjectScope } from '../structures/structures.repository';
 import { requireProjectScope } from '../structures/structures.service';
@@ -168,11 +172,8 @@ export async function deleteSiteRecord(db: Database, user: CurrentUser, projectI
   if (!(await repository.deleteSiteRecord(db, scope, id))) throw siteRecordNotFound();
 }
 
-/** The damper frequency the tuning method gives for the structure as measured, and the change to make on site. */
-export async function retuneFromSiteRecord(db: Database, user: CurrentUser, projectId: string, id: string, input: RetuneRequest): Promise<RetuneResponse> {
-  const scope = await requireProjectScope(db, user, projectId);
-  const row = await repository.findSiteRecord(db, scope, id);
-  if (!row) throw siteRecordNotFound();
+/** The record's measured structure, refused (409) when it is not the bare structure or shows no clear mode. */
+function measuredStructure(row: repository.SiteRecordSummaryRow): { frequencyHz: number; dampingRatio: number } {
   if (row.condition === 'with-damper') {
     // With the damper working the record shows the coupled system, not the structure the damper is tuned to.
     throw new HttpError(
@@ -185,6 +186,15 @@ export async function retuneFromSiteRecord(db: Database, user: CurrentUser, proj
   if (frequencyHz === null || dampingRatio === null) {
     throw new HttpError(409, 'no_measured_mode', 'The record shows no clear mode (see its warnings): analyse it again with another band or method before re-tuning');
   }
+  return { frequencyHz, dampingRatio };
+}
+
+/** The damper frequency the tuning method gives for the structure as measured, and the change to make on site. */
+export async function retuneFromSiteRecord(db: Database, user: CurrentUser, projectId: string, id: string, input: RetuneRequest): Promise<RetuneResponse> {
+  const scope = await requireProjectScope(db, user, projectId);
+  const row = await repository.findSiteRecord(db, scope, id);
+  if (!row) throw siteRecordNotFound();
+  const { frequencyHz, dampingRatio } = measuredStructure(row);
   try {
     const result = retuneDamper({ structureFrequencyHz: frequencyHz, structureDampingRatio: dampingRatio, ...input });
     return { siteRecordId: row.id, measured: { frequencyHz, dampingRatio }, ...result };
@@ -192,4 +202,78 @@ export async function retuneFromSiteRecord(db: Database, user: CurrentUser, proj
     if (error instanceof EngineInputError) throw invalidField(error.field, error.message.replace(/^[^:]*:\s*/, ''));
     throw error;
   }
+}
+
+const significant = (value: number, digits = 4) => Number(value.toPrecision(digits)).toString();
+const percent = (ratio: number) => `${significant(ratio * 100, 3)} %`;
+
+/**
+ * A new tuning variant from one on the record's mode: the same load cases, criteria, mass ratio, units, tolerances and
+ * hardware, with the damper set by hand to what the original's method gives for the structure as measured (measured
+ * f and ζ, the original's mass ratio). It is created through the variants' own create path (validated and computed
+ * on the engine pool the same way). Its result is computed on the mode as stored (the design model): the as-built
+ * damper checked on the design model.
+ */
+export async function createRetunedVariant(db: Database, engine: EnginePool, user: CurrentUser, projectId: string, id: string, input: RetunedVariantRequest): Promise<Variant> {
+  const scope = await requireProjectScope(db, user, projectId);
+  const row = await repository.findSiteRecord(db, scope, id);
+  if (!row) throw siteRecordNotFound();
+  if (!row.modeId) {
+    throw new HttpError(409, 'no_design_mode', 'The record names no design mode: a re-tuned variant needs a record of the mode its variant is on');
+  }
+  const measured = measuredStructure(row);
+  const original = await findVariant(db, scope, input.variantId);
+  if (!original) throw invalidField('variantId', 'is not a tuning variant of this project');
+  if (original.row.modeId !== row.modeId) throw invalidField('variantId', 'is on another mode than the site record: choose a variant on the record\'s mode');
+  const tuning = original.row.tuning;
+  if (isManualTuning(tuning)) throw invalidField('variantId', 'is tuned by hand: it names no tuning method to re-tune by');
+  const mode = await findProjectMode(db, scope, original.row.modeId);
+  if (!mode) throw invalidField('variantId', 'is on a mode that is no longer in this project');
+
+  let damper: { frequencyHz: number; dampingRatio: number };
+  try {
+    const retuned = retuneDamper({
+      structureFrequencyHz: measured.frequencyHz,
+      structureDampingRatio: measured.dampingRatio,
+      massRatio: original.row.massRatio,
+      method: tuning.method,
+    });
+    damper = { frequencyHz: retuned.targetFrequencyHz, dampingRatio: retuned.targetDampingRatio };
+  } catch (error) {
+    // Only the measured numbers can be out of the method's range here (the variant's own were checked when stored).
+    if (error instanceof EngineInputError) {
+      throw new HttpError(409, 'measured_out_of_range', `The measured structure cannot be re-tuned by ${tuning.method}: ${error.message}`);
+    }
+    throw error;
+  }
+
+  const shift = measured.frequencyHz / mode.frequencyHz - 1;
+  const covered = Math.abs(shift) <= original.row.structureFrequencyToleranceRatio;
+  const notes = [
+    `Re-tuned from site record ${row.fileName} (${row.measuredAt ? `measured ${row.measuredAt.toISOString()}` : 'no measurement time given'}):`,
+    `measured f = ${significant(measured.frequencyHz)} Hz, ζ = ${percent(measured.dampingRatio)}.`,
+    `Damper by ${tuning.method} at μ = ${significant(original.row.massRatio)} for the measured structure: f = ${significant(damper.frequencyHz)} Hz, ζ = ${percent(damper.dampingRatio)} referred to its own frequency, set by hand;`,
+    `copied from tuning variant "${original.row.name}".`,
+    `The result is computed on the design mode ${mode.label} as stored (f = ${significant(mode.frequencyHz)} Hz, ζ = ${percent(mode.dampingRatio)}):`,
+    `it checks the as-built damper on the design model, not on the structure as measured (frequency ${shift >= 0 ? '+' : ''}${significant(shift * 100, 3)} % from the design;`,
+    covered
+      ? `within the ±${significant(original.row.structureFrequencyToleranceRatio * 100, 3)} % detuning band, so the detuning check spans the measured frequency, with the design damping).`
+      : `outside the ±${significant(original.row.structureFrequencyToleranceRatio * 100, 3)} % detuning band: the check does not reach the measured frequency).`,
+  ].join(' ');
+
+  // The variants' own create schema, so the new variant is checked exactly as one typed in (a bad value is 400 naming its field).
+  const body = createVariantSchema.parse({
+    name: input.name ?? `${original.row.name} re-tuned to ${row.fileName}`.slice(0, 120),
+    modeId: original.row.modeId,
+    loadCaseIds: original.loadCaseIds,
+    criteriaId: original.row.criteriaId,
+    massRatio: original.row.massRatio,
+    tuning: damper,
+    unitCount: original.row.unitCount,
+    structureFrequencyToleranceRatio: original.row.structureFrequencyToleranceRatio,
+    ...(original.row.tmdDampingToleranceRatio === null ? {} : { tmdDampingToleranceRatio: original.row.tmdDampingToleranceRatio }),
+    hardware: original.row.hardware,
+    notes,
+  });
+  return createVariant(db, engine, user, projectId, body);
 }

@@ -8,9 +8,10 @@ import { Notice } from '../../components/ui/notice';
 import { Panel } from '../../components/ui/panel';
 import { QueryError } from '../../components/ui/query-error';
 import { siteRecordsQueryOptions } from '../../features/site-records/api/site-records';
-import { SiteRecordDetails } from '../../features/site-records/components/site-record-details';
+import { SiteRecordDetails, type RetunedVariantOptions } from '../../features/site-records/components/site-record-details';
 import { UploadRecordPanel, type StructureChoice } from '../../features/site-records/components/upload-record-panel';
 import { modesQueryOptions, structuresQueryOptions } from '../../features/structures/api/structures';
+import { variantKeys, variantsQueryOptions } from '../../features/variants/api/variants';
 import { queryClient } from '../../lib/query-client';
 import { useCurrentUser } from '../session';
 import { useProjectContext } from './project-layout';
@@ -34,6 +35,16 @@ export function ProjectSiteRecordsRoute() {
   const modes = useQueries({ queries: (structures.data ?? []).map((s) => modesQueryOptions(project.id, s.id)) });
   const [uploadedId, setUploadedId] = useState<string | null>(null);
   const [openId, setOpenId] = useState<string | null>(null);
+  // Editors may make a re-tuned variant from an open record: the project's variants are read only then.
+  const variants = useQuery({ ...variantsQueryOptions(project.id), enabled: canEdit && openId !== null });
+  const retunedVariant: RetunedVariantOptions | undefined = canEdit
+    ? {
+        choices: variants.data ?? null,
+        error: variants.isError ? variants.error : null,
+        retry: () => void variants.refetch(),
+        onCreated: () => void queryClient.invalidateQueries({ queryKey: variantKeys.all(project.id) }),
+      }
+    : undefined;
 
   const choices: StructureChoice[] = (structures.data ?? []).map((s, i) => ({
     id: s.id,
@@ -95,7 +106,7 @@ export function ProjectSiteRecordsRoute() {
                         {record.analysis.dampingRatio === null ? '' : `, ζ ${(record.analysis.dampingRatio * 100).toPrecision(3)} %`}
                       </span>
                     </button>
-                    {open ? <SiteRecordDetails projectId={project.id} record={record} canAnalyse={canUpload} canDelete={canEdit} /> : null}
+                    {open ? <SiteRecordDetails projectId={project.id} record={record} canAnalyse={canUpload} canDelete={canEdit} retunedVariant={retunedVariant} /> : null}
                   </li>
                 );
               })}

@@ -6,9 +6,11 @@ import {
   siteRecordSchema,
   siteRecordTimeHistorySchema,
   type AnalyseSiteRecordInput,
+  type RetunedVariantRequest,
   type RetuneRequest,
   type SiteRecord,
 } from '../../../../shared/contracts/site-records';
+import { variantSchema } from '../../../../shared/contracts/variants';
 import { ApiError, apiRequest, networkError } from '../../../lib/api-client';
 
 /** Under the project's key, so invalidating the project refreshes its site records too. */
@@ -120,5 +122,13 @@ export function useRetune(projectId: string) {
   return useMutation({
     mutationFn: ({ id, input }: { id: string; input: RetuneRequest }) =>
       apiRequest(`${itemPath(projectId, id)}/retune`, { method: 'POST', body: input, schema: retuneResponseSchema }),
+  });
+}
+
+/** A new tuning variant: the chosen variant with its damper re-tuned to the structure this record measured (the route refreshes the variants). */
+export function useCreateRetunedVariant(projectId: string) {
+  return useMutation({
+    mutationFn: ({ id, input }: { id: string; input: RetunedVariantRequest }) =>
+      apiRequest(`${itemPath(projectId, id)}/retuned-variant`, { method: 'POST', body: input, schema: variantSchema }),
   });
 }

@@ -1,7 +1,9 @@
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
+import { Link } from 'react-router-dom';
 import type { RetuneResponse, SiteRecord } from '../../../../shared/contracts/site-records';
+import { isManualTuning, type Variant, type VariantTuning } from '../../../../shared/contracts/variants';
 import { tuningMethods } from '../../../../shared/engine/types';
 import { DecayChart, SpectrumChart, TimeHistoryChart } from '../../../components/charts/lazy-charts';
 import { Badge } from '../../../components/ui/badge';
@@ -13,7 +15,7 @@ import { QueryError } from '../../../components/ui/query-error';
 import { Table, Td, Th } from '../../../components/ui/table';
 import { describeError, issueMessage, issuesFor } from '../../../lib/api-client';
 import { formatDateTime, formatNumber, formatPercent, formatQuantity } from '../../../lib/format';
-import { siteRecordTimeHistoryQueryOptions, useAnalyseSiteRecord, useDeleteSiteRecord, useRetune } from '../api/site-records';
+import { siteRecordTimeHistoryQueryOptions, useAnalyseSiteRecord, useCreateRetunedVariant, useDeleteSiteRecord, useRetune } from '../api/site-records';
 import { conditionLabels, methodLabels, tuningMethodLabels } from './labels';
 
 const orDash = (value: number | null | undefined, show: (v: number) => string) => (value === null || value === undefined ? '—' : show(value));
@@ -179,6 +181,89 @@ function RetuneForm({ projectId, record }: { projectId: string; record: SiteReco
   );
 }
 
+/** A tuning variant the re-tuned variant may copy (the route reads the project's variants). */
+export interface RetuneVariantChoice {
+  id: string;
+  name: string;
+  modeId: string;
+  tuning: VariantTuning;
+}
+
+/** What the route gives an editor's record panel for a re-tuned variant. */
+export interface RetunedVariantOptions {
+  /** The project's variants; null while they load. */
+  choices: RetuneVariantChoice[] | null;
+  error: unknown;
+  retry: () => void;
+  /** Called with the new variant (the route refreshes the variants). */
+  onCreated: (variant: Variant) => void;
+}
+
+/** Editors: a new tuning variant, a copy of one on the record's mode with its damper re-tuned to the measured structure. */
+function RetunedVariantForm({ projectId, record, options }: { projectId: string; record: SiteRecord; options: RetunedVariantOptions }) {
+  const create = useCreateRetunedVariant(projectId);
+  const [made, setMade] = useState<Variant | null>(null);
+  const form = useForm({ defaultValues: { variantId: '', name: '' } });
+  const onMode = (options.choices ?? []).filter((variant) => variant.modeId === record.modeId);
+  const submit = form.handleSubmit(async (values) => {
+    try {
+      const variant = await create.mutateAsync({ id: record.id, input: { variantId: values.variantId, name: values.name.trim() === '' ? undefined : values.name } });
+      setMade(variant);
+      options.onCreated(variant);
+    } catch {
+      setMade(null);
+    }
+  });
+  if (options.error) return <QueryError error={options.error} retry={options.retry} what="the tuning variants" />;
+  if (options.choices === null) return <Loading label="Loading the tuning variants…" />;
+  const modeLabel = record.comparison?.modeLabel ?? 'this record’s mode';
+  return (
+    <div className="flex flex-col gap-3">
+      <p className="text-small text-ink-soft">
+        A new variant copying a variant on {modeLabel} (load cases, criteria, mass ratio, units, tolerances, hardware), with its damper set by hand to what the variant’s tuning
+        method gives for the structure as measured here. Its result is computed on the design mode as stored: it checks the as-built damper on the design model, not on
+        the structure as measured. The original variant is left as it is.
+      </p>
+      {onMode.length === 0 ? (
+        <p className="text-small text-ink-muted">No tuning variant is on {modeLabel} yet.</p>
+      ) : (
+        <form className="flex flex-col gap-3" onSubmit={(event) => void submit(event)} aria-label="Create a re-tuned variant" noValidate>
+          <div className="grid gap-3 sm:grid-cols-2">
+            <SelectField label="Variant to re-tune" error={firstIssue(create.error, 'variantId')} {...form.register('variantId', { required: true })}>
+              <option value="">Choose a variant</option>
+              {onMode.map((variant) => (
+                <option key={variant.id} value={variant.id} disabled={isManualTuning(variant.tuning)}>
+                  {variant.name}
+                  {isManualTuning(variant.tuning) ? ' (tuned by hand: no method to re-tune by)' : ` (${tuningMethodLabels[variant.tuning.method] ?? variant.tuning.method})`}
+                </option>
+              ))}
+            </SelectField>
+            <TextField label="Name of the new variant" optional error={firstIssue(create.error, 'name')} {...form.register('name')} />
+          </div>
+          {form.formState.errors.variantId ? <p className="text-caption text-signal-error">Choose the variant to re-tune.</p> : null}
+          {create.isError && !firstIssue(create.error, 'variantId') && !firstIssue(create.error, 'name') ? <Notice tone="error">{describeError(create.error)}</Notice> : null}
+          <div>
+            <Button type="submit" tone="secondary" busy={create.isPending}>
+              Create a re-tuned variant
+            </Button>
+          </div>
+        </form>
+      )}
+      {made ? (
+        <Notice tone="success" title="Re-tuned variant created">
+          <p>
+            <Link to={`/projects/${projectId}/tuning-variants/${made.id}`} className="font-medium underline underline-offset-4">
+              {made.name}
+            </Link>
+            {isManualTuning(made.tuning) ? `: damper ${formatQuantity(made.tuning.frequencyHz, 'Hz')}, ζ ${formatPercent(made.tuning.dampingRatio)} (referred to its own frequency), set by hand` : ''}. Its
+            result is computed on the design mode as stored: the as-built damper on the design model.
+          </p>
+        </Notice>
+      ) : null}
+    </div>
+  );
+}
+
 function Plots({ projectId, record }: { projectId: string; record: SiteRecord }) {
   const history = useQuery(siteRecordTimeHistoryQueryOptions(projectId, record.id, record.version));
   const a = record.analysis;
@@ -220,8 +305,21 @@ function Plots({ projectId, record }: { projectId: string; record: SiteRecord })
   );
 }
 
-/** One record: what the analysis found, the plots, the comparison with the design mode, and (for those allowed) a new analysis, the re-tune and deletion. */
-export function SiteRecordDetails({ projectId, record, canAnalyse, canDelete }: { projectId: string; record: SiteRecord; canAnalyse: boolean; canDelete: boolean }) {
+/** One record: what the analysis found, the plots, the comparison with the design mode, and (for those allowed) a new analysis, the re-tune, a re-tuned variant and deletion. */
+export function SiteRecordDetails({
+  projectId,
+  record,
+  canAnalyse,
+  canDelete,
+  retunedVariant,
+}: {
+  projectId: string;
+  record: SiteRecord;
+  canAnalyse: boolean;
+  canDelete: boolean;
+  /** Only for admins and engineers: a re-tuned variant from this record. */
+  retunedVariant?: RetunedVariantOptions;
+}) {
   const remove = useDeleteSiteRecord(projectId);
   const [confirming, setConfirming] = useState(false);
   const a = record.analysis;
@@ -275,6 +373,12 @@ export function SiteRecordDetails({ projectId, record, canAnalyse, canDelete }: 
         <section aria-label="Re-tune" className="flex flex-col gap-2">
           <h4 className="text-small font-semibold text-ink-soft">Re-tune the damper to the measured structure</h4>
           <RetuneForm projectId={projectId} record={record} />
+        </section>
+      ) : null}
+      {retunedVariant && record.modeId && a.frequencyHz !== null && a.dampingRatio !== null && record.condition !== 'with-damper' ? (
+        <section aria-label="Re-tuned variant" className="flex flex-col gap-2">
+          <h4 className="text-small font-semibold text-ink-soft">Create a re-tuned variant</h4>
+          <RetunedVariantForm projectId={projectId} record={record} options={retunedVariant} />
         </section>
       ) : null}
       {canDelete ? (
