@@ -1,8 +1,9 @@
 import { useState } from 'react';
 import type { ComfortCriteria } from '../../../../shared/contracts';
 import { Badge } from '../../../components/ui/badge';
-import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
+import { RecordCard } from '../../../components/ui/record-card';
+import { RemoveControl } from '../../../components/ui/remove-control';
 import { describeError } from '../../../lib/api-client';
 import { useDeleteComfortCriteria } from '../api/comfort-criteria';
 import { criteriaTitle, describeCriteria } from './criteria-info';
@@ -27,36 +28,28 @@ export function CriteriaList({ projectId, criteria, canEdit }: { projectId: stri
       ) : null}
       <ul aria-label="Comfort criteria" className="flex flex-col gap-4">
         {criteria.map((entry) => (
-          <li key={entry.id} className="flex flex-col gap-3 rounded-plate border border-paper-line bg-paper-raised p-4">
-            <div className="flex flex-wrap items-start justify-between gap-3">
-              <div className="flex flex-col gap-1">
-                <div className="flex flex-wrap items-center gap-2">
-                  <h3 className="text-body font-semibold text-ink">{entry.name}</h3>
-                  <Badge tone={entry.status === 'approved' ? 'tide' : 'ember'}>{statusLabels[entry.status]}</Badge>
-                </div>
-                <p className="text-small text-ink-soft">{criteriaTitle(entry.spec)}</p>
-              </div>
-              {canEdit && entry.status === 'draft' ? (
-                confirming === entry.id ? (
-                  <span className="flex gap-2">
-                    <Button tone="danger" busy={deleteCriteria.isPending} onClick={() => deleteCriteria.mutate(entry.id, { onSettled: () => setConfirming(null) })}>
-                      Remove
-                    </Button>
-                    <Button tone="quiet" onClick={() => setConfirming(null)}>
-                      Keep
-                    </Button>
-                  </span>
-                ) : (
-                  <Button tone="quiet" aria-label={`Remove comfort criteria ${entry.name}`} onClick={() => setConfirming(entry.id)}>
-                    Remove…
-                  </Button>
-                )
-              ) : null}
-            </div>
+          <RecordCard
+            key={entry.id}
+            name={entry.name}
+            badge={<Badge tone={entry.status === 'approved' ? 'tide' : 'ember'}>{statusLabels[entry.status]}</Badge>}
+            summary={criteriaTitle(entry.spec)}
+            actions={
+              canEdit && entry.status === 'draft' ? (
+                <RemoveControl
+                  label={`Remove comfort criteria ${entry.name}`}
+                  confirming={confirming === entry.id}
+                  busy={deleteCriteria.isPending}
+                  onAsk={() => setConfirming(entry.id)}
+                  onRemove={() => deleteCriteria.mutate(entry.id, { onSettled: () => setConfirming(null) })}
+                  onKeep={() => setConfirming(null)}
+                />
+              ) : null
+            }
+          >
             <div className="text-small text-ink">
               <LimitLines lines={describeCriteria(entry.spec)} />
             </div>
-          </li>
+          </RecordCard>
         ))}
       </ul>
     </div>

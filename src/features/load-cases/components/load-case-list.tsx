@@ -1,8 +1,9 @@
 import { useState } from 'react';
 import type { SavedLoadCase } from '../../../../shared/contracts';
 import { Badge } from '../../../components/ui/badge';
-import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
+import { RecordCard } from '../../../components/ui/record-card';
+import { RemoveControl } from '../../../components/ui/remove-control';
 import { describeError } from '../../../lib/api-client';
 import { useDeleteLoadCase } from '../api/load-cases';
 import { describeLoadCase, loadCaseKindShort, summariseLoadCase } from './load-case-info';
@@ -20,34 +21,26 @@ export function LoadCaseList({ projectId, loadCases, canEdit }: { projectId: str
       ) : null}
       <ul aria-label="Load cases" className="flex flex-col gap-4">
         {loadCases.map((loadCase) => (
-          <li key={loadCase.id} className="flex flex-col gap-3 rounded-plate border border-paper-line bg-paper-raised p-4">
-            <div className="flex flex-wrap items-start justify-between gap-3">
-              <div className="flex flex-col gap-1">
-                <div className="flex flex-wrap items-center gap-2">
-                  <h3 className="text-body font-semibold text-ink">{loadCase.name}</h3>
-                  <Badge tone="tide">{loadCaseKindShort[loadCase.spec.kind]}</Badge>
-                </div>
-                <p className="text-small text-ink-soft">{summariseLoadCase(loadCase.spec)}</p>
-              </div>
-              {canEdit ? (
-                confirming === loadCase.id ? (
-                  <span className="flex gap-2">
-                    <Button tone="danger" busy={deleteLoadCase.isPending} onClick={() => deleteLoadCase.mutate(loadCase.id, { onSettled: () => setConfirming(null) })}>
-                      Remove
-                    </Button>
-                    <Button tone="quiet" onClick={() => setConfirming(null)}>
-                      Keep
-                    </Button>
-                  </span>
-                ) : (
-                  <Button tone="quiet" aria-label={`Remove load case ${loadCase.name}`} onClick={() => setConfirming(loadCase.id)}>
-                    Remove…
-                  </Button>
-                )
-              ) : null}
-            </div>
+          <RecordCard
+            key={loadCase.id}
+            name={loadCase.name}
+            badge={<Badge tone="tide">{loadCaseKindShort[loadCase.spec.kind]}</Badge>}
+            summary={summariseLoadCase(loadCase.spec)}
+            actions={
+              canEdit ? (
+                <RemoveControl
+                  label={`Remove load case ${loadCase.name}`}
+                  confirming={confirming === loadCase.id}
+                  busy={deleteLoadCase.isPending}
+                  onAsk={() => setConfirming(loadCase.id)}
+                  onRemove={() => deleteLoadCase.mutate(loadCase.id, { onSettled: () => setConfirming(null) })}
+                  onKeep={() => setConfirming(null)}
+                />
+              ) : null
+            }
+          >
             <LoadCaseInfoBox info={describeLoadCase(loadCase.spec)} />
-          </li>
+          </RecordCard>
         ))}
       </ul>
     </div>

@@ -1,8 +1,8 @@
 import { useState } from 'react';
 import type { LumpedModel, SavedMode } from '../../../../shared/contracts';
 import { Badge } from '../../../components/ui/badge';
-import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
+import { RemoveControl } from '../../../components/ui/remove-control';
 import { Table, Td, Th } from '../../../components/ui/table';
 import { Unit } from '../../../components/ui/unit';
 import { describeError } from '../../../lib/api-client';
@@ -63,20 +63,15 @@ export function ModesTable({ projectId, structureId, modes, models, canEdit }: M
               </Td>
               {canEdit ? (
                 <Td className="text-right">
-                  {confirming === mode.id ? (
-                    <span className="flex justify-end gap-2">
-                      <Button tone="danger" busy={deleteMode.isPending} onClick={() => deleteMode.mutate(mode.id, { onSettled: () => setConfirming(null) })}>
-                        Remove
-                      </Button>
-                      <Button tone="quiet" onClick={() => setConfirming(null)}>
-                        Keep
-                      </Button>
-                    </span>
-                  ) : (
-                    <Button tone="quiet" aria-label={`Remove mode ${mode.label}`} onClick={() => setConfirming(mode.id)}>
-                      Remove…
-                    </Button>
-                  )}
+                  <RemoveControl
+                    label={`Remove mode ${mode.label}`}
+                    confirming={confirming === mode.id}
+                    busy={deleteMode.isPending}
+                    onAsk={() => setConfirming(mode.id)}
+                    onRemove={() => deleteMode.mutate(mode.id, { onSettled: () => setConfirming(null) })}
+                    onKeep={() => setConfirming(null)}
+                    className="flex justify-end gap-2"
+                  />
                 </Td>
               ) : null}
             </tr>
