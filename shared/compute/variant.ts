@@ -36,7 +36,7 @@ import {
   type VariantTmd,
   type VariantTuning,
 } from '../contracts/variants';
-import { tuningRatios, worstPeakOverStructureFrequencies } from '../engine/sizing';
+import { illinoisOnLogMassRatio, tuningRatios, worstPeakOverStructureFrequencies } from '../engine/sizing';
 import { buildLoadEnvelope, type LoadEnvelope, type SteadyLoadCase } from '../engine/loads/load-envelope';
 import { findEnvelopePeak, maximiseContinuous } from '../engine/loads/response-envelope';
 import { createModeTmdPoint, createModeTmdSystem, evaluateModeTmdSystem, evaluateStructureAccelerationPerN } from '../engine/response';
@@ -374,8 +374,6 @@ export function computeVariantResult(input: VariantComputeInput): VariantComputa
 
 /** Smallest mass ratio the search tries. */
 const MIN_SIZE_MASS_RATIO = 1e-3;
-/** Bracket width at which the search stops, in ln μ (0.2 % in μ, as the engine's `size`). */
-const SIZE_BRACKET_TOLERANCE = Math.log(1.002);
 
 interface SizeTrial {
   mu: number;
@@ -427,36 +425,9 @@ export function computeVariantSize(input: VariantComputeInput): Omit<VariantSize
     const message = `massRatio: no damper up to a mass ratio of ${(100 * MAX_VARIANT_MASS_RATIO).toFixed(0)} % tuned by ${tuning.method} meets the criteria over the detuning band (worst utilisation ${top.detuning.worstUtilisation.toPrecision(4)} at that mass ratio, load case ${top.detuning.loadCaseId})`;
     throw new ComputeInputError(message, [{ path: 'massRatio', message }]);
   }
-  let found = top;
   const bottom = trial(MIN_SIZE_MASS_RATIO);
-  if (bottom.detuning.worstUtilisation <= 1) {
-    found = bottom;
-  } else {
-    let xLo = Math.log(bottom.mu);
-    let xHi = Math.log(top.mu);
-    let hLo = Math.log(bottom.detuning.worstUtilisation);
-    let hHi = Math.log(top.detuning.worstUtilisation);
-    let side = 0;
-    for (let iteration = 0; iteration < 100 && xHi - xLo > SIZE_BRACKET_TOLERANCE; iteration++) {
-      let x = (xLo * hHi - xHi * hLo) / (hHi - hLo);
-      x = Math.min(Math.max(x, xLo + 0.25 * SIZE_BRACKET_TOLERANCE), xHi - 0.25 * SIZE_BRACKET_TOLERANCE);
-      if (!(x > xLo && x < xHi)) x = 0.5 * (xLo + xHi);
-      const t = trial(Math.exp(x));
-      const h = Math.log(t.detuning.worstUtilisation);
-      if (h > 0) {
-        xLo = x;
-        hLo = h;
-        if (side === -1) hHi /= 2;
-        side = -1;
-      } else {
-        xHi = x;
-        hHi = h;
-        found = t;
-        if (side === 1) hLo /= 2;
-        side = 1;
-      }
-    }
-  }
+  const found =
+    bottom.detuning.worstUtilisation <= 1 ? bottom : illinoisOnLogMassRatio(trial, (t) => t.detuning.worstUtilisation, bottom, top);
   warnings.push(...massRatioWarnings(found.mu));
   return {
     ...base,

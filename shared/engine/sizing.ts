@@ -93,22 +93,23 @@ const proxyMethods: Partial<Record<TuningMethod, TuningMethod>> = { hinf: 'ioi-i
 const bracketTolerance = Math.log(1.002);
 
 /**
- * Illinois regula falsi on h(x) = ln(worst / limit), x = ln μ, between an infeasible `lo` (h > 0) and a feasible
- * `hi` (h ≤ 0); returns the feasible end once the bracket is within 0.2 % in μ.
+ * Illinois regula falsi on h(x) = ln(excess(trial)), x = ln μ, between an infeasible `lo` (h > 0) and a feasible
+ * `hi` (h ≤ 0); returns the last feasible trial once the bracket is within 0.2 % in μ. `excess` is the worst
+ * response over its limit (feasible at 1 or less).
  */
-function illinois(worstFor: (mu: number) => Trial, limit: number, lo: Trial, hi: Trial): Trial {
+export function illinoisOnLogMassRatio<T extends { mu: number }>(trialAt: (mu: number) => T, excess: (trial: T) => number, lo: T, hi: T): T {
   let xLo = Math.log(lo.mu);
   let xHi = Math.log(hi.mu);
-  let hLo = Math.log(lo.value / limit);
-  let hHi = Math.log(hi.value / limit);
+  let hLo = Math.log(excess(lo));
+  let hHi = Math.log(excess(hi));
   let best = hi;
   let side = 0;
   for (let iteration = 0; iteration < 100 && xHi - xLo > bracketTolerance; iteration++) {
     let x = (xLo * hHi - xHi * hLo) / (hHi - hLo);
     x = Math.min(Math.max(x, xLo + 0.25 * bracketTolerance), xHi - 0.25 * bracketTolerance);
     if (!(x > xLo && x < xHi)) x = 0.5 * (xLo + xHi);
-    const trial = worstFor(Math.exp(x));
-    const h = Math.log(trial.value / limit);
+    const trial = trialAt(Math.exp(x));
+    const h = Math.log(excess(trial));
     if (h > 0) {
       xLo = x;
       hLo = h;
@@ -123,6 +124,10 @@ function illinois(worstFor: (mu: number) => Trial, limit: number, lo: Trial, hi:
     }
   }
   return best;
+}
+
+function illinois(worstFor: (mu: number) => Trial, limit: number, lo: Trial, hi: Trial): Trial {
+  return illinoisOnLogMassRatio(worstFor, (trial) => trial.value / limit, lo, hi);
 }
 
 function findMassRatio(worstFor: (mu: number) => Trial, limit: number, minMassRatio: number, feasibleTop: Trial): Trial {
