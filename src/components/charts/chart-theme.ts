@@ -29,3 +29,17 @@ export function formatTick(value: number): string {
   if (magnitude < 1e-3 || magnitude >= 1e5) return value.toExponential(1);
   return Number(value.toPrecision(3)).toString();
 }
+
+/** Options every line plot shares: it fills its box and draws at once. */
+export const plotBaseOptions = { responsive: true, maintainAspectRatio: false, animation: false } as const;
+
+/** The legend of a line plot: below the plot, short swatches. */
+export const bottomLegend = { position: 'bottom', labels: { boxWidth: 24 } } as const;
+
+/** An axis title. */
+export function axisTitle(text: string) {
+  return { display: true, text };
+}
+
+/** Axis ticks written by `formatTick`. */
+export const numberTicks = { callback: (value: string | number) => formatTick(Number(value)) };

@@ -1,6 +1,7 @@
 import { Line } from 'react-chartjs-2';
 import type { Plugin } from 'chart.js';
-import { formatTick, seriesStyle } from './chart-theme';
+import { ChartFigure } from './chart-figure';
+import { axisTitle, bottomLegend, formatTick, numberTicks, plotBaseOptions, seriesStyle } from './chart-theme';
 
 export interface FrequencySeries {
   label: string;
@@ -79,66 +80,61 @@ export default function FrequencyResponseChart({
   let top = limit ? limit.value : 0;
   for (const entry of series) for (let i = 0; i < entry.values.length; i++) if (entry.values[i] > top) top = entry.values[i];
   return (
-    <figure className="flex flex-col gap-2">
-      <div className={`relative w-full ${height === 'tall' ? 'h-80' : 'h-60'}`}>
-        <Line
-          role="img"
-          aria-label={description}
-          plugins={[overlays]}
-          data={{
-            datasets: series.map((entry, index) => {
-              const style = seriesStyle(entry.colourIndex ?? index);
-              const xs = entry.frequenciesHz ?? frequenciesHz;
-              return {
-                label: entry.label,
-                data: Array.from({ length: xs.length }, (_, i) => ({ x: xs[i], y: entry.values[i] })),
-                ...style,
-                borderColor: entry.muted ? '#8b94a1' : style.borderColor,
-                backgroundColor: entry.muted ? '#8b94a1' : style.backgroundColor,
-                borderDash: entry.muted ? [3, 3] : style.borderDash,
-                borderWidth: entry.muted ? 1.25 : 2.25,
-                pointRadius: 0,
-                tension: 0,
-              };
-            }),
-          }}
-          options={{
-            responsive: true,
-            maintainAspectRatio: false,
-            animation: false,
-            parsing: false,
-            normalized: true,
-            interaction: { mode: 'nearest', axis: 'x', intersect: false },
-            plugins: {
-              // Chart.js types know no options of our own plugin id.
-              ...({ stillspanResponseOverlays: { bands: bandsHz ?? [], limit: limit ?? null } } as object),
-              legend: { position: 'bottom', labels: { boxWidth: 24 } },
-              tooltip: {
-                callbacks: {
-                  title: (items) => (items[0] ? `${formatTick(items[0].parsed.x ?? 0)} Hz` : ''),
-                  label: (item) => `${item.dataset.label}: ${formatTick(item.parsed.y ?? 0)}`,
-                },
+    <ChartFigure description={description} heightClass={height === 'tall' ? 'h-80' : 'h-60'}>
+      <Line
+        role="img"
+        aria-label={description}
+        plugins={[overlays]}
+        data={{
+          datasets: series.map((entry, index) => {
+            const style = seriesStyle(entry.colourIndex ?? index);
+            const xs = entry.frequenciesHz ?? frequenciesHz;
+            return {
+              label: entry.label,
+              data: Array.from({ length: xs.length }, (_, i) => ({ x: xs[i], y: entry.values[i] })),
+              ...style,
+              borderColor: entry.muted ? '#8b94a1' : style.borderColor,
+              backgroundColor: entry.muted ? '#8b94a1' : style.backgroundColor,
+              borderDash: entry.muted ? [3, 3] : style.borderDash,
+              borderWidth: entry.muted ? 1.25 : 2.25,
+              pointRadius: 0,
+              tension: 0,
+            };
+          }),
+        }}
+        options={{
+          ...plotBaseOptions,
+          parsing: false,
+          normalized: true,
+          interaction: { mode: 'nearest', axis: 'x', intersect: false },
+          plugins: {
+            // Chart.js types know no options of our own plugin id.
+            ...({ stillspanResponseOverlays: { bands: bandsHz ?? [], limit: limit ?? null } } as object),
+            legend: bottomLegend,
+            tooltip: {
+              callbacks: {
+                title: (items) => (items[0] ? `${formatTick(items[0].parsed.x ?? 0)} Hz` : ''),
+                label: (item) => `${item.dataset.label}: ${formatTick(item.parsed.y ?? 0)}`,
               },
             },
-            scales: {
-              x: {
-                type: 'linear',
-                min: frequenciesHz.length ? frequenciesHz[0] : undefined,
-                max: frequenciesHz.length ? frequenciesHz[frequenciesHz.length - 1] : undefined,
-                title: { display: true, text: 'frequency [Hz]' },
-                ticks: { callback: (value) => formatTick(Number(value)) },
-              },
-              y: {
-                min: 0,
-                suggestedMax: top * 1.08,
-                title: { display: true, text: valueAxisLabel },
-                ticks: { callback: (value) => formatTick(Number(value)) },
-              },
+          },
+          scales: {
+            x: {
+              type: 'linear',
+              min: frequenciesHz.length ? frequenciesHz[0] : undefined,
+              max: frequenciesHz.length ? frequenciesHz[frequenciesHz.length - 1] : undefined,
+              title: axisTitle('frequency [Hz]'),
+              ticks: numberTicks,
             },
-          }}
-        />
-      </div>
-      <figcaption className="text-caption text-ink-muted">{description}</figcaption>
-    </figure>
+            y: {
+              min: 0,
+              suggestedMax: top * 1.08,
+              title: axisTitle(valueAxisLabel),
+              ticks: numberTicks,
+            },
+          },
+        }}
+      />
+    </ChartFigure>
   );
 }

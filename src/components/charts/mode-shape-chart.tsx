@@ -1,5 +1,6 @@
 import { Line } from 'react-chartjs-2';
-import { formatTick, seriesStyle } from './chart-theme';
+import { ChartFigure } from './chart-figure';
+import { axisTitle, bottomLegend, formatTick, numberTicks, plotBaseOptions, seriesStyle } from './chart-theme';
 
 export interface ModeShapeSeries {
   label: string;
@@ -20,44 +21,39 @@ interface ModeShapeChartProps {
 /** Mode shapes plotted over the degrees of freedom, each scaled to 1 at its largest entry. */
 export default function ModeShapeChart({ dofLabels, modes, description, fromGround = false }: ModeShapeChartProps) {
   return (
-    <figure className="flex flex-col gap-2">
-      <div className="relative h-72 w-full">
-        <Line
-          role="img"
-          aria-label={description}
-          data={{
-            labels: fromGround ? ['ground', ...dofLabels] : [...dofLabels],
-            datasets: modes.map((mode, index) => ({
-              label: mode.label,
-              data: fromGround ? [0, ...mode.shape] : [...mode.shape],
-              ...seriesStyle(index),
-              borderWidth: 2,
-              pointRadius: 4,
-              tension: 0,
-            })),
-          }}
-          options={{
-            responsive: true,
-            maintainAspectRatio: false,
-            animation: false,
-            interaction: { mode: 'index', intersect: false },
-            plugins: {
-              legend: { position: 'bottom', labels: { boxWidth: 24 } },
-              tooltip: { callbacks: { label: (item) => `${item.dataset.label}: ${formatTick(item.parsed.y ?? 0)}` } },
+    <ChartFigure description={description}>
+      <Line
+        role="img"
+        aria-label={description}
+        data={{
+          labels: fromGround ? ['ground', ...dofLabels] : [...dofLabels],
+          datasets: modes.map((mode, index) => ({
+            label: mode.label,
+            data: fromGround ? [0, ...mode.shape] : [...mode.shape],
+            ...seriesStyle(index),
+            borderWidth: 2,
+            pointRadius: 4,
+            tension: 0,
+          })),
+        }}
+        options={{
+          ...plotBaseOptions,
+          interaction: { mode: 'index', intersect: false },
+          plugins: {
+            legend: bottomLegend,
+            tooltip: { callbacks: { label: (item) => `${item.dataset.label}: ${formatTick(item.parsed.y ?? 0)}` } },
+          },
+          scales: {
+            x: { title: axisTitle('degree of freedom') },
+            y: {
+              min: -1.1,
+              max: 1.1,
+              title: axisTitle('mode shape [–]'),
+              ticks: numberTicks,
             },
-            scales: {
-              x: { title: { display: true, text: 'degree of freedom' } },
-              y: {
-                min: -1.1,
-                max: 1.1,
-                title: { display: true, text: 'mode shape [–]' },
-                ticks: { callback: (value) => formatTick(Number(value)) },
-              },
-            },
-          }}
-        />
-      </div>
-      <figcaption className="text-caption text-ink-muted">{description}</figcaption>
-    </figure>
+          },
+        }}
+      />
+    </ChartFigure>
   );
 }

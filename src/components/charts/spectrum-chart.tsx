@@ -1,6 +1,7 @@
 import { Chart, LogarithmicScale, ScatterController } from 'chart.js';
 import { Line } from 'react-chartjs-2';
-import { formatTick, seriesStyle } from './chart-theme';
+import { ChartFigure } from './chart-figure';
+import { axisTitle, bottomLegend, formatTick, numberTicks, plotBaseOptions, seriesStyle } from './chart-theme';
 
 Chart.register(LogarithmicScale, ScatterController);
 
@@ -26,35 +27,30 @@ export default function SpectrumChart({ frequencyHz, psd, fit, peak, description
       : []),
   ];
   return (
-    <figure className="flex flex-col gap-2">
-      <div className="relative h-72 w-full">
-        <Line
-          role="img"
-          aria-label={description}
-          data={{ datasets }}
-          options={{
-            responsive: true,
-            maintainAspectRatio: false,
-            animation: false,
-            parsing: false,
-            interaction: { mode: 'nearest', axis: 'x', intersect: false },
-            plugins: {
-              legend: { position: 'bottom', labels: { boxWidth: 24 } },
-              tooltip: {
-                callbacks: {
-                  title: (items) => (items[0] ? `${formatTick(items[0].parsed.x ?? 0)} Hz` : ''),
-                  label: (item) => `${item.dataset.label}: ${formatTick(item.parsed.y ?? 0)} (m/s²)²/Hz`,
-                },
+    <ChartFigure description={description}>
+      <Line
+        role="img"
+        aria-label={description}
+        data={{ datasets }}
+        options={{
+          ...plotBaseOptions,
+          parsing: false,
+          interaction: { mode: 'nearest', axis: 'x', intersect: false },
+          plugins: {
+            legend: bottomLegend,
+            tooltip: {
+              callbacks: {
+                title: (items) => (items[0] ? `${formatTick(items[0].parsed.x ?? 0)} Hz` : ''),
+                label: (item) => `${item.dataset.label}: ${formatTick(item.parsed.y ?? 0)} (m/s²)²/Hz`,
               },
             },
-            scales: {
-              x: { type: 'linear', title: { display: true, text: 'frequency [Hz]' }, ticks: { callback: (value) => formatTick(Number(value)) } },
-              y: { type: 'logarithmic', title: { display: true, text: 'PSD [(m/s²)²/Hz]' }, ticks: { callback: (value) => formatTick(Number(value)) } },
-            },
-          }}
-        />
-      </div>
-      <figcaption className="text-caption text-ink-muted">{description}</figcaption>
-    </figure>
+          },
+          scales: {
+            x: { type: 'linear', title: axisTitle('frequency [Hz]'), ticks: numberTicks },
+            y: { type: 'logarithmic', title: axisTitle('PSD [(m/s²)²/Hz]'), ticks: numberTicks },
+          },
+        }}
+      />
+    </ChartFigure>
   );
 }

@@ -1,5 +1,6 @@
 import { Line } from 'react-chartjs-2';
-import { formatTick, seriesStyle } from './chart-theme';
+import { ChartFigure } from './chart-figure';
+import { axisTitle, bottomLegend, formatTick, numberTicks, plotBaseOptions, seriesStyle } from './chart-theme';
 
 export interface TimeHistorySeries {
   label: string;
@@ -18,49 +19,44 @@ interface TimeHistoryChartProps {
 /** Time histories of several quantities over one time axis in seconds. */
 export default function TimeHistoryChart({ timesS, series, valueAxisLabel, description }: TimeHistoryChartProps) {
   return (
-    <figure className="flex flex-col gap-2">
-      <div className="relative h-72 w-full">
-        <Line
-          role="img"
-          aria-label={description}
-          data={{
-            datasets: series.map((entry, index) => ({
-              label: entry.label,
-              data: Array.from({ length: timesS.length }, (_, i) => ({ x: timesS[i], y: entry.values[i] })),
-              ...seriesStyle(index),
-              borderWidth: 1.75,
-              pointRadius: 0,
-              tension: 0,
-            })),
-          }}
-          options={{
-            responsive: true,
-            maintainAspectRatio: false,
-            animation: false,
-            parsing: false,
-            normalized: true,
-            interaction: { mode: 'nearest', axis: 'x', intersect: false },
-            plugins: {
-              legend: { position: 'bottom', labels: { boxWidth: 24 } },
-              tooltip: {
-                callbacks: {
-                  title: (items) => (items[0] ? `t = ${formatTick(items[0].parsed.x ?? 0)} s` : ''),
-                  label: (item) => `${item.dataset.label}: ${formatTick(item.parsed.y ?? 0)}`,
-                },
+    <ChartFigure description={description}>
+      <Line
+        role="img"
+        aria-label={description}
+        data={{
+          datasets: series.map((entry, index) => ({
+            label: entry.label,
+            data: Array.from({ length: timesS.length }, (_, i) => ({ x: timesS[i], y: entry.values[i] })),
+            ...seriesStyle(index),
+            borderWidth: 1.75,
+            pointRadius: 0,
+            tension: 0,
+          })),
+        }}
+        options={{
+          ...plotBaseOptions,
+          parsing: false,
+          normalized: true,
+          interaction: { mode: 'nearest', axis: 'x', intersect: false },
+          plugins: {
+            legend: bottomLegend,
+            tooltip: {
+              callbacks: {
+                title: (items) => (items[0] ? `t = ${formatTick(items[0].parsed.x ?? 0)} s` : ''),
+                label: (item) => `${item.dataset.label}: ${formatTick(item.parsed.y ?? 0)}`,
               },
             },
-            scales: {
-              x: {
-                type: 'linear',
-                title: { display: true, text: 'time [s]' },
-                ticks: { callback: (value) => formatTick(Number(value)) },
-              },
-              y: { title: { display: true, text: valueAxisLabel }, ticks: { callback: (value) => formatTick(Number(value)) } },
+          },
+          scales: {
+            x: {
+              type: 'linear',
+              title: axisTitle('time [s]'),
+              ticks: numberTicks,
             },
-          }}
-        />
-      </div>
-      <figcaption className="text-caption text-ink-muted">{description}</figcaption>
-    </figure>
+            y: { title: axisTitle(valueAxisLabel), ticks: numberTicks },
+          },
+        }}
+      />
+    </ChartFigure>
   );
 }
