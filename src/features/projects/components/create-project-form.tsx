@@ -2,8 +2,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { createProjectSchema, type Project } from '../../../../shared/contracts';
-import { Button } from '../../../components/ui/button';
-import { Notice } from '../../../components/ui/notice';
+import { FormActions, FormErrorNotice } from '../../../components/ui/form-actions';
 import { applyServerIssues } from '../../../lib/form-errors';
 import { useCreateProject } from '../api/projects';
 import { cleanProjectValues, emptyProjectForm, ProjectFields, projectFormFields, type ProjectFormValues } from './project-fields';
@@ -39,20 +38,9 @@ export function CreateProjectForm({ onCreated, onCancel }: CreateProjectFormProp
 
   return (
     <form onSubmit={onSubmit} noValidate aria-label="New project" className="flex flex-col gap-5">
-      {formError ? (
-        <Notice tone="error" title="The project was not created">
-          {formError}
-        </Notice>
-      ) : null}
+      <FormErrorNotice title="The project was not created" error={formError} />
       <ProjectFields register={register} errors={errors} idPrefix="new-project" />
-      <div className="flex flex-wrap gap-3">
-        <Button type="submit" busy={createProject.isPending}>
-          Create project
-        </Button>
-        <Button tone="quiet" onClick={onCancel}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submitLabel="Create project" busy={createProject.isPending} onCancel={onCancel} />
     </form>
   );
 }

@@ -3,6 +3,8 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { createProjectSchema, type Project } from '../../../../shared/contracts';
 import { Button } from '../../../components/ui/button';
+import { Detail } from '../../../components/ui/detail';
+import { FormActions, FormErrorNotice } from '../../../components/ui/form-actions';
 import { Notice } from '../../../components/ui/notice';
 import { Panel } from '../../../components/ui/panel';
 import { describeError, isApiError } from '../../../lib/api-client';
@@ -76,15 +78,6 @@ export function ProjectOverview({ project, canEdit, onReload, onDeleted }: Proje
   );
 }
 
-function Detail({ term, children }: { term: string; children: React.ReactNode }) {
-  return (
-    <div className="flex flex-col gap-0.5">
-      <dt className="text-caption font-semibold uppercase tracking-[0.08em] text-ink-muted">{term}</dt>
-      <dd className="text-body text-ink">{children}</dd>
-    </div>
-  );
-}
-
 function toFormValues(project: Project): ProjectFormValues {
   return { name: project.name, kind: project.kind, location: project.location ?? '', description: project.description ?? '' };
 }
@@ -135,20 +128,9 @@ function EditProjectForm({ project, onReload, onDone }: { project: Project; onRe
           details (your edits in this form will be replaced), then make your change again.
         </Notice>
       ) : null}
-      {formError ? (
-        <Notice tone="error" title="The changes were not saved">
-          {formError}
-        </Notice>
-      ) : null}
+      <FormErrorNotice title="The changes were not saved" error={formError} />
       <ProjectFields register={register} errors={errors} idPrefix="edit-project" />
-      <div className="flex flex-wrap gap-3">
-        <Button type="submit" busy={updateProject.isPending} disabled={!isDirty}>
-          Save changes
-        </Button>
-        <Button tone="quiet" onClick={() => onDone(false)}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submitLabel="Save changes" busy={updateProject.isPending} disabled={!isDirty} onCancel={() => onDone(false)} />
     </form>
   );
 }

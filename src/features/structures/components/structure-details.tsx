@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import type { Structure } from '../../../../shared/contracts';
 import { Button } from '../../../components/ui/button';
+import { Detail } from '../../../components/ui/detail';
 import { Notice } from '../../../components/ui/notice';
 import { Panel } from '../../../components/ui/panel';
 import { describeError } from '../../../lib/api-client';
@@ -8,15 +9,6 @@ import { formatQuantity } from '../../../lib/format';
 import { useDeleteStructure } from '../api/structures';
 import { structureKindLabels } from './labels';
 import { EditStructureForm } from './structure-forms';
-
-function Detail({ term, children }: { term: string; children: React.ReactNode }) {
-  return (
-    <div className="flex flex-col gap-0.5">
-      <dt className="text-caption font-semibold uppercase tracking-[0.08em] text-ink-muted">{term}</dt>
-      <dd className="text-body text-ink">{children}</dd>
-    </div>
-  );
-}
 
 const notGiven = <span className="text-ink-muted">Not given</span>;
 

@@ -2,7 +2,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { createStructureSchema, type Structure } from '../../../../shared/contracts';
-import { Button } from '../../../components/ui/button';
+import { FormActions, FormErrorNotice } from '../../../components/ui/form-actions';
 import { Notice } from '../../../components/ui/notice';
 import { isApiError } from '../../../lib/api-client';
 import { applyServerIssues } from '../../../lib/form-errors';
@@ -37,20 +37,9 @@ export function CreateStructureForm({ projectId, onCreated, onCancel }: { projec
 
   return (
     <form onSubmit={onSubmit} noValidate aria-label="New structure" className="flex flex-col gap-5">
-      {formError ? (
-        <Notice tone="error" title="The structure was not added">
-          {formError}
-        </Notice>
-      ) : null}
+      <FormErrorNotice title="The structure was not added" error={formError} />
       <StructureFields register={register} errors={errors} idPrefix="new-structure" />
-      <div className="flex flex-wrap gap-3">
-        <Button type="submit" busy={createStructure.isPending}>
-          Add structure
-        </Button>
-        <Button tone="quiet" onClick={onCancel}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submitLabel="Add structure" busy={createStructure.isPending} onCancel={onCancel} />
     </form>
   );
 }
@@ -88,20 +77,9 @@ export function EditStructureForm({ structure, onDone }: { structure: Structure;
           details (fetched again just now), then make your change again.
         </Notice>
       ) : null}
-      {formError ? (
-        <Notice tone="error" title="The changes were not saved">
-          {formError}
-        </Notice>
-      ) : null}
+      <FormErrorNotice title="The changes were not saved" error={formError} />
       <StructureFields register={register} errors={errors} idPrefix="edit-structure" />
-      <div className="flex flex-wrap gap-3">
-        <Button type="submit" busy={updateStructure.isPending} disabled={!isDirty}>
-          Save changes
-        </Button>
-        <Button tone="quiet" onClick={() => onDone(false)}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions submitLabel="Save changes" busy={updateStructure.isPending} disabled={!isDirty} onCancel={() => onDone(false)} />
     </form>
   );
 }
