@@ -2,7 +2,7 @@
  * Chart.js set up once for Stillspan's plots: only the parts the line plots use are registered (so the bundle
  * stays small), Work Sans and the ink colours for text, and a series palette drawn from tide, ember and ink.
  */
-import { CategoryScale, Chart, Filler, Legend, LinearScale, LineElement, PointElement, Tooltip } from 'chart.js';
+import { CategoryScale, Chart, Filler, Legend, LinearScale, LineElement, PointElement, Tooltip, type TooltipItem } from 'chart.js';
 
 Chart.register(LinearScale, CategoryScale, PointElement, LineElement, Legend, Tooltip, Filler);
 Chart.defaults.font.family = '"Work Sans", system-ui, sans-serif';
@@ -33,6 +33,9 @@ export function formatTick(value: number): string {
 /** Options every line plot shares: it fills its box and draws at once. */
 export const plotBaseOptions = { responsive: true, maintainAspectRatio: false, animation: false } as const;
 
+/** Hover picks the nearest point along the horizontal axis. */
+export const nearestAlongX = { mode: 'nearest', axis: 'x', intersect: false } as const;
+
 /** The legend of a line plot: below the plot, short swatches. */
 export const bottomLegend = { position: 'bottom', labels: { boxWidth: 24 } } as const;
 
@@ -43,3 +46,8 @@ export function axisTitle(text: string) {
 
 /** Axis ticks written by `formatTick`. */
 export const numberTicks = { callback: (value: string | number) => formatTick(Number(value)) };
+
+/** A tooltip line: the series name and its value written by `formatTick`. */
+export function seriesValueLabel(item: TooltipItem<'line'>): string {
+  return `${item.dataset.label}: ${formatTick(item.parsed.y ?? 0)}`;
+}

@@ -1,6 +1,6 @@
 import { Line } from 'react-chartjs-2';
 import { ChartFigure } from './chart-figure';
-import { axisTitle, bottomLegend, formatTick, numberTicks, plotBaseOptions, seriesStyle } from './chart-theme';
+import { axisTitle, bottomLegend, formatTick, nearestAlongX, numberTicks, plotBaseOptions, seriesStyle } from './chart-theme';
 
 export interface DecayChartProps {
   envelope: { timesS: readonly number[]; values: readonly number[] };
@@ -26,7 +26,7 @@ export default function DecayChart({ envelope, fit, description }: DecayChartPro
         options={{
           ...plotBaseOptions,
           parsing: false,
-          interaction: { mode: 'nearest', axis: 'x', intersect: false },
+          interaction: nearestAlongX,
           plugins: {
             legend: bottomLegend,
             tooltip: { callbacks: { title: (items) => (items[0] ? `t = ${formatTick(items[0].parsed.x ?? 0)} s` : '') } },

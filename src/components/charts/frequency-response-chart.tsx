@@ -1,7 +1,7 @@
 import { Line } from 'react-chartjs-2';
 import type { Plugin } from 'chart.js';
 import { ChartFigure } from './chart-figure';
-import { axisTitle, bottomLegend, formatTick, numberTicks, plotBaseOptions, seriesStyle } from './chart-theme';
+import { axisTitle, bottomLegend, formatTick, nearestAlongX, numberTicks, plotBaseOptions, seriesStyle, seriesValueLabel } from './chart-theme';
 
 export interface FrequencySeries {
   label: string;
@@ -106,7 +106,7 @@ export default function FrequencyResponseChart({
           ...plotBaseOptions,
           parsing: false,
           normalized: true,
-          interaction: { mode: 'nearest', axis: 'x', intersect: false },
+          interaction: nearestAlongX,
           plugins: {
             // Chart.js types know no options of our own plugin id.
             ...({ stillspanResponseOverlays: { bands: bandsHz ?? [], limit: limit ?? null } } as object),
@@ -114,7 +114,7 @@ export default function FrequencyResponseChart({
             tooltip: {
               callbacks: {
                 title: (items) => (items[0] ? `${formatTick(items[0].parsed.x ?? 0)} Hz` : ''),
-                label: (item) => `${item.dataset.label}: ${formatTick(item.parsed.y ?? 0)}`,
+                label: seriesValueLabel,
               },
             },
           },

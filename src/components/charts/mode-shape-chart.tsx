@@ -1,6 +1,6 @@
 import { Line } from 'react-chartjs-2';
 import { ChartFigure } from './chart-figure';
-import { axisTitle, bottomLegend, formatTick, numberTicks, plotBaseOptions, seriesStyle } from './chart-theme';
+import { axisTitle, bottomLegend, numberTicks, plotBaseOptions, seriesStyle, seriesValueLabel } from './chart-theme';
 
 export interface ModeShapeSeries {
   label: string;
@@ -41,7 +41,7 @@ export default function ModeShapeChart({ dofLabels, modes, description, fromGrou
           interaction: { mode: 'index', intersect: false },
           plugins: {
             legend: bottomLegend,
-            tooltip: { callbacks: { label: (item) => `${item.dataset.label}: ${formatTick(item.parsed.y ?? 0)}` } },
+            tooltip: { callbacks: { label: seriesValueLabel } },
           },
           scales: {
             x: { title: axisTitle('degree of freedom') },

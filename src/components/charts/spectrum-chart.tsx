@@ -1,7 +1,7 @@
 import { Chart, LogarithmicScale, ScatterController } from 'chart.js';
 import { Line } from 'react-chartjs-2';
 import { ChartFigure } from './chart-figure';
-import { axisTitle, bottomLegend, formatTick, numberTicks, plotBaseOptions, seriesStyle } from './chart-theme';
+import { axisTitle, bottomLegend, formatTick, nearestAlongX, numberTicks, plotBaseOptions, seriesStyle } from './chart-theme';
 
 Chart.register(LogarithmicScale, ScatterController);
 
@@ -35,7 +35,7 @@ export default function SpectrumChart({ frequencyHz, psd, fit, peak, description
         options={{
           ...plotBaseOptions,
           parsing: false,
-          interaction: { mode: 'nearest', axis: 'x', intersect: false },
+          interaction: nearestAlongX,
           plugins: {
             legend: bottomLegend,
             tooltip: {

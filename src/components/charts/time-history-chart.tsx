@@ -1,6 +1,6 @@
 import { Line } from 'react-chartjs-2';
 import { ChartFigure } from './chart-figure';
-import { axisTitle, bottomLegend, formatTick, numberTicks, plotBaseOptions, seriesStyle } from './chart-theme';
+import { axisTitle, bottomLegend, formatTick, nearestAlongX, numberTicks, plotBaseOptions, seriesStyle, seriesValueLabel } from './chart-theme';
 
 export interface TimeHistorySeries {
   label: string;
@@ -37,13 +37,13 @@ export default function TimeHistoryChart({ timesS, series, valueAxisLabel, descr
           ...plotBaseOptions,
           parsing: false,
           normalized: true,
-          interaction: { mode: 'nearest', axis: 'x', intersect: false },
+          interaction: nearestAlongX,
           plugins: {
             legend: bottomLegend,
             tooltip: {
               callbacks: {
                 title: (items) => (items[0] ? `t = ${formatTick(items[0].parsed.x ?? 0)} s` : ''),
-                label: (item) => `${item.dataset.label}: ${formatTick(item.parsed.y ?? 0)}`,
+                label: seriesValueLabel,
               },
             },
           },
