@@ -10,6 +10,7 @@ import { Panel } from '../../../components/ui/panel';
 import { describeError, isApiError } from '../../../lib/api-client';
 import { applyServerIssues } from '../../../lib/form-errors';
 import { formatDateTime, formatProjectKind } from '../../../lib/format';
+import { useEditToggle } from '../../../lib/use-edit-toggle';
 import { useDeleteProject, useUpdateProject } from '../api/projects';
 import { projectChanges, ProjectFields, projectFormFields, type ProjectFormValues } from './project-fields';
 
@@ -22,8 +23,7 @@ interface ProjectOverviewProps {
 }
 
 export function ProjectOverview({ project, canEdit, onReload, onDeleted }: ProjectOverviewProps) {
-  const [editing, setEditing] = useState(false);
-  const [saved, setSaved] = useState(false);
+  const { editing, saved, start: startEditing, finish: finishEditing } = useEditToggle();
 
   return (
     <div className="flex flex-col gap-6">
@@ -32,13 +32,7 @@ export function ProjectOverview({ project, canEdit, onReload, onDeleted }: Proje
         title="Project details"
         actions={
           canEdit && !editing ? (
-            <Button
-              tone="secondary"
-              onClick={() => {
-                setSaved(false);
-                setEditing(true);
-              }}
-            >
+            <Button tone="secondary" onClick={startEditing}>
               Edit details
             </Button>
           ) : undefined
@@ -48,10 +42,7 @@ export function ProjectOverview({ project, canEdit, onReload, onDeleted }: Proje
           <EditProjectForm
             project={project}
             onReload={onReload}
-            onDone={(didSave) => {
-              setEditing(false);
-              setSaved(didSave);
-            }}
+            onDone={finishEditing}
           />
         ) : (
           <dl className="grid gap-x-8 gap-y-4 sm:grid-cols-2">

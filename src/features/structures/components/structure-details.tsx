@@ -6,6 +6,7 @@ import { Notice } from '../../../components/ui/notice';
 import { Panel } from '../../../components/ui/panel';
 import { describeError } from '../../../lib/api-client';
 import { formatQuantity } from '../../../lib/format';
+import { useEditToggle } from '../../../lib/use-edit-toggle';
 import { useDeleteStructure } from '../api/structures';
 import { structureKindLabels } from './labels';
 import { EditStructureForm } from './structure-forms';
@@ -13,8 +14,7 @@ import { EditStructureForm } from './structure-forms';
 const notGiven = <span className="text-ink-muted">Not given</span>;
 
 export function StructureDetails({ structure, canEdit, onDeleted }: { structure: Structure; canEdit: boolean; onDeleted: () => void }) {
-  const [editing, setEditing] = useState(false);
-  const [saved, setSaved] = useState(false);
+  const { editing, saved, start: startEditing, finish: finishEditing } = useEditToggle();
   const [confirming, setConfirming] = useState(false);
   const deleteStructure = useDeleteStructure(structure.projectId, structure.id);
   return (
@@ -22,13 +22,7 @@ export function StructureDetails({ structure, canEdit, onDeleted }: { structure:
       title="Structure"
       actions={
         canEdit && !editing ? (
-          <Button
-            tone="secondary"
-            onClick={() => {
-              setSaved(false);
-              setEditing(true);
-            }}
-          >
+          <Button tone="secondary" onClick={startEditing}>
             Edit structure
           </Button>
         ) : undefined
@@ -42,10 +36,7 @@ export function StructureDetails({ structure, canEdit, onDeleted }: { structure:
       {editing ? (
         <EditStructureForm
           structure={structure}
-          onDone={(didSave) => {
-            setEditing(false);
-            setSaved(didSave);
-          }}
+          onDone={finishEditing}
         />
       ) : (
         <div className="flex flex-col gap-5">
