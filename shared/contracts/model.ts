@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { maxProjectVersion } from './projects';
 import { criteriaSchema, designStructureSchema, directionSchema, loadCaseSchema } from './compute-design';
 import { MAX_DOF, modeSchema as engineModeSchema, modesRequestSchema } from './compute';
 import { typeError } from './messages';
@@ -11,12 +12,22 @@ import { MAX_BEAM_MODE_NUMBER, beamSupports } from '../engine/beam';
  * the engine's `criteria` plus a name and a sign-off status. SI units, named in every field.
  */
 
-const trimmed = (max: number) => z.string({ error: typeError('must be text') }).trim().max(max, `must be at most ${max} characters`);
+/** Text a person types: trimmed, bounded, and without NUL characters (which no text column can store). */
+const trimmed = (max: number) =>
+  z
+    .string({ error: typeError('must be text') })
+    .trim()
+    .max(max, `must be at most ${max} characters`)
+    .refine((value) => !value.includes('\u0000'), 'must not contain a NUL character (\\u0000)');
 const name = (max = 120) => trimmed(max).min(1, 'is required');
 const num = () => z.number({ error: typeError('must be a number') }).finite('must be a finite number');
 const positive = () => num().positive('must be greater than 0');
 const wholeNumber = () => z.number({ error: typeError('must be a whole number') }).int('must be a whole number');
-const version = z.number({ error: typeError('must be the version number you read') }).int('must be a whole number').min(1, 'must be at least 1');
+const version = z
+  .number({ error: typeError('must be the version number you read') })
+  .int('must be a whole number')
+  .min(1, 'must be at least 1')
+  .max(maxProjectVersion, `must be at most ${maxProjectVersion}`);
 const uuid = (what: string) => z.uuid(`must be ${what} id (UUID)`);
 
 /** Fields every stored thing carries. */

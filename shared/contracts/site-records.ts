@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { maxProjectVersion } from './projects';
 import { identificationMethodSchema, identifyResponseSchema } from './identify';
 import { tuningMethodSchema } from './compute-shapes';
 import { projectParamsSchema } from './model';
@@ -62,7 +63,7 @@ export const analyseSiteRecordSchema = z.strictObject({
   method: identificationMethodSchema.optional(),
   bandHz: bandSchema.optional(),
   /** The version read; when given, a record changed since gets 409 and is left alone. */
-  version: z.number().int().positive().optional(),
+  version: z.number().int().positive().max(maxProjectVersion, `must be at most ${maxProjectVersion}`).optional(),
 });
 export type AnalyseSiteRecordInput = z.infer<typeof analyseSiteRecordSchema>;
 

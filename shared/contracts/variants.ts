@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { maxProjectVersion } from './projects';
 import { apiErrorSchema } from './errors';
 import { typeError } from './messages';
 import { projectParamsSchema } from './model';
@@ -21,9 +22,19 @@ export type TuningMethod = z.infer<typeof tuningMethodSchema>;
  * SI units, named in every field; every damping ratio is referred to the frequency of the oscillator it belongs to.
  */
 
-const trimmed = (max: number) => z.string({ error: typeError('must be text') }).trim().max(max, `must be at most ${max} characters`);
+/** Text a person types: trimmed, bounded, and without NUL characters (which no text column can store). */
+const trimmed = (max: number) =>
+  z
+    .string({ error: typeError('must be text') })
+    .trim()
+    .max(max, `must be at most ${max} characters`)
+    .refine((value) => !value.includes('\u0000'), 'must not contain a NUL character (\\u0000)');
 const num = () => z.number({ error: typeError('must be a number') }).finite('must be a finite number');
-const version = z.number({ error: typeError('must be the version number you read') }).int('must be a whole number').min(1, 'must be at least 1');
+const version = z
+  .number({ error: typeError('must be the version number you read') })
+  .int('must be a whole number')
+  .min(1, 'must be at least 1')
+  .max(maxProjectVersion, `must be at most ${maxProjectVersion}`);
 const uuid = (what: string) => z.uuid(`must be ${what} id (UUID)`);
 
 /** Largest total damper mass of a variant against the mode's modal mass (25 %: beyond it a damper is a second structure). */
