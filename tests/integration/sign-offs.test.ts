@@ -237,6 +237,10 @@ describe('deciding', () => {
       expect(errorOf(response.body).code, what).toBe('approved_design_frozen');
       expect(errorOf(response.body).message, what).toContain('copy the variant and submit again');
     }
+    // A project holding an approved design keeps it.
+    const projectDelete = await agents.engineer.delete(base);
+    expect(projectDelete.status).toBe(409);
+    expect(errorOf(projectDelete.body).code).toBe('approved_design_frozen');
     const after = variantSchema.parse((await agents.viewer.get(`${base}/variants/${variant.id}`).expect(200)).body);
     expect(after).toEqual(before);
     const modeAfter = (await agents.viewer.get(modeUrl(ids)).expect(200)).body as { frequencyHz: number; version: number };

@@ -13,6 +13,12 @@ export const FROZEN_SQLSTATE = 'SO409';
 
 export type FrozenTarget = { variantId: string } | { modeId: string } | { loadCaseId: string } | { criteriaId: string };
 
+/** A project holding an approved design is kept with it. */
+export function projectHoldsApprovedDesign(): HttpError {
+  const message = 'The project holds a design the owner approved and cannot be deleted; its approval and the design it rests on are kept';
+  return new HttpError(409, 'approved_design_frozen', message, [{ path: '', message }]);
+}
+
 export function frozenError(what: string): HttpError {
   const message = `${what} belongs to a design the owner approved and cannot be changed or deleted; copy the variant and submit again`;
   return new HttpError(409, 'approved_design_frozen', message, [{ path: '', message }]);
@@ -55,11 +61,11 @@ export async function refuseIfFrozen(db: Executor, what: string, target: FrozenT
 }
 
 /** Runs a write; the database's freeze (a design approved meanwhile) becomes the same 409. */
-export async function frozenWrite<T>(what: string, write: () => Promise<T>): Promise<T> {
+export async function frozenWrite<T>(what: string | HttpError, write: () => Promise<T>): Promise<T> {
   try {
     return await write();
   } catch (error) {
-    if (pgErrorCode(error) === FROZEN_SQLSTATE) throw frozenError(what);
+    if (pgErrorCode(error) === FROZEN_SQLSTATE) throw typeof what === 'string' ? frozenError(what) : what;
     throw error;
   }
 }
