@@ -268,6 +268,39 @@ describe('deciding', () => {
   });
 });
 
+describe('an approved mode taken from a lumped model', () => {
+  it('refuses a change of the model that would re-derive the mode (409, model and mode unchanged)', async () => {
+    const ids = await newProject('Sign-off lumped-model footbridge');
+    const base = `/api/projects/${ids.projectId}/structures/${ids.structureId}`;
+    // One DOF of 30 t on a spring of m (2π · 2 Hz)²: a 2 Hz mode (invented test values).
+    const stiffness = 30_000 * (2 * Math.PI * 2) ** 2;
+    const model = (await agents.engineer.post(`${base}/models`).send({ name: 'Test one-DOF model', massMatrixKg: [[30_000]], stiffnessMatrixNPerM: [[stiffness]] }).expect(201)).body as {
+      id: string;
+      version: number;
+    };
+    const derived = await agents.engineer
+      .post(`${base}/modes`)
+      .send({ label: 'Test derived mode', dampingRatio: 0.005, modeShapeMean: 0.6, source: { kind: 'lumped-model', modelId: model.id, modeNumber: 1, dofIndex: 0 } });
+    expect(derived.status, JSON.stringify(derived.body)).toBe(201);
+    const modeId = (derived.body as { id: string; frequencyHz: number }).id;
+    const variant = await createVariant({ ...ids, modeId });
+    const signOff = await submit(ids, variant.id);
+    await agents.owner.post(`${signOffsOf(ids)}/${signOff.id}/approve`).send({}).expect(200);
+    const response = await agents.engineer.patch(`${base}/models/${model.id}`).send({ version: model.version, stiffnessMatrixNPerM: [[stiffness * 1.1]] });
+    expect(response.status).toBe(409);
+    expect(errorOf(response.body).code).toBe('approved_design_frozen');
+    const after = (await agents.viewer.get(`${base}/models/${model.id}`).expect(200)).body as { version: number; stiffnessMatrixNPerM: number[][] };
+    expect(after.version).toBe(model.version);
+    expect(after.stiffnessMatrixNPerM).toEqual([[stiffness]]);
+  });
+
+  it('another organisation cannot submit in this organisation\'s project (404)', async () => {
+    const ids = await newProject('Sign-off outsider footbridge');
+    const variant = await createVariant(ids);
+    expect((await outsiderAgent.post(signOffsOf(ids)).send({ variantId: variant.id })).status).toBe(404);
+  });
+});
+
 describe('a returned design', () => {
   it('can be changed and submitted again; the submitter gets the comment', async () => {
     const ids = await newProject('Sign-off returned footbridge');
