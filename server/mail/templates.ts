@@ -36,6 +36,8 @@ export function invitationMail(input: {
   return { to: input.to, subject: `Join ${input.organisationName} on Stillspan`, text, html };
 }
 
+const caution = 'Stillspan’s results support, and never replace, the judgement of a qualified engineer; local codes and licensed practice govern.';
+
 /** To each owner of the organisation: a design waits for their decision. */
 export function signOffSubmittedMail(input: {
   to: string;
@@ -51,10 +53,13 @@ export function signOffSubmittedMail(input: {
     '',
     'Review it and approve or return it here:',
     input.link,
+    '',
+    caution,
   ].join('\n');
   const html = `<p>${escapeHtml(input.submitterName)} submitted the tuning variant <strong>${escapeHtml(input.variantName)}</strong> of the project ${escapeHtml(input.projectName)} for your sign-off.</p>
 ${input.message ? `<p>Their message:</p><blockquote>${escapeHtml(input.message)}</blockquote>` : ''}
-<p><a href="${escapeHtml(input.link)}">Review and decide</a></p>`;
+<p><a href="${escapeHtml(input.link)}">Review and decide</a></p>
+<p>${escapeHtml(caution)}</p>`;
   return { to: input.to, subject: `Sign-off requested: ${input.variantName} (${input.projectName})`, text, html };
 }
 
@@ -79,10 +84,13 @@ export function signOffDecidedMail(input: {
     '',
     next,
     input.link,
+    '',
+    caution,
   ].join('\n');
   const html = `<p>${escapeHtml(input.deciderName)} ${verb} the tuning variant <strong>${escapeHtml(input.variantName)}</strong> of the project ${escapeHtml(input.projectName)}.</p>
 ${input.comment ? `<p>Comment:</p><blockquote>${escapeHtml(input.comment)}</blockquote>` : ''}
 <p>${escapeHtml(next)}</p>
-<p><a href="${escapeHtml(input.link)}">Open the sign-off</a></p>`;
+<p><a href="${escapeHtml(input.link)}">Open the sign-off</a></p>
+<p>${escapeHtml(caution)}</p>`;
   return { to: input.to, subject: `Design ${verb}: ${input.variantName} (${input.projectName})`, text, html };
 }

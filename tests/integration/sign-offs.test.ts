@@ -119,6 +119,7 @@ describe('submitting a design', () => {
     expect(mails[0].subject).toContain(variant.name);
     expect(mails[0].text).toContain(`${appUrl}/projects/${ids.projectId}/sign-off`);
     expect(mails[0].text).toContain('Please check the crowd case first.');
+    expect(mails[0].text).toContain('never replace, the judgement of a qualified engineer');
 
     const again = await agents.engineer.post(signOffsOf(ids)).send({ variantId: variant.id });
     expect(again.status).toBe(409);
