@@ -56,12 +56,24 @@ export async function decide(
   return row;
 }
 
-/** Sets the criteria's status (the database's freeze lets only this change through, under `stillspan.sign_off`). */
+/**
+ * Sets the criteria's status to the sign-off's, except that criteria an approved sign-off rests on stay `approved`
+ * (another design using them may be submitted or returned later). The database's freeze lets only this change
+ * through, under the transaction-local `stillspan.sign_off`.
+ */
 export async function setCriteriaStatus(db: Executor, criteriaId: string, status: 'submitted' | 'approved' | 'returned'): Promise<void> {
   await db.execute(sql`select set_config('stillspan.sign_off', 'on', true)`);
+  const approvedOnes = db
+    .select({ one: sql`1` })
+    .from(signOffs)
+    .where(and(eq(signOffs.criteriaId, criteriaId), eq(signOffs.status, 'approved')));
   await db
     .update(comfortCriteria)
-    .set({ status, version: sql`${comfortCriteria.version} + 1`, updatedAt: sql`now()` })
+    .set({
+      status: sql`case when exists (${approvedOnes}) then 'approved'::comfort_criteria_status else ${status}::comfort_criteria_status end`,
+      version: sql`${comfortCriteria.version} + 1`,
+      updatedAt: sql`now()`,
+    })
     .where(eq(comfortCriteria.id, criteriaId));
   await db.execute(sql`select set_config('stillspan.sign_off', '', true)`);
 }
