@@ -89,6 +89,11 @@ describe('sign-off', () => {
     await entry.waitFor();
     await expect(entry.getByTestId('sign-off-status').textContent()).resolves.toBe('approved');
     await expect(entry.textContent()).resolves.toMatch(/Approved by Priya Halloran|Approved by a member of the organisation/);
+    // The decided design reads again from its snapshot, without approve or return.
+    await entry.getByRole('button', { name: 'Read the design as submitted' }).click();
+    const asSubmitted = entry.getByRole('region', { name: `Design as submitted: ${variantName}` });
+    await asSubmitted.getByText('Damper frequency').waitFor();
+    await expect(asSubmitted.getByRole('button', { name: 'Approve' }).count()).resolves.toBe(0);
     await browser.shot('sign-off-06-engineer-timeline');
     expect(browser.consoleErrors).toEqual([]);
   });

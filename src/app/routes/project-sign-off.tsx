@@ -1,5 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router-dom';
+import type { SignOff } from '../../../shared/contracts/sign-offs';
 import { describeCriteria } from '../../features/comfort-criteria/components/criteria-info';
 import { LimitLines } from '../../features/comfort-criteria/components/limit-lines';
 import { projectMembersQueryOptions } from '../../features/projects/api/projects';
@@ -13,6 +14,8 @@ import { QueryError } from '../../components/ui/query-error';
 import { queryClient } from '../../lib/query-client';
 import { useCurrentUser } from '../session';
 import { useProjectContext } from './project-layout';
+
+const criteriaInWords = (signOff: SignOff) => <LimitLines lines={describeCriteria(signOff.snapshot.criteria.spec)} />;
 
 /** Prefetches the project's sign-offs; a failure is shown by the page itself. */
 export async function projectSignOffLoader({ params }: LoaderFunctionArgs) {
@@ -48,12 +51,12 @@ export function ProjectSignOffRoute() {
             signOff={entry}
             canDecide={me.role === 'owner'}
             personName={personName}
-            criteriaInWords={<LimitLines lines={describeCriteria(entry.snapshot.criteria.spec)} />}
+            criteriaInWords={criteriaInWords(entry)}
           />
         ))
       )}
       <Panel title="Sign-off timeline" description="Every design submitted to the owner, newest first, with the decision and the mails it sent.">
-        <SignOffTimeline signOffs={signOffs.data} personName={personName} />
+        <SignOffTimeline signOffs={signOffs.data} personName={personName} projectId={project.id} criteriaInWords={criteriaInWords} />
       </Panel>
     </div>
   );

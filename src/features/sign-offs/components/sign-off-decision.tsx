@@ -14,7 +14,7 @@ import { TextAreaField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { Table, Td, Th } from '../../../components/ui/table';
 import { describeError, issueMessage, issuesFor, isApiError } from '../../../lib/api-client';
-import { formatDateTime, formatNumber, formatPercent, formatQuantity } from '../../../lib/format';
+import { formatDateTime, formatPercent, formatQuantity } from '../../../lib/format';
 import { useDecideSignOff } from '../api/sign-offs';
 import { SignOffStatusTag } from './sign-off-status';
 
@@ -61,13 +61,15 @@ export function SignOffDecision({ projectId, signOff, canDecide, personName, cri
       <header className="flex flex-col gap-1">
         <div className="flex flex-wrap items-baseline justify-between gap-2">
           <h2 id={`decision-${signOff.id}`} className="text-headline font-semibold text-ink">
-            Decision asked: {variant.name}
+            {signOff.status === 'submitted' ? 'Decision asked' : 'Design as submitted'}: {variant.name}
           </h2>
           <SignOffStatusTag status={signOff.status} />
         </div>
         <p className="text-small text-ink-soft">
-          {personName(signOff.submittedBy)} submitted this design on {formatDateTime(signOff.submittedAt)} and asks you to accept the comfort
-          criteria below and the damper that meets them.
+          {personName(signOff.submittedBy)} submitted this design on {formatDateTime(signOff.submittedAt)}
+          {signOff.status === 'submitted'
+            ? ' and asks the owner to accept the comfort criteria below and the damper that meets them.'
+            : `; it was ${signOff.status} on ${signOff.decidedAt ? formatDateTime(signOff.decidedAt) : 'a later date'}.`}
         </p>
         {signOff.message ? <blockquote className="border-l-2 border-paper-line pl-3 text-small text-ink">“{signOff.message}”</blockquote> : null}
       </header>
@@ -126,7 +128,7 @@ export function SignOffDecision({ projectId, signOff, canDecide, personName, cri
                     <Td className="tabular-nums">{lc.utilisation === undefined ? '—' : formatPercent(1 - lc.utilisation)}</Td>
                     <Td>
                       <PassOrFail verdict={lc.verdict} />
-                      {lc.comfortClass ? <span className="ml-2 text-caption text-ink-muted">({lc.comfortClass})</span> : null}
+                      {lc.comfortClass ? <span className="ml-2 text-caption text-ink-muted">comfort reached: {lc.comfortClass}</span> : null}
                     </Td>
                   </tr>
                 ))}
@@ -164,8 +166,7 @@ export function SignOffDecision({ projectId, signOff, canDecide, personName, cri
       ) : null}
 
       <p className="text-caption text-ink-muted">
-        Computed with engine {snapshot.engineVersion}; these figures are those of the design as submitted and do not change afterwards (
-        {formatNumber(loadCases.length, 2)} load case{loadCases.length === 1 ? '' : 's'}).
+        These figures are those of the design as submitted (engine {snapshot.engineVersion}); they do not change when the project does.
       </p>
       <Caution />
 

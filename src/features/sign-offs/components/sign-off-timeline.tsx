@@ -1,5 +1,7 @@
+import { useState, type ReactNode } from 'react';
 import type { SignOff } from '../../../../shared/contracts/sign-offs';
 import { formatDateTime } from '../../../lib/format';
+import { SignOffDecision } from './sign-off-decision';
 import { SignOffStatusTag } from './sign-off-status';
 
 const mailStateWords = { pending: 'waiting to be sent', sent: 'sent', failed: 'not delivered (retried)' } as const;
@@ -8,10 +10,14 @@ interface SignOffTimelineProps {
   signOffs: SignOff[];
   /** A person's name from their id; the id's owner may have left the project. */
   personName: (userId: string | null) => string;
+  projectId: string;
+  /** The comfort criteria of a sign-off's snapshot in words, for reading a decided design again. */
+  criteriaInWords: (signOff: SignOff) => ReactNode;
 }
 
 /** The project's sign-offs, newest first: what was submitted, by whom, and what the owner decided. */
-export function SignOffTimeline({ signOffs, personName }: SignOffTimelineProps) {
+export function SignOffTimeline({ signOffs, personName, projectId, criteriaInWords }: SignOffTimelineProps) {
+  const [openId, setOpenId] = useState<string | null>(null);
   if (signOffs.length === 0) return <p className="text-small text-ink-muted">Nothing has been submitted for sign-off yet.</p>;
   return (
     <ol className="flex flex-col divide-y divide-paper-line" aria-label="Sign-off timeline">
@@ -45,6 +51,21 @@ export function SignOffTimeline({ signOffs, personName }: SignOffTimelineProps) 
           ) : (
             <p className="text-caption text-ink-muted">Mails: none.</p>
           )}
+          {signOff.status === 'submitted' ? null : (
+            <div>
+              <button
+                type="button"
+                className="text-small font-medium text-tide-800 underline-offset-4 hover:underline"
+                aria-expanded={openId === signOff.id}
+                onClick={() => setOpenId(openId === signOff.id ? null : signOff.id)}
+              >
+                {openId === signOff.id ? 'Hide the design as submitted' : 'Read the design as submitted'}
+              </button>
+            </div>
+          )}
+          {openId === signOff.id ? (
+            <SignOffDecision projectId={projectId} signOff={signOff} canDecide={false} personName={personName} criteriaInWords={criteriaInWords(signOff)} />
+          ) : null}
         </li>
       ))}
     </ol>
