@@ -123,9 +123,9 @@ export function SignOffDecision({ projectId, signOff, canDecide, personName, cri
                 {result.loadCases.map((lc) => (
                   <tr key={lc.loadCaseId} data-testid="decision-load-case">
                     <Td>{lc.name}</Td>
-                    <Td className="tabular-nums">{formatQuantity(lc.peakAccelerationMPerS2, 'm/s²', 3)}</Td>
-                    <Td className="tabular-nums">{lc.criterion ? formatQuantity(lc.criterion.limitMPerS2, 'm/s²', 3) : '—'}</Td>
-                    <Td className="tabular-nums">{lc.utilisation === undefined ? '—' : formatPercent(1 - lc.utilisation)}</Td>
+                    <Td className="whitespace-nowrap tabular-nums">{formatQuantity(lc.peakAccelerationMPerS2, 'm/s²', 3)}</Td>
+                    <Td className="whitespace-nowrap tabular-nums">{lc.criterion ? formatQuantity(lc.criterion.limitMPerS2, 'm/s²', 3) : '—'}</Td>
+                    <Td className="whitespace-nowrap tabular-nums">{lc.utilisation === undefined ? '—' : formatPercent(1 - lc.utilisation)}</Td>
                     <Td>
                       <PassOrFail verdict={lc.verdict} />
                       {lc.comfortClass ? <span className="ml-2 text-caption text-ink-muted">comfort reached: {lc.comfortClass}</span> : null}
