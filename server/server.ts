@@ -8,6 +8,7 @@ import { seedDemoIfEmpty } from './db/seed';
 import type { Env } from './env';
 import { startFakeSmtp } from './mail/fake-smtp';
 import { createMailer } from './mail/mailer';
+import { startOutboxRelay } from './mail/outbox';
 import { createEnginePool } from './workers/engine-pool';
 
 function log(line: string): void {
@@ -39,10 +40,12 @@ export async function createContext(env: Env, options: { seed?: boolean } = {}):
     ? createMailer({ host: fakeSmtp.host, port: fakeSmtp.port, from: env.mailFrom, ignoreTls: true })
     : createMailer({ host: env.smtpHost, port: env.smtpPort, from: env.mailFrom });
   const enginePool = createEnginePool({ threads: env.computeThreads, taskTimeoutMs: env.computeTimeoutMs, maxAnswerBytes: env.computeMaxAnswerBytes });
-  return { env, pool, db, mailer, fakeSmtp, enginePool, authConfig: createAuthConfig({ db, secret: env.authSecret }) };
+  const outbox = startOutboxRelay(db, mailer, { periodMs: 30_000, log });
+  return { env, pool, db, mailer, outbox, fakeSmtp, enginePool, authConfig: createAuthConfig({ db, secret: env.authSecret }) };
 }
 
 export async function closeContext(ctx: AppContext): Promise<void> {
+  await ctx.outbox.stop();
   ctx.mailer.close();
   await ctx.enginePool.close();
   await ctx.fakeSmtp?.close();

@@ -8,4 +8,5 @@ export * from './app-config';
 export * from './model';
 export * from './paging';
 export * from './variants';
+export * from './sign-offs';
 export * from './preferences';

@@ -37,6 +37,8 @@ const tuningVariantEdit = () =>
   import('./routes/tuning-variant').then((module) => ({ Component: module.TuningVariantEditRoute, loader: module.tuningVariantLoader }));
 const projectSiteRecords = () =>
   import('./routes/project-site-records').then((module) => ({ Component: module.ProjectSiteRecordsRoute, loader: module.projectSiteRecordsLoader }));
+const projectSignOff = () =>
+  import('./routes/project-sign-off').then((module) => ({ Component: module.ProjectSignOffRoute, loader: module.projectSignOffLoader }));
 const projectSection = (slug: string) => () =>
   import('./routes/project-section').then((module) => ({ Component: module.projectSectionRoute(slug) }));
 
@@ -81,6 +83,7 @@ export const router = createBrowserRouter([
                       { path: 'tuning-variants/:variantId', lazy: tuningVariant },
                       { path: 'tuning-variants/:variantId/edit', lazy: tuningVariantEdit },
                       { path: 'site-records', lazy: projectSiteRecords },
+                      { path: 'sign-off', lazy: projectSignOff },
                       ...projectSections
                         .filter((entry) => !entry.available)
                         .map((entry) => ({ path: entry.slug, lazy: projectSection(entry.slug) })),

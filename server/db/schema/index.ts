@@ -5,3 +5,4 @@ export * from './structural-model';
 export * from './sign-in-attempts';
 export * from './variants';
 export * from './site-records';
+export * from './sign-offs';

@@ -7,6 +7,7 @@ import { createComfortCriteriaSchema, updateComfortCriteriaSchema, type ComfortC
 import { requireProjectScope } from '../structures/structures.service';
 import * as repository from './comfort-criteria.repository';
 import { deleteUnlessUsedByVariants } from '../variants/variant-usage';
+import { frozenWrite, refuseIfFrozen } from '../sign-offs/freeze';
 
 type CreateComfortCriteriaParsed = z.output<typeof createComfortCriteriaSchema>;
 type UpdateComfortCriteriaParsed = z.output<typeof updateComfortCriteriaSchema>;
@@ -56,7 +57,8 @@ export async function updateComfortCriteria(
   const { version, ...fields } = input;
   const changes = givenFields(fields);
   if (Object.keys(changes).length === 0) throw nothingToChange(['name', 'spec']);
-  const row = await repository.updateComfortCriteriaAtVersion(db, scope, id, version, changes);
+  await refuseIfFrozen(db, 'The comfort criteria', { criteriaId: id }, () => repository.findComfortCriteria(db, scope, id));
+  const row = await frozenWrite('The comfort criteria', () => repository.updateComfortCriteriaAtVersion(db, scope, id, version, changes));
   if (row) return toComfortCriteria(row);
   const current = await repository.findComfortCriteria(db, scope, id);
   if (!current) throw criteriaNotFound();
@@ -65,6 +67,9 @@ export async function updateComfortCriteria(
 
 export async function deleteComfortCriteria(db: Database, user: CurrentUser, projectId: string, id: string): Promise<void> {
   const scope = await requireProjectScope(db, user, projectId);
-  const deleted = await deleteUnlessUsedByVariants(db, 'The comfort criteria', { criteriaId: id }, () => repository.deleteComfortCriteria(db, scope, id));
+  await refuseIfFrozen(db, 'The comfort criteria', { criteriaId: id }, () => repository.findComfortCriteria(db, scope, id));
+  const deleted = await deleteUnlessUsedByVariants(db, 'The comfort criteria', { criteriaId: id }, () =>
+    frozenWrite('The comfort criteria', () => repository.deleteComfortCriteria(db, scope, id)),
+  );
   if (!deleted) throw criteriaNotFound();
 }

@@ -6,6 +6,7 @@ import { createLoadCaseSchema, updateLoadCaseSchema, type SavedLoadCase } from '
 import type { z } from 'zod';
 import { requireProjectScope } from '../structures/structures.service';
 import * as repository from './load-cases.repository';
+import { frozenWrite, refuseIfFrozen } from '../sign-offs/freeze';
 import { deleteUnlessUsedByVariants } from '../variants/variant-usage';
 
 type CreateLoadCaseParsed = z.output<typeof createLoadCaseSchema>;
@@ -49,7 +50,8 @@ export async function updateLoadCase(db: Database, user: CurrentUser, projectId:
   const { version, ...fields } = input;
   const changes = givenFields(fields);
   if (Object.keys(changes).length === 0) throw nothingToChange(['name', 'spec']);
-  const row = await repository.updateLoadCaseAtVersion(db, scope, id, version, changes);
+  await refuseIfFrozen(db, 'The load case', { loadCaseId: id }, () => repository.findLoadCase(db, scope, id));
+  const row = await frozenWrite('The load case', () => repository.updateLoadCaseAtVersion(db, scope, id, version, changes));
   if (row) return toSavedLoadCase(row);
   const current = await repository.findLoadCase(db, scope, id);
   if (!current) throw loadCaseNotFound();
@@ -58,6 +60,7 @@ export async function updateLoadCase(db: Database, user: CurrentUser, projectId:
 
 export async function deleteLoadCase(db: Database, user: CurrentUser, projectId: string, id: string): Promise<void> {
   const scope = await requireProjectScope(db, user, projectId);
-  const deleted = await deleteUnlessUsedByVariants(db, 'The load case', { loadCaseId: id }, () => repository.deleteLoadCase(db, scope, id));
+  await refuseIfFrozen(db, 'The load case', { loadCaseId: id }, () => repository.findLoadCase(db, scope, id));
+  const deleted = await deleteUnlessUsedByVariants(db, 'The load case', { loadCaseId: id }, () => frozenWrite('The load case', () => repository.deleteLoadCase(db, scope, id)));
   if (!deleted) throw loadCaseNotFound();
 }

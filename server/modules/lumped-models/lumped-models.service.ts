@@ -6,6 +6,7 @@ import type { CurrentUser } from '../../middleware/auth';
 import type { ApiIssue } from '../../../shared/contracts/errors';
 import type { CreateLumpedModelInput, LumpedModel, UpdateLumpedModelInput } from '../../../shared/contracts/model';
 import { solveModes, type ModalSolution } from '../../../shared/engine/modal';
+import { frozenWrite } from '../sign-offs/freeze';
 import { listModesOfLumpedModel, updateModeAtVersion, type ModeRow } from '../modes/modes.repository';
 import { requireStructure } from '../structures/structures.service';
 import { deriveFromLumpedModel, modesOf, solveLumpedModel } from './lumped-model-modes';
@@ -122,7 +123,9 @@ export async function updateLumpedModel(
           });
           continue;
         }
-        await updateModeAtVersion(tx, scope, mode.id, null, { frequencyHz: derived.frequencyHz, modalMassKg: derived.modalMassKg });
+        await frozenWrite(`The mode "${mode.label}" taken from this model`, () =>
+          updateModeAtVersion(tx, scope, mode.id, null, { frequencyHz: derived.frequencyHz, modalMassKg: derived.modalMassKg }),
+        );
       }
       if (refusals.length > 0) {
         throw new HttpError(

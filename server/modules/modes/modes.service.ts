@@ -12,6 +12,7 @@ import { findLumpedModel, type StructureScope } from '../lumped-models/lumped-mo
 import { requireStructure } from '../structures/structures.service';
 import * as repository from './modes.repository';
 import { deleteUnlessUsedByVariants } from '../variants/variant-usage';
+import { frozenWrite, refuseIfFrozen } from '../sign-offs/freeze';
 
 export function toSavedMode(row: repository.ModeRow, projectId: string): SavedMode {
   return {
@@ -126,6 +127,7 @@ export async function updateMode(
   const row = await db.transaction(async (tx) => {
     const current = await repository.findMode(tx, scope, id);
     if (!current) throw modeNotFound();
+    await refuseIfFrozen(tx, 'The mode', { modeId: id });
     if (current.version !== version) throw versionConflict('The mode', version, current.version);
     if (source === undefined) {
       for (const field of derivedModeFields[current.source.kind]) {
@@ -145,7 +147,7 @@ export async function updateMode(
         else if (current.source.kind === 'beam' && changes.modeShapeMean === undefined) changes.modeShapeMean = null;
       }
     }
-    const updated = await repository.updateModeAtVersion(tx, scope, id, version, changes);
+    const updated = await frozenWrite('The mode', () => repository.updateModeAtVersion(tx, scope, id, version, changes));
     if (!updated) {
       const now = await repository.findMode(tx, scope, id);
       if (!now) throw modeNotFound();
@@ -158,6 +160,7 @@ export async function updateMode(
 
 export async function deleteMode(db: Database, user: CurrentUser, projectId: string, structureId: string, id: string): Promise<void> {
   const scope = await structureScope(db, user, projectId, structureId);
-  const deleted = await deleteUnlessUsedByVariants(db, 'The mode', { modeId: id }, () => repository.deleteMode(db, scope, id));
+  await refuseIfFrozen(db, 'The mode', { modeId: id }, () => repository.findMode(db, scope, id));
+  const deleted = await deleteUnlessUsedByVariants(db, 'The mode', { modeId: id }, () => frozenWrite('The mode', () => repository.deleteMode(db, scope, id)));
   if (!deleted) throw modeNotFound();
 }

@@ -5,6 +5,7 @@ import { pageOffset, type PageQuery } from '../../../shared/contracts/paging';
 import type { CreateProjectInput, Project, ProjectList, UpdateProjectInput } from '../../../shared/contracts/projects';
 import { paged } from '../../lib/paging';
 import * as repository from './projects.repository';
+import { frozenWrite, projectHoldsApprovedDesign } from '../sign-offs/freeze';
 
 export function toProject(row: repository.ProjectRow): Project {
   return {
@@ -79,6 +80,7 @@ export async function updateProject(db: Database, user: CurrentUser, id: string,
 }
 
 export async function deleteProject(db: Database, user: CurrentUser, id: string): Promise<void> {
-  const deleted = await repository.deleteProject(db, user.organisationId, id);
+  // A project that holds a design the owner approved keeps it: the database's freeze refuses deleting its variant.
+  const deleted = await frozenWrite(projectHoldsApprovedDesign(), () => repository.deleteProject(db, user.organisationId, id));
   if (!deleted) throw projectNotFound();
 }

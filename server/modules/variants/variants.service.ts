@@ -22,6 +22,7 @@ import type { ProjectScope } from '../structures/structures.repository';
 import * as repository from './variants.repository';
 import { computeVariant } from './variant-compute';
 import type { EnginePool } from '../../workers/engine-pool';
+import { frozenWrite, isFrozen, refuseIfFrozen } from '../sign-offs/freeze';
 
 const variantNotFound = () => notFound('The tuning variant', 'variant_not_found');
 
@@ -151,6 +152,9 @@ async function fresh(db: Database, engine: EnginePool, scope: ProjectScope, reco
   });
   if (!input) throw new HttpError(409, 'variant_inputs_missing', 'A mode, load case or criteria of this tuning variant is missing');
   if (record.row.inputsHash === variantInputsHash(input) && record.row.engineVersion === variantEngineVersion) return toVariant(record);
+  // An approved variant's result never moves (its inputs are frozen; only a new engine version can differ): the
+  // stored result, the one its sign-off's snapshot holds, is served as it is (docs/decisions/0019-sign-off-freeze.md).
+  if (await isFrozen(db, { variantId: record.row.id })) return toVariant(record);
   const values = await computation(engine, input, false);
   await repository.storeComputation(db, record.row.id, record.row.version, values);
   return toVariant({ ...record, row: { ...record.row, ...values } });
@@ -203,10 +207,13 @@ async function applyChanges(db: Database, engine: EnginePool, scope: ProjectScop
   const changes = givenFields(fields) as Partial<repository.VariantValues>;
   if (Object.keys(changes).length === 0 && loadCaseIds === undefined) throw nothingToChange(changeableFields);
   const current = await requireVariant(db, scope, id);
+  await refuseIfFrozen(db, 'The tuning variant', { variantId: id });
   if (current.row.version !== version) throw versionConflict('The tuning variant', version, current.row.version);
   const merged = { ...current.row, ...changes, loadCaseIds: loadCaseIds ?? current.loadCaseIds };
   const computed = await computation(engine, await computeInputOf(db, scope, merged), true);
-  const updated = await storing(() => repository.updateVariantAtVersion(db, scope, id, version, { ...changes, ...computed }, loadCaseIds));
+  const updated = await frozenWrite('The tuning variant', () =>
+    storing(() => repository.updateVariantAtVersion(db, scope, id, version, { ...changes, ...computed }, loadCaseIds)),
+  );
   if (updated) return toVariant(updated);
   const now = await repository.findVariant(db, scope, id);
   if (!now) throw variantNotFound();
@@ -220,7 +227,8 @@ export async function updateVariant(db: Database, engine: EnginePool, user: Curr
 
 export async function deleteVariant(db: Database, user: CurrentUser, projectId: string, id: string): Promise<void> {
   const scope = await requireProjectScope(db, user, projectId);
-  if (!(await repository.deleteVariant(db, scope, id))) throw variantNotFound();
+  await refuseIfFrozen(db, 'The tuning variant', { variantId: id });
+  if (!(await frozenWrite('The tuning variant', () => repository.deleteVariant(db, scope, id)))) throw variantNotFound();
 }
 
 /**

@@ -4,6 +4,7 @@ import { Link, useNavigate, useParams, type LoaderFunctionArgs } from 'react-rou
 import { Button } from '../../components/ui/button';
 import { Loading } from '../../components/ui/loading';
 import { Notice } from '../../components/ui/notice';
+import { Panel } from '../../components/ui/panel';
 import { PageTitle } from '../../components/ui/page-title';
 import { QueryError } from '../../components/ui/query-error';
 import {
@@ -14,6 +15,7 @@ import {
   useDeleteVariant,
   variantQueryOptions,
 } from '../../features/variants/api/variants';
+import { SubmitSignOff } from '../../features/sign-offs/components/submit-sign-off';
 import { VariantDetails } from '../../features/variants/components/variant-details';
 import { VariantEditor } from '../../features/variants/components/variant-editor';
 import { describeError } from '../../lib/api-client';
@@ -90,6 +92,11 @@ export function TuningVariantRoute() {
         onDelete={() => setConfirming(true)}
         deleting={remove.isPending}
       />
+      {canEdit ? (
+        <Panel title="Sign-off" description="Ask the owner to approve the comfort criteria and this design.">
+          <SubmitSignOff key={variant.data.id} projectId={project.id} variantId={variant.data.id} />
+        </Panel>
+      ) : null}
     </div>
   );
 }

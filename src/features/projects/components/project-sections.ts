@@ -45,7 +45,7 @@ export const projectSections: ProjectSection[] = [
   {
     slug: 'sign-off',
     label: 'Sign-off',
-    available: false,
+    available: true,
     purpose: 'Submit the comfort criteria and the chosen design to the owner, who approves them or returns them with a comment.',
   },
   {

@@ -1,0 +1,43 @@
+import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
+import {
+  signOffListSchema,
+  signOffSchema,
+  type ApproveSignOffInput,
+  type ReturnSignOffInput,
+  type SubmitSignOffInput,
+} from '../../../../shared/contracts/sign-offs';
+import { apiRequest } from '../../../lib/api-client';
+
+/** Under the project's key, so invalidating the project refreshes its sign-offs too. */
+export const signOffKeys = {
+  all: (projectId: string) => ['projects', projectId, 'sign-offs'] as const,
+};
+
+const path = (projectId: string) => `/api/projects/${encodeURIComponent(projectId)}/sign-offs`;
+const itemPath = (projectId: string, id: string) => `${path(projectId)}/${encodeURIComponent(id)}`;
+
+/** The project's sign-offs, newest first (sorted here too, so the order never rests on the server alone). */
+export const signOffsQueryOptions = (projectId: string) =>
+  queryOptions({
+    queryKey: signOffKeys.all(projectId),
+    queryFn: ({ signal }) => apiRequest(path(projectId), { schema: signOffListSchema, signal }),
+    select: (data) => [...data.signOffs].sort((a, b) => b.submittedAt.localeCompare(a.submittedAt)),
+  });
+
+/** Submitting freezes nothing yet but changes the criteria's status and the variant's page: refresh the whole project. */
+export function useSubmitSignOff(projectId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: SubmitSignOffInput) => apiRequest(path(projectId), { method: 'POST', body: input, schema: signOffSchema }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['projects', projectId] }),
+  });
+}
+
+export function useDecideSignOff(projectId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, decision, input }: { id: string; decision: 'approve' | 'return'; input: ApproveSignOffInput | ReturnSignOffInput }) =>
+      apiRequest(`${itemPath(projectId, id)}/${decision}`, { method: 'POST', body: input, schema: signOffSchema }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['projects', projectId] }),
+  });
+}
