@@ -31,9 +31,17 @@ export function TuningVariantsRoute() {
   const [search, setSearch] = useSearchParams();
   const selected = (search.get('compare') ?? '').split(',').filter(Boolean);
 
+  // From the address as it is when the change applies, not as this render saw it: a second tick made while the
+  // first one's navigation is still running must not undo the first.
   const toggle = (id: string) => {
-    const next = selected.includes(id) ? selected.filter((s) => s !== id) : [...selected, id];
-    setSearch(next.length ? { compare: next.join(',') } : {}, { replace: true });
+    setSearch(
+      (current) => {
+        const now = (current.get('compare') ?? '').split(',').filter(Boolean);
+        const next = now.includes(id) ? now.filter((s) => s !== id) : [...now, id];
+        return next.length ? new URLSearchParams({ compare: next.join(',') }) : new URLSearchParams();
+      },
+      { replace: true },
+    );
   };
 
   if (variants.isPending || modes.isPending || loadCases.isPending) return <Loading label="Loading the tuning variants…" />;
