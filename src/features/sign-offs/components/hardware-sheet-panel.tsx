@@ -45,7 +45,7 @@ export function HardwareSheetPanel({ projectId, signOffId }: { projectId: string
           {sheet.data.rows.map((row) => (
             <tr key={`${row.section}-${row.quantity}`}>
               <Td className="text-ink-muted">{row.section}</Td>
-              <Td>{row.quantity}</Td>
+              <Td className="min-w-48">{row.quantity}</Td>
               <Td className="whitespace-nowrap text-right tabular-nums">{formatHardwareValue(row.value)}</Td>
               <Td>{row.unit}</Td>
               <Td className="text-ink-muted">{row.note}</Td>
