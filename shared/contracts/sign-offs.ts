@@ -79,3 +79,13 @@ export type SignOff = z.infer<typeof signOffSchema>;
 
 export const signOffListSchema = z.object({ signOffs: z.array(signOffSchema) });
 export type SignOffList = z.infer<typeof signOffListSchema>;
+
+/** GET …/sign-offs/:signOffId/hardware-sheet: the rows the CSV and the PDF carry (shared/compute/hardware-sheet.ts). */
+export const hardwareSheetSchema = z.object({
+  projectName: z.string(),
+  variantName: z.string(),
+  revision: z.string(),
+  rows: z.array(z.object({ section: z.string(), quantity: z.string(), value: z.union([z.number(), z.string()]), unit: z.string(), note: z.string() })),
+  caution: z.string(),
+});
+export type HardwareSheetAnswer = z.infer<typeof hardwareSheetSchema>;

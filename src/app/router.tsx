@@ -39,6 +39,8 @@ const projectSiteRecords = () =>
   import('./routes/project-site-records').then((module) => ({ Component: module.ProjectSiteRecordsRoute, loader: module.projectSiteRecordsLoader }));
 const projectSignOff = () =>
   import('./routes/project-sign-off').then((module) => ({ Component: module.ProjectSignOffRoute, loader: module.projectSignOffLoader }));
+const projectHardwareSheet = () =>
+  import('./routes/project-hardware-sheet').then((module) => ({ Component: module.ProjectHardwareSheetRoute, loader: module.projectHardwareSheetLoader }));
 const projectSection = (slug: string) => () =>
   import('./routes/project-section').then((module) => ({ Component: module.projectSectionRoute(slug) }));
 
@@ -84,6 +86,7 @@ export const router = createBrowserRouter([
                       { path: 'tuning-variants/:variantId/edit', lazy: tuningVariantEdit },
                       { path: 'site-records', lazy: projectSiteRecords },
                       { path: 'sign-off', lazy: projectSignOff },
+                      { path: 'hardware-sheet', lazy: projectHardwareSheet },
                       ...projectSections
                         .filter((entry) => !entry.available)
                         .map((entry) => ({ path: entry.slug, lazy: projectSection(entry.slug) })),

@@ -61,11 +61,6 @@ describe('organisation and project team in the browser', () => {
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Projects' }).click();
     await addDemoViewerToProject(page, 'Wrenmoor Mill footbridge');
     await browser.shot('team-02-project-members-admin');
-
-    // A section still to come says so and shows nothing made up.
-    await page.getByRole('navigation', { name: 'Project sections' }).getByRole('link', { name: /Hardware sheet/ }).click();
-    await page.getByText('This part of Stillspan is not yet available.').waitFor();
-    await browser.shot('team-03-section-not-yet-available');
   });
 
   it('refuses a save over a change made meanwhile and offers a reload', async () => {

@@ -12,6 +12,9 @@ import {
   type SignOffList,
 } from '../../../shared/contracts/sign-offs';
 import * as service from './sign-offs.service';
+import { getHardwareSheet, hardwareSheetFileName } from './hardware-sheet.service';
+import { hardwareSheetPdf } from './hardware-sheet.pdf';
+import { hardwareSheetCsv } from '../../../shared/compute/hardware-sheet';
 
 /**
  * /api/projects/:projectId/sign-offs: everyone in the organisation reads; admins and engineers submit; only owners
@@ -36,6 +39,24 @@ export function signOffsRouter(ctx: AppContext): Router {
   router.get('/:signOffId', validate({ params: signOffParamsSchema }), async (req, res) => {
     const { projectId, signOffId } = parsed(signOffParamsSchema, req.params);
     res.json(await service.getSignOff(ctx.db, currentUser(req), projectId, signOffId));
+  });
+
+  // The fabricator's hardware sheet of an approved sign-off (409 before approval): rows as JSON, CSV and PDF.
+  router.get('/:signOffId/hardware-sheet', validate({ params: signOffParamsSchema }), async (req, res) => {
+    const { projectId, signOffId } = parsed(signOffParamsSchema, req.params);
+    res.json(await getHardwareSheet(ctx.db, currentUser(req), projectId, signOffId));
+  });
+
+  router.get('/:signOffId/hardware-sheet.csv', validate({ params: signOffParamsSchema }), async (req, res) => {
+    const { projectId, signOffId } = parsed(signOffParamsSchema, req.params);
+    const sheet = await getHardwareSheet(ctx.db, currentUser(req), projectId, signOffId);
+    res.attachment(hardwareSheetFileName(sheet, 'csv')).type('text/csv; charset=utf-8').send(hardwareSheetCsv(sheet));
+  });
+
+  router.get('/:signOffId/hardware-sheet.pdf', validate({ params: signOffParamsSchema }), async (req, res) => {
+    const { projectId, signOffId } = parsed(signOffParamsSchema, req.params);
+    const sheet = await getHardwareSheet(ctx.db, currentUser(req), projectId, signOffId);
+    res.attachment(hardwareSheetFileName(sheet, 'pdf')).type('application/pdf').send(await hardwareSheetPdf(sheet));
   });
 
   router.post('/:signOffId/approve', deciders, validate({ params: signOffParamsSchema, body: approveSignOffSchema }), async (req, res) => {

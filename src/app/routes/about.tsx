@@ -27,8 +27,8 @@ export function AboutRoute() {
           <p>
             This release holds the organisation, its people and roles, and its projects with their structural model:
             structures and their modes (typed in, derived from a beam or taken from a lumped n-DOF model whose modes and
-            free vibration are computed as you type), load cases and comfort criteria. Tuning variants, the hardware
-            sheet, sign-off and site records follow and are marked as not yet available in each project.
+            free vibration are computed as you type), load cases and comfort criteria, tuning variants, the owner's
+            sign-off, the fabricator's hardware sheet of an approved design (CSV and PDF) and site records.
           </p>
         </div>
       </Panel>

@@ -5,6 +5,7 @@ import { describeCriteria } from '../../features/comfort-criteria/components/cri
 import { LimitLines } from '../../features/comfort-criteria/components/limit-lines';
 import { projectMembersQueryOptions } from '../../features/projects/api/projects';
 import { signOffsQueryOptions } from '../../features/sign-offs/api/sign-offs';
+import { HardwareSheetPanel } from '../../features/sign-offs/components/hardware-sheet-panel';
 import { SignOffDecision } from '../../features/sign-offs/components/sign-off-decision';
 import { SignOffTimeline } from '../../features/sign-offs/components/sign-off-timeline';
 import { Loading } from '../../components/ui/loading';
@@ -38,6 +39,7 @@ export function ProjectSignOffRoute() {
   if (signOffs.isPending) return <Loading label="Loading the sign-offs…" />;
   if (signOffs.isError) return <QueryError error={signOffs.error} retry={() => void signOffs.refetch()} what="the sign-offs" />;
   const awaiting = signOffs.data.filter((entry) => entry.status === 'submitted');
+  const approved = signOffs.data.filter((entry) => entry.status === 'approved');
   return (
     <div className="flex flex-col gap-6">
       <PageTitle title={`Sign-off · ${project.name}`} />
@@ -55,6 +57,9 @@ export function ProjectSignOffRoute() {
           />
         ))
       )}
+      {approved.map((entry) => (
+        <HardwareSheetPanel key={entry.id} projectId={project.id} signOffId={entry.id} />
+      ))}
       <Panel title="Sign-off timeline" description="Every design submitted to the owner, newest first, with the decision and the mails it sent.">
         <SignOffTimeline signOffs={signOffs.data} personName={personName} projectId={project.id} criteriaInWords={criteriaInWords} />
       </Panel>

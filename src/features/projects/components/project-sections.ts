@@ -39,7 +39,7 @@ export const projectSections: ProjectSection[] = [
   {
     slug: 'hardware-sheet',
     label: 'Hardware sheet',
-    available: false,
+    available: true,
     purpose: 'Moving mass, spring rate, damper coefficient, static deflection, design stroke and tuning range for the fabricator.',
   },
   {

@@ -1,5 +1,6 @@
 import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import {
+  hardwareSheetSchema,
   signOffListSchema,
   signOffSchema,
   type ApproveSignOffInput,
@@ -41,3 +42,13 @@ export function useDecideSignOff(projectId: string) {
     onSuccess: () => queryClient.invalidateQueries({ queryKey: ['projects', projectId] }),
   });
 }
+
+/** The hardware sheet of an approved sign-off: the rows of its CSV and PDF, read from the approved snapshot. */
+export const hardwareSheetPath = (projectId: string, signOffId: string) => `${itemPath(projectId, signOffId)}/hardware-sheet`;
+
+export const hardwareSheetQueryOptions = (projectId: string, signOffId: string) =>
+  queryOptions({
+    queryKey: [...signOffKeys.all(projectId), signOffId, 'hardware-sheet'] as const,
+    queryFn: ({ signal }) => apiRequest(hardwareSheetPath(projectId, signOffId), { schema: hardwareSheetSchema, signal }),
+    staleTime: Infinity,
+  });

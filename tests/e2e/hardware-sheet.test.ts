@@ -1,0 +1,82 @@
+/**
+ * The hardware sheet end to end in Debian's Chromium: a design of the invented demo footbridge (a copy of a demo
+ * variant made here, so other suites' variants stay as they are) is submitted and approved through the API, and the
+ * demo fabricator reaches its hardware sheet from the project's sections, reads the rows and downloads the CSV and PDF.
+ */
+import { describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { browserForFile, signIn, signOut } from './browser';
+
+const baseUrl = inject('baseUrl');
+const browser = browserForFile();
+const copyName = 'Hardware sheet check (invented demo variant)';
+
+/** A JSON request from the signed-in page (same origin, the session's cookie). */
+async function api(page: Page, method: string, path: string, body?: unknown): Promise<{ status: number; json: unknown }> {
+  return page.evaluate(
+    async ({ method, path, body }) => {
+      const response = await fetch(path, { method, headers: body ? { 'Content-Type': 'application/json' } : {}, body: body ? JSON.stringify(body) : undefined });
+      const text = await response.text();
+      return { status: response.status, json: text ? (JSON.parse(text) as unknown) : null };
+    },
+    { method, path, body },
+  );
+}
+
+async function openFootbridge(page: Page): Promise<string> {
+  await page.goto(`${baseUrl}/projects`);
+  await page.getByRole('link', { name: /Wrenmoor Mill footbridge/ }).first().click();
+  await page.waitForURL(/\/projects\/[0-9a-f-]{36}/);
+  return /\/projects\/([0-9a-f-]{36})/.exec(page.url())![1];
+}
+
+describe('hardware sheet', () => {
+  let projectId = '';
+  let signOffId = '';
+
+  it('is there for the fabricator once the owner approves a design', async () => {
+    const { page } = browser;
+    await signIn(page, baseUrl, 'engineer@demo.stillspan.test');
+    projectId = await openFootbridge(page);
+    const list = (await api(page, 'GET', `/api/projects/${projectId}/variants`)).json as { variants: Array<Record<string, unknown>> };
+    const source = list.variants.find((v) => String(v.name).startsWith('Den Hartog 2 %'))!;
+    const created = await api(page, 'POST', `/api/projects/${projectId}/variants`, {
+      name: copyName,
+      modeId: source.modeId,
+      loadCaseIds: source.loadCaseIds,
+      criteriaId: source.criteriaId,
+      massRatio: source.massRatio,
+      tuning: source.tuning,
+      unitCount: 2,
+    });
+    expect(created.status).toBe(201);
+    const submitted = await api(page, 'POST', `/api/projects/${projectId}/sign-offs`, { variantId: (created.json as { id: string }).id });
+    expect(submitted.status).toBe(201);
+    signOffId = (submitted.json as { id: string }).id;
+    await signOut(page);
+
+    await signIn(page, baseUrl, 'owner@demo.stillspan.test');
+    await openFootbridge(page);
+    expect((await api(page, 'POST', `/api/projects/${projectId}/sign-offs/${signOffId}/approve`, { comment: 'For the workshop (e2e).' })).status).toBe(200);
+    await signOut(page);
+
+    await signIn(page, baseUrl, 'fabricator@demo.stillspan.test');
+    await openFootbridge(page);
+    await page.getByRole('navigation', { name: 'Project sections' }).getByRole('link', { name: /Hardware sheet/ }).click();
+    const sheet = page.getByRole('region', { name: `Hardware sheet · ${copyName}` });
+    await sheet.waitFor();
+    await sheet.getByRole('cell', { name: 'Spring rate per spring' }).waitFor();
+    await sheet.getByText(/judgement of a qualified engineer/).waitFor();
+    const csv = await sheet.getByRole('link', { name: 'Download CSV' }).getAttribute('href');
+    const pdf = await sheet.getByRole('link', { name: 'Download PDF' }).getAttribute('href');
+    expect(csv).toBe(`/api/projects/${projectId}/sign-offs/${signOffId}/hardware-sheet.csv`);
+    expect(pdf).toBe(`/api/projects/${projectId}/sign-offs/${signOffId}/hardware-sheet.pdf`);
+    const files = await page.evaluate(async ([a, b]) => {
+      const [c, p] = await Promise.all([fetch(a), fetch(b)]);
+      return { csv: (await c.text()).split('\r\n')[0], pdfType: p.headers.get('content-type'), pdfStatus: p.status };
+    }, [csv!, pdf!]);
+    expect(files).toEqual({ csv: 'section,quantity,value,unit,note', pdfType: 'application/pdf', pdfStatus: 200 });
+    await browser.shot('hardware-sheet-01-fabricator');
+    expect(browser.consoleErrors).toEqual([]);
+  });
+});

@@ -1,0 +1,164 @@
+/**
+ * The fabricator's hardware sheet of an approved sign-off, against a real PostgreSQL: 409 before approval, every role
+ * of the organisation reads it, another organisation gets 404, and the CSV's and the PDF's numbers are those of the
+ * approved snapshot, checked against the standard TMD relations (Den Hartog 1956, "Mechanical Vibrations", 4th ed.;
+ * common practice for the hardware): m = μ M, k = m (2π f_a)², c = 2 ζ_a m ω_a, static deflection g / ω_a² with
+ * g = 9.80665 m/s² (standard gravity, CGPM 1901). The footbridge numbers are invented test inputs.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import Papa from 'papaparse';
+import { PDFParse } from 'pdf-parse';
+import { apiErrorSchema } from '../../shared/contracts/errors';
+import { hardwareSheetSchema, signOffSchema, type SignOff } from '../../shared/contracts/sign-offs';
+import { variantSchema } from '../../shared/contracts/variants';
+import { projectSchema } from '../../shared/contracts/projects';
+import { roles, type Role } from '../../shared/contracts/roles';
+import { HARDWARE_SHEET_CAUTION } from '../../shared/compute/hardware-sheet';
+import { createTestApp, signIn, type Agent, type TestApp } from '../support/test-app';
+
+let t: TestApp;
+const agents = {} as Record<Role, Agent>;
+let outsiderAgent: Agent;
+
+// Test inputs (invented).
+const projectName = 'Sheet test footbridge, "north" span';
+const mode = { label: 'Test vertical mode', direction: 'vertical', frequencyHz: 2.0, modalMassKg: 30_000, dampingRatio: 0.005, modeShapeMean: 0.6 };
+const crowdSpec = { kind: 'crowd', guide: 'setra', densityPerM2: 0.8, deckAreaM2: 120, harmonic: 1 };
+const criteriaSpec = { set: 'setra', class: 'maximum' };
+const massRatio = 0.02;
+const unitCount = 2;
+const springsPerUnit = 4;
+
+let base: string;
+let signOff: SignOff;
+
+/** Relative agreement to four significant figures. */
+const close = (actual: number, expected: number) => expect(Math.abs(actual - expected) / Math.abs(expected)).toBeLessThan(5e-5);
+
+beforeAll(async () => {
+  t = await createTestApp();
+  for (const role of roles) agents[role] = await signIn(t.app, t.people[role].email);
+  outsiderAgent = await signIn(t.app, t.outsider.email);
+  const agent = agents.engineer;
+  const projectId = projectSchema.parse((await agent.post('/api/projects').send({ name: projectName, kind: 'footbridge' }).expect(201)).body).id;
+  const structureId = (await agent.post(`/api/projects/${projectId}/structures`).send({ name: 'Test span', kind: 'footbridge-span' }).expect(201)).body.id as string;
+  const modeId = (await agent.post(`/api/projects/${projectId}/structures/${structureId}/modes`).send(mode).expect(201)).body.id as string;
+  const crowdId = (await agent.post(`/api/projects/${projectId}/load-cases`).send({ name: 'Test crowd', spec: crowdSpec }).expect(201)).body.id as string;
+  const criteriaId = (await agent.post(`/api/projects/${projectId}/comfort-criteria`).send({ name: 'Test criteria', spec: criteriaSpec }).expect(201)).body.id as string;
+  const created = await agent.post(`/api/projects/${projectId}/variants`).send({
+    name: 'Test Den Hartog 2 %',
+    modeId,
+    loadCaseIds: [crowdId],
+    criteriaId,
+    massRatio,
+    tuning: { method: 'den-hartog' },
+    unitCount,
+    hardware: { springsPerUnit },
+  });
+  expect(created.status, JSON.stringify(created.body)).toBe(201);
+  const variant = variantSchema.parse(created.body);
+  const submitted = await agent.post(`/api/projects/${projectId}/sign-offs`).send({ variantId: variant.id });
+  expect(submitted.status, JSON.stringify(submitted.body)).toBe(201);
+  signOff = signOffSchema.parse(submitted.body);
+  base = `/api/projects/${projectId}/sign-offs/${signOff.id}/hardware-sheet`;
+});
+
+afterAll(async () => {
+  await t?.close();
+});
+
+describe('hardware sheet', () => {
+  it('is refused with 409 before approval', async () => {
+    for (const suffix of ['', '.csv', '.pdf']) {
+      const response = await agents.fabricator.get(`${base}${suffix}`);
+      expect(response.status, suffix).toBe(409);
+      const error = apiErrorSchema.parse(response.body).error;
+      expect(error.code).toBe('sign_off_not_approved');
+      expect(error.message).toContain('approved');
+    }
+    const approved = await agents.owner.post(`/api/projects/${signOff.projectId}/sign-offs/${signOff.id}/approve`).send({ comment: 'Agreed, build it.' });
+    expect(approved.status, JSON.stringify(approved.body)).toBe(200);
+    signOff = signOffSchema.parse(approved.body);
+  });
+
+  it('every role of the organisation reads it; another organisation gets 404', async () => {
+    for (const role of roles) {
+      expect((await agents[role].get(base)).status, role).toBe(200);
+      expect((await agents[role].get(`${base}.csv`)).status, role).toBe(200);
+    }
+    for (const suffix of ['', '.csv', '.pdf']) expect((await outsiderAgent.get(`${base}${suffix}`)).status, suffix).toBe(404);
+  });
+
+  it("the CSV's numbers are the approved snapshot's, by the standard TMD relations", async () => {
+    const response = await agents.fabricator.get(`${base}.csv`).buffer(true);
+    expect(response.status).toBe(200);
+    expect(response.headers['content-type']).toBe('text/csv; charset=utf-8');
+    expect(response.headers['content-disposition']).toMatch(/^attachment; filename="?Sheet-test-footbridge-north-span-hardware-sheet-[0-9a-f]{8}-\d{4}-\d{2}-\d{2}\.csv"?$/);
+    // Read back by an independent RFC 4180 parser (papaparse).
+    const parsedCsv = Papa.parse<string[]>(response.text, { skipEmptyLines: true });
+    expect(parsedCsv.errors).toEqual([]);
+    const records = parsedCsv.data;
+    expect(records[0]).toEqual(['section', 'quantity', 'value', 'unit', 'note']);
+    expect(records.every((r) => r.length === 5)).toBe(true);
+    const value = (quantity: string) => {
+      const row = records.find((r) => r[1] === quantity);
+      expect(row, quantity).toBeDefined();
+      return row as string[];
+    };
+    expect(value('Project')[2]).toBe(projectName);
+
+    const snapshot = signOff.snapshot;
+    const tmd = snapshot.variant.result!.tmd;
+    const mKg = massRatio * mode.modalMassKg; // m = μ M
+    const wA = 2 * Math.PI * tmd.frequencyHz;
+    const g = 9.80665;
+    close(Number(value('Total moving mass')[2]), mKg);
+    close(tmd.massKg, mKg);
+    close(Number(value('Moving mass per unit')[2]), mKg / unitCount);
+    close(Number(value('Target frequency')[2]), tmd.frequencyHz);
+    close(Number(value('Damping ratio')[2]), tmd.dampingRatio);
+    expect(value('Damping ratio')[4]).toContain('f_a');
+    close(Number(value('Spring rate per unit')[2]), (mKg * wA * wA) / unitCount); // k = m ω_a²
+    expect(value('Spring rate per unit')[3]).toBe('N/m');
+    close(Number(value('Spring rate per spring')[2]), (mKg * wA * wA) / unitCount / springsPerUnit);
+    close(Number(value('Damper coefficient per unit')[2]), (2 * tmd.dampingRatio * mKg * wA) / unitCount); // c = 2 ζ_a m ω_a
+    close(Number(value('Static deflection under the moving mass')[2]), (g / (wA * wA)) * 1000); // mm
+    expect(Number(value('Number of units')[2])).toBe(unitCount);
+    close(Number(value('Modal mass')[2]), mode.modalMassKg);
+    close(Number(value('Mode frequency')[2]), mode.frequencyHz);
+    // The design stroke is the snapshot's, never recomputed.
+    const entry = snapshot.variant.result!.loadCases[0].hardware[0];
+    close(Number(value('Design stroke')[2]), entry.designStrokeM * 1000);
+    close(Number(value('Design stroke')[2]), entry.strokeMarginFactor * entry.maximumStrokeM * 1000);
+    expect(value('Approved by')[4]).toBe(t.people.owner.email);
+    expect(value('Comment')[2]).toBe('Agreed, build it.');
+    expect(value('Caution')[2]).toBe(HARDWARE_SHEET_CAUTION);
+
+    // The JSON rows are the same.
+    const sheet = hardwareSheetSchema.parse((await agents.viewer.get(base).expect(200)).body);
+    expect(sheet.rows.find((r) => r.quantity === 'Total moving mass')?.value).toBe(entry.movingMassKg);
+  });
+
+  it('the PDF parses and carries the project, the moving mass, the spring rate and the caution', async () => {
+    const response = await agents.viewer
+      .get(`${base}.pdf`)
+      .buffer(true)
+      .parse((res, callback) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (chunk: Buffer) => chunks.push(chunk));
+        res.on('end', () => callback(null, Buffer.concat(chunks)));
+      });
+    expect(response.status).toBe(200);
+    expect(response.headers['content-type']).toBe('application/pdf');
+    const parser = new PDFParse({ data: new Uint8Array(response.body as Buffer) });
+    const text = (await parser.getText()).text.replace(/\s+/g, ' ');
+    await parser.destroy();
+    const sheet = hardwareSheetSchema.parse((await agents.viewer.get(base).expect(200)).body);
+    const shown = (quantity: string) => String(Number((sheet.rows.find((r) => r.quantity === quantity)?.value as number).toPrecision(6)));
+    expect(text).toContain(projectName);
+    expect(text).toContain(shown('Total moving mass'));
+    expect(text).toContain(shown('Spring rate per unit'));
+    expect(text).toContain('judgement of a qualified engineer');
+    expect(text).toContain('licensed practice govern');
+  });
+});
