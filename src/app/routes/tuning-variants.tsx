@@ -1,4 +1,5 @@
 import { useQuery, useQueryClient } from '@tanstack/react-query';
+import { useEffect, useState } from 'react';
 import { useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { LinkButton } from '../../components/ui/button';
 import { Caution } from '../../components/ui/caution';
@@ -29,19 +30,16 @@ export function TuningVariantsRoute() {
   const modes = useQuery(projectModesQueryOptions(project.id, client));
   const loadCases = useQuery(loadCasesQueryOptions(project.id));
   const [search, setSearch] = useSearchParams();
-  const selected = (search.get('compare') ?? '').split(',').filter(Boolean);
+  // The ticks live in the page's state, which changes at once; the address follows them (so a comparison can be
+  // shared), but is never read back mid-navigation, where a second quick tick would undo the first.
+  const [selected, setSelected] = useState<string[]>(() => (search.get('compare') ?? '').split(',').filter(Boolean));
+  const compareParam = selected.join(',');
+  useEffect(() => {
+    if ((search.get('compare') ?? '') !== compareParam) setSearch(compareParam ? { compare: compareParam } : {}, { replace: true });
+  }, [compareParam, search, setSearch]);
 
-  // From the address as it is when the change applies, not as this render saw it: a second tick made while the
-  // first one's navigation is still running must not undo the first.
   const toggle = (id: string) => {
-    setSearch(
-      (current) => {
-        const now = (current.get('compare') ?? '').split(',').filter(Boolean);
-        const next = now.includes(id) ? now.filter((s) => s !== id) : [...now, id];
-        return next.length ? new URLSearchParams({ compare: next.join(',') }) : new URLSearchParams();
-      },
-      { replace: true },
-    );
+    setSelected((now) => (now.includes(id) ? now.filter((s) => s !== id) : [...now, id]));
   };
 
   if (variants.isPending || modes.isPending || loadCases.isPending) return <Loading label="Loading the tuning variants…" />;
