@@ -8,12 +8,12 @@ import { sql } from 'drizzle-orm';
 import { check, doublePrecision, foreignKey, index, integer, jsonb, pgEnum, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
 import type { ComfortCriteria, ModeSource, SavedLoadCase, StructureKind } from '../../../shared/contracts/model';
 import { comfortCriteriaStatuses, structureKinds } from '../../../shared/contracts/model';
+import { modeDirections } from '../../../shared/engine/types';
 import { users } from './auth';
 import { projects } from './projects';
 
 export const structureKindEnum = pgEnum('structure_kind', structureKinds satisfies readonly StructureKind[]);
 /** Every direction a mode may have; the API accepts the ones the engine's direction list names. */
-export const modeDirections = ['vertical', 'lateral', 'longitudinal', 'torsional'] as const;
 export const modeDirectionEnum = pgEnum('mode_direction', modeDirections);
 export const comfortCriteriaStatusEnum = pgEnum('comfort_criteria_status', comfortCriteriaStatuses);
 

@@ -31,14 +31,17 @@
  *    vertical ψ for longitudinal modes (both guides). Load cases built on them carry a warning saying so.
  */
 
+import type { ModeDirection } from '../types';
+
 export type CrowdGuide = 'setra' | 'hivoss';
+
 /** The directions of a pedestrian force. */
 export type ForceDirection = 'vertical' | 'lateral' | 'longitudinal';
 /**
- * The direction of a structure mode. A torsional mode is loaded by the vertical pedestrian force acting on the
+ * The direction of a structure mode (the engine's one list). A torsional mode is loaded by the vertical pedestrian force acting on the
  * vertical ordinates of its (eccentric) mode shape.
  */
-export type LoadDirection = ForceDirection | 'torsional';
+export type LoadDirection = ModeDirection;
 export type CrowdHarmonic = 1 | 2;
 
 /** The pedestrian force direction that loads a mode of the given direction (torsional: vertical). */
