@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { typeError } from './messages';
 import { signOffParamsSchema } from './sign-offs';
+import type { Role } from './roles';
 
 /**
  * As-built records of a damper whose design the owner approved: per unit the measured moving mass and, when known,
@@ -8,6 +9,13 @@ import { signOffParamsSchema } from './sign-offs';
  * and answered with its comparison against the hardware sheet (shared/compute/as-built.ts,
  * docs/decisions/0021-as-built-records.md).
  */
+
+/** Who may record as-built data: the fabricator who measures the units, and the engineers; owners and viewers read. */
+export const asBuiltRecorderRoles: readonly Role[] = ['admin', 'engineer', 'fabricator'];
+
+export function canRecordAsBuilt(role: Role): boolean {
+  return asBuiltRecorderRoles.includes(role);
+}
 
 /**
  * Physical ranges of one measured damper unit. Wide enough for any tuned mass damper unit of a footbridge or floor

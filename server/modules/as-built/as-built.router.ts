@@ -2,12 +2,8 @@ import { Router } from 'express';
 import type { AppContext } from '../../context';
 import { currentUser, requireRole } from '../../middleware/auth';
 import { parsed, validate } from '../../middleware/validate';
-import type { Role } from '../../../shared/contracts/roles';
-import { asBuiltInputSchema, asBuiltParamsSchema, type AsBuiltRecordList } from '../../../shared/contracts/as-built';
+import { asBuiltInputSchema, asBuiltParamsSchema, asBuiltRecorderRoles, type AsBuiltRecordList } from '../../../shared/contracts/as-built';
 import * as service from './as-built.service';
-
-/** Who may record as-built data: the fabricator who measures the units, and the engineers. */
-export const asBuiltRecorderRoles: readonly Role[] = ['admin', 'engineer', 'fabricator'];
 
 /**
  * /api/projects/:projectId/sign-offs/:signOffId/as-built: everyone in the organisation reads the records of an approved

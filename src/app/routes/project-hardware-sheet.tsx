@@ -2,6 +2,9 @@ import { useQuery } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import { signOffsQueryOptions } from '../../features/sign-offs/api/sign-offs';
 import { HardwareSheetPanel } from '../../features/sign-offs/components/hardware-sheet-panel';
+import { AsBuiltSection } from '../../features/as-built/components/as-built-section';
+import { canRecordAsBuilt } from '../../../shared/contracts/as-built';
+import { useCurrentUser } from '../session';
 import { Loading } from '../../components/ui/loading';
 import { PageTitle } from '../../components/ui/page-title';
 import { QueryError } from '../../components/ui/query-error';
@@ -16,6 +19,7 @@ export async function projectHardwareSheetLoader({ params }: LoaderFunctionArgs)
 /** Hardware sheet: one sheet per approved design, newest first, for the fabricator, with its CSV and PDF. */
 export function ProjectHardwareSheetRoute() {
   const { project } = useProjectContext();
+  const me = useCurrentUser();
   const signOffs = useQuery(signOffsQueryOptions(project.id));
   if (signOffs.isPending) return <Loading label="Loading the sign-offs…" />;
   if (signOffs.isError) return <QueryError error={signOffs.error} retry={() => void signOffs.refetch()} what="the sign-offs" />;
@@ -26,7 +30,12 @@ export function ProjectHardwareSheetRoute() {
       {approved.length === 0 ? (
         <p className="text-small text-ink-soft">No design is approved yet: a hardware sheet exists once the owner approves a design on the Sign-off page.</p>
       ) : (
-        approved.map((entry) => <HardwareSheetPanel key={entry.id} projectId={project.id} signOffId={entry.id} />)
+        approved.map((entry) => (
+          <div key={entry.id} className="flex flex-col gap-6">
+            <HardwareSheetPanel projectId={project.id} signOffId={entry.id} />
+            <AsBuiltSection projectId={project.id} signOff={entry} canRecord={canRecordAsBuilt(me.role)} />
+          </div>
+        ))
       )}
     </div>
   );

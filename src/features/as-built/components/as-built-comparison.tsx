@@ -1,0 +1,141 @@
+import type { AsBuiltComparison, AsBuiltUnitComparison, RangeVerdict } from '../../../../shared/contracts/as-built';
+import { Table, Td, Th } from '../../../components/ui/table';
+import { formatNumber, formatPercent } from '../../../lib/format';
+
+type Deviation = AsBuiltUnitComparison['movingMassKg'];
+
+/** A signed deviation, with its unit and percentage: "+10.4 kg (+4.2 %)". */
+function signed(value: number, significant = 3): string {
+  const text = formatNumber(value, significant);
+  return value > 0 ? `+${text}` : text;
+}
+
+function DeviationCell({ deviation, unit }: { deviation: Deviation | null; unit: string }) {
+  if (!deviation) return <Td className="text-ink-muted">not given</Td>;
+  return (
+    <Td className="whitespace-nowrap tabular-nums">
+      <span className="block text-ink">
+        {formatNumber(deviation.measuredValue, 4)} {unit}
+      </span>
+      <span className="block text-caption text-ink-muted">
+        {signed(deviation.absolute)} {unit} ({signed(deviation.percent, 2)} %)
+      </span>
+    </Td>
+  );
+}
+
+const verdictWords: Record<RangeVerdict, string> = { inside: 'in range', below: 'BELOW range', above: 'ABOVE range' };
+
+/** A range check in words and a mark, so it never rests on colour alone. */
+function VerdictMark({ verdict }: { verdict: RangeVerdict | undefined }) {
+  if (!verdict) return null;
+  const outside = verdict !== 'inside';
+  return (
+    <span className={`mt-0.5 inline-flex items-center gap-1 text-caption font-semibold ${outside ? 'text-signal-error' : 'text-signal-ok'}`}>
+      <span aria-hidden="true">{verdict === 'above' ? '▲' : verdict === 'below' ? '▼' : '✓'}</span>
+      {verdictWords[verdict]}
+    </span>
+  );
+}
+
+function UnitRow({ unit }: { unit: AsBuiltUnitComparison }) {
+  const outside = !unit.withinTuningRange;
+  return (
+    <tr className={outside ? 'bg-signal-error-bg/50' : undefined}>
+      <Td className="whitespace-nowrap font-semibold">
+        Unit {unit.unitNumber}
+        {outside ? (
+          <span className="mt-0.5 block text-caption font-semibold text-signal-error">
+            <span aria-hidden="true">⚠ </span>Outside
+          </span>
+        ) : (
+          <span className="mt-0.5 block text-caption font-normal text-signal-ok">
+            <span aria-hidden="true">✓ </span>All in range
+          </span>
+        )}
+      </Td>
+      <DeviationCell deviation={unit.movingMassKg} unit="kg" />
+      <Td className="whitespace-nowrap">
+        <VerdictMark verdict={unit.massRange.verdict} />
+      </Td>
+      <DeviationCell deviation={unit.springRateNPerM} unit="N/m" />
+      <Td className="whitespace-nowrap">
+        <VerdictMark verdict={unit.springRateRange?.verdict} />
+      </Td>
+      <DeviationCell deviation={unit.frequencyHz} unit="Hz" />
+      <Td className="whitespace-nowrap">
+        <VerdictMark verdict={unit.frequencyRange?.verdict} />
+      </Td>
+      <DeviationCell deviation={unit.impliedFrequencyHz} unit="Hz" />
+      <Td className="whitespace-nowrap">
+        <VerdictMark verdict={unit.impliedFrequencyRange?.verdict} />
+      </Td>
+    </tr>
+  );
+}
+
+/**
+ * The comparison of one record with the hardware sheet: per unit the measured values, their deviation from the
+ * design (absolute and %), each range check in words, the warnings in plain words, and the mass ratio built.
+ */
+export function AsBuiltComparisonView({ comparison, caption }: { comparison: AsBuiltComparison; caption: string }) {
+  const { design } = comparison;
+  const outside = comparison.unitsOutsideRange;
+  return (
+    <div className="flex flex-col gap-4">
+      {comparison.warnings.length > 0 ? (
+        <div role="alert" className="rounded-plate border-2 border-signal-error bg-signal-error-bg px-4 py-3 text-small text-ink">
+          <p className="font-semibold text-signal-error">
+            <span aria-hidden="true">⚠ </span>
+            {outside.length > 0
+              ? `Outside the tuning range: unit${outside.length === 1 ? '' : 's'} ${outside.join(', ')}`
+              : 'Check before acceptance'}
+          </p>
+          <ul className="mt-2 list-disc space-y-1 pl-5">
+            {comparison.warnings.map((warning) => (
+              <li key={warning}>{warning}</li>
+            ))}
+          </ul>
+        </div>
+      ) : (
+        <p role="status" className="rounded-plate border border-signal-ok/30 bg-signal-ok-bg px-4 py-2 text-small font-medium text-signal-ok">
+          <span aria-hidden="true">✓ </span>
+          Every unit recorded is inside the tuning range of the hardware sheet.
+        </p>
+      )}
+      <Table caption={caption}>
+        <thead>
+          <tr>
+            <Th>Unit</Th>
+            <Th>Moving mass, Δ</Th>
+            <Th>at design springs</Th>
+            <Th>Spring rate, Δ</Th>
+            <Th>at design mass</Th>
+            <Th>Tuned frequency, Δ</Th>
+            <Th>tuning range</Th>
+            <Th>Implied by k and m, Δ</Th>
+            <Th>tuning range</Th>
+          </tr>
+        </thead>
+        <tbody>
+          {comparison.units.map((unit) => (
+            <UnitRow key={unit.unitNumber} unit={unit} />
+          ))}
+        </tbody>
+      </Table>
+      <dl className="grid gap-x-6 gap-y-1 text-small sm:grid-cols-[auto_1fr]">
+        <dt className="font-semibold text-ink-soft">Moving mass of the {comparison.recordedUnitCount} unit{comparison.recordedUnitCount === 1 ? '' : 's'} recorded</dt>
+        <dd className="tabular-nums">
+          {formatNumber(comparison.recordedMovingMassKg.measuredValue, 4)} kg against {formatNumber(comparison.recordedMovingMassKg.designValue, 4)} kg designed (
+          {signed(comparison.recordedMovingMassKg.percent, 2)} %)
+        </dd>
+        <dt className="font-semibold text-ink-soft">Mass ratio built</dt>
+        <dd className="tabular-nums">
+          {comparison.builtMassRatio === null
+            ? `known once all ${comparison.unitCount} units are recorded`
+            : `${formatPercent(comparison.builtMassRatio, 3)} of the modal mass (${formatNumber(design.modalMassKg, 4)} kg), designed ${formatPercent(design.massRatio, 3)}`}
+        </dd>
+      </dl>
+    </div>
+  );
+}
