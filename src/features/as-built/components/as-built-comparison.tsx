@@ -10,31 +10,33 @@ function signed(value: number, significant = 3): string {
   return value > 0 ? `+${text}` : text;
 }
 
-function DeviationCell({ deviation, unit }: { deviation: Deviation | null; unit: string }) {
-  if (!deviation) return <Td className="text-ink-muted">not given</Td>;
+type RangeCheck = AsBuiltUnitComparison['massRange'];
+
+const verdictWords: Record<RangeVerdict, string> = { inside: 'in range', below: 'BELOW range', above: 'ABOVE range' };
+const verdictMarks: Record<RangeVerdict, string> = { inside: '✓', below: '▼', above: '▲' };
+
+/**
+ * A measured value, its deviation from the design ("+10.4 kg (+4.2 %)") and its range check in words with a mark and
+ * the range itself, so that nothing rests on colour alone.
+ */
+function QuantityCell({ deviation, range, unit }: { deviation: Deviation | null; range: RangeCheck | null; unit: string }) {
+  if (!deviation) return <Td className="align-top text-ink-muted">not given</Td>;
+  const outside = range !== null && range.verdict !== 'inside';
   return (
-    <Td className="whitespace-nowrap tabular-nums">
+    <Td className="whitespace-nowrap align-top tabular-nums">
       <span className="block text-ink">
         {formatNumber(deviation.measuredValue, 4)} {unit}
       </span>
       <span className="block text-caption text-ink-muted">
         {signed(deviation.absolute)} {unit} ({signed(deviation.percent, 2)} %)
       </span>
+      {range ? (
+        <span className={`mt-0.5 block text-caption ${outside ? 'font-semibold text-signal-error' : 'text-signal-ok'}`}>
+          <span aria-hidden="true">{verdictMarks[range.verdict]} </span>
+          {verdictWords[range.verdict]} {formatNumber(range.low, 3)}–{formatNumber(range.high, 3)}
+        </span>
+      ) : null}
     </Td>
-  );
-}
-
-const verdictWords: Record<RangeVerdict, string> = { inside: 'in range', below: 'BELOW range', above: 'ABOVE range' };
-
-/** A range check in words and a mark, so it never rests on colour alone. */
-function VerdictMark({ verdict }: { verdict: RangeVerdict | undefined }) {
-  if (!verdict) return null;
-  const outside = verdict !== 'inside';
-  return (
-    <span className={`mt-0.5 inline-flex items-center gap-1 text-caption font-semibold ${outside ? 'text-signal-error' : 'text-signal-ok'}`}>
-      <span aria-hidden="true">{verdict === 'above' ? '▲' : verdict === 'below' ? '▼' : '✓'}</span>
-      {verdictWords[verdict]}
-    </span>
   );
 }
 
@@ -42,7 +44,7 @@ function UnitRow({ unit }: { unit: AsBuiltUnitComparison }) {
   const outside = !unit.withinTuningRange;
   return (
     <tr className={outside ? 'bg-signal-error-bg/50' : undefined}>
-      <Td className="whitespace-nowrap font-semibold">
+      <Td className="whitespace-nowrap align-top font-semibold">
         Unit {unit.unitNumber}
         {outside ? (
           <span className="mt-0.5 block text-caption font-semibold text-signal-error">
@@ -54,22 +56,10 @@ function UnitRow({ unit }: { unit: AsBuiltUnitComparison }) {
           </span>
         )}
       </Td>
-      <DeviationCell deviation={unit.movingMassKg} unit="kg" />
-      <Td className="whitespace-nowrap">
-        <VerdictMark verdict={unit.massRange.verdict} />
-      </Td>
-      <DeviationCell deviation={unit.springRateNPerM} unit="N/m" />
-      <Td className="whitespace-nowrap">
-        <VerdictMark verdict={unit.springRateRange?.verdict} />
-      </Td>
-      <DeviationCell deviation={unit.frequencyHz} unit="Hz" />
-      <Td className="whitespace-nowrap">
-        <VerdictMark verdict={unit.frequencyRange?.verdict} />
-      </Td>
-      <DeviationCell deviation={unit.impliedFrequencyHz} unit="Hz" />
-      <Td className="whitespace-nowrap">
-        <VerdictMark verdict={unit.impliedFrequencyRange?.verdict} />
-      </Td>
+      <QuantityCell deviation={unit.movingMassKg} range={unit.massRange} unit="kg" />
+      <QuantityCell deviation={unit.springRateNPerM} range={unit.springRateRange} unit="N/m" />
+      <QuantityCell deviation={unit.frequencyHz} range={unit.frequencyRange} unit="Hz" />
+      <QuantityCell deviation={unit.impliedFrequencyHz} range={unit.impliedFrequencyRange} unit="Hz" />
     </tr>
   );
 }
@@ -107,14 +97,10 @@ export function AsBuiltComparisonView({ comparison, caption }: { comparison: AsB
         <thead>
           <tr>
             <Th>Unit</Th>
-            <Th>Moving mass, Δ</Th>
-            <Th>at design springs</Th>
-            <Th>Spring rate, Δ</Th>
-            <Th>at design mass</Th>
-            <Th>Tuned frequency, Δ</Th>
-            <Th>tuning range</Th>
-            <Th>Implied by k and m, Δ</Th>
-            <Th>tuning range</Th>
+            <Th>Moving mass · range at design springs</Th>
+            <Th>Spring rate · range at design mass</Th>
+            <Th>Tuned frequency, measured · tuning range</Th>
+            <Th>Frequency implied by k and m · tuning range</Th>
           </tr>
         </thead>
         <tbody>

@@ -1,0 +1,130 @@
+/**
+ * As-built records end to end in Debian's Chromium: a copy of a variant of the invented demo footbridge (made here,
+ * so other suites' variants stay as they are) is submitted and approved through the API; the demo fabricator opens
+ * its hardware sheet, records both units (the form refuses a negative mass next to the field first), and sees the
+ * deviation and the plain-words warning for a unit tuned above the tuning range; the viewer reads it without a form.
+ * The measured values are invented.
+ */
+import { describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { browserForFile, signIn, signOut } from './browser';
+
+const baseUrl = inject('baseUrl');
+const browser = browserForFile();
+const copyName = 'As-built check (invented demo variant)';
+
+/** A JSON request from the signed-in page (same origin, the session's cookie). */
+async function api(page: Page, method: string, path: string, body?: unknown): Promise<{ status: number; json: unknown }> {
+  return page.evaluate(
+    async ({ method, path, body }) => {
+      const response = await fetch(path, { method, headers: body ? { 'Content-Type': 'application/json' } : {}, body: body ? JSON.stringify(body) : undefined });
+      const text = await response.text();
+      return { status: response.status, json: text ? (JSON.parse(text) as unknown) : null };
+    },
+    { method, path, body },
+  );
+}
+
+async function openFootbridge(page: Page): Promise<string> {
+  await page.goto(`${baseUrl}/projects`);
+  await page.getByRole('link', { name: /Wrenmoor Mill footbridge/ }).first().click();
+  await page.waitForURL(/\/projects\/[0-9a-f-]{36}/);
+  return /\/projects\/([0-9a-f-]{36})/.exec(page.url())![1];
+}
+
+async function openHardwareSheet(page: Page) {
+  await openFootbridge(page);
+  await page.getByRole('navigation', { name: 'Project sections' }).getByRole('link', { name: /Hardware sheet/ }).click();
+  const section = page.getByRole('region', { name: `As built · ${copyName}` });
+  await section.waitFor();
+  return section;
+}
+
+describe('as-built records', () => {
+  let projectId = '';
+  let signOffId = '';
+
+  it('the fabricator records the units of an approved design and sees the deviation and an out-of-range warning', async () => {
+    const { page } = browser;
+    await signIn(page, baseUrl, 'engineer@demo.stillspan.test');
+    projectId = await openFootbridge(page);
+    const list = (await api(page, 'GET', `/api/projects/${projectId}/variants`)).json as { variants: Array<Record<string, unknown>> };
+    const source = list.variants.find((v) => String(v.name).startsWith('Den Hartog 2 %'))!;
+    const created = await api(page, 'POST', `/api/projects/${projectId}/variants`, {
+      name: copyName,
+      modeId: source.modeId,
+      loadCaseIds: source.loadCaseIds,
+      criteriaId: source.criteriaId,
+      massRatio: source.massRatio,
+      tuning: source.tuning,
+      unitCount: 2,
+    });
+    expect(created.status).toBe(201);
+    const submitted = await api(page, 'POST', `/api/projects/${projectId}/sign-offs`, { variantId: (created.json as { id: string }).id });
+    expect(submitted.status).toBe(201);
+    signOffId = (submitted.json as { id: string }).id;
+    await signOut(page);
+
+    await signIn(page, baseUrl, 'owner@demo.stillspan.test');
+    await openFootbridge(page);
+    expect((await api(page, 'POST', `/api/projects/${projectId}/sign-offs/${signOffId}/approve`, { comment: 'For the workshop (e2e).' })).status).toBe(200);
+    await signOut(page);
+
+    await signIn(page, baseUrl, 'fabricator@demo.stillspan.test');
+    const section = await openHardwareSheet(page);
+    const sheet = (await api(page, 'GET', `/api/projects/${projectId}/sign-offs/${signOffId}/hardware-sheet`)).json as { rows: { quantity: string; value: number }[] };
+    const row = (quantity: string) => sheet.rows.find((r) => r.quantity === quantity)!.value;
+    const massKg = row('Moving mass per unit');
+    const highHz = row('Frequency, high end');
+    await section.getByText(/judgement of a qualified engineer/).waitFor();
+    await section.getByText('No as-built record yet.').waitFor();
+
+    // A negative mass is refused next to its field before anything is sent.
+    const mass1 = section.getByLabel('Unit 1, moving mass [kg]');
+    const mass2 = section.getByLabel('Unit 2, moving mass [kg]');
+    await mass1.fill('-3');
+    await mass2.fill(String(Math.round(massKg)));
+    await section.getByRole('button', { name: 'Add as-built record' }).click();
+    await section.getByText('Moving mass [kg] must be between 0.1 and 1000000 kg').waitFor();
+    expect(await mass1.getAttribute('aria-invalid')).toBe('true');
+
+    // Unit 1 5 % heavy; unit 2 tuned 10 % above the high end of the tuning range.
+    const heavyKg = Math.round(massKg * 1.05);
+    const fastHz = Number((highHz * 1.1).toFixed(2));
+    await mass1.fill(String(heavyKg));
+    await section.getByLabel('Unit 2, tuned frequency [Hz]').fill(String(fastHz));
+    await section.getByLabel('Note on this record').fill('First weighing after installation (invented)');
+    await section.getByRole('button', { name: 'Add as-built record' }).click();
+    const latest = section.getByRole('region', { name: 'Latest as-built record' });
+    await latest.waitFor();
+    const warning = latest.getByRole('alert');
+    await warning.getByText('Outside the tuning range: unit 2').waitFor();
+    await warning.getByText(new RegExp(`^Unit 2: measured ${fastHz} Hz is above the tuning range [\\d.]+–[\\d.]+ Hz; add mass or soften the springs$`)).waitFor();
+    const unit1 = latest.getByRole('row', { name: /^Unit 1/ });
+    await unit1.getByText(`${new Intl.NumberFormat('en-GB', { maximumSignificantDigits: 4 }).format(heavyKg)} kg`, { exact: true }).waitFor();
+    const percent = new Intl.NumberFormat('en-GB', { maximumSignificantDigits: 2 }).format(((heavyKg - massKg) / massKg) * 100);
+    await unit1.getByText(`(+${percent} %)`, { exact: false }).waitFor();
+    await latest.getByRole('row', { name: /^Unit 2/ }).getByText('ABOVE range').waitFor();
+    await browser.shot('as-built-01-fabricator');
+
+    // A re-measurement after adjustment is a new record; the first one is kept below.
+    await section.getByLabel('Unit 2, tuned frequency [Hz]').fill(String(row('Target frequency').toFixed(3)));
+    await section.getByRole('button', { name: 'Add as-built record' }).click();
+    await section.getByRole('region', { name: 'Earlier as-built records' }).getByText(/outside the range: unit 2/).waitFor();
+    await latest.getByText('Every unit recorded is inside the tuning range of the hardware sheet.').waitFor();
+    await browser.shot('as-built-02-re-measured');
+    expect(browser.consoleErrors).toEqual([]);
+    await signOut(page);
+  });
+
+  it('the viewer reads the records without a form', async () => {
+    const { page } = browser;
+    await signIn(page, baseUrl, 'viewer@demo.stillspan.test');
+    const section = await openHardwareSheet(page);
+    await section.getByRole('region', { name: 'Latest as-built record' }).waitFor();
+    await section.getByText(/the fabricator, an engineer or an admin records them/).waitFor();
+    expect(await section.getByRole('button', { name: 'Add as-built record' }).count()).toBe(0);
+    await browser.shot('as-built-03-viewer');
+    expect(browser.consoleErrors).toEqual([]);
+  });
+});
