@@ -87,6 +87,7 @@ describe('as-built records', () => {
     await section.getByRole('button', { name: 'Add as-built record' }).click();
     await section.getByText('Moving mass [kg] must be between 0.1 and 1000000 kg').waitFor();
     expect(await mass1.getAttribute('aria-invalid')).toBe('true');
+    await section.screenshot({ path: `${inject('resultsDir')}/as-built-00-form-error.png` });
 
     // Unit 1 5 % heavy; unit 2 tuned 10 % above the high end of the tuning range.
     const heavyKg = Math.round(massKg * 1.05);
@@ -106,6 +107,7 @@ describe('as-built records', () => {
     await unit1.getByText(`(+${percent} %)`, { exact: false }).waitFor();
     await latest.getByRole('row', { name: /^Unit 2/ }).getByText('ABOVE range').waitFor();
     await browser.shot('as-built-01-fabricator');
+    await section.screenshot({ path: `${inject('resultsDir')}/as-built-01-section.png` });
 
     // A re-measurement after adjustment is a new record; the first one is kept below.
     await section.getByLabel('Unit 2, tuned frequency [Hz]').fill(String(row('Target frequency').toFixed(3)));

@@ -152,7 +152,7 @@ export function AsBuiltForm({ projectId, signOffId, design, latest }: { projectI
           <tbody>
             {rows.map((i) => (
               <tr key={i} className="align-top">
-                <th scope="row" className="border-b border-paper-line px-2 py-2 font-semibold text-ink">
+                <th scope="row" className="whitespace-nowrap border-b border-paper-line px-2 py-2 font-semibold text-ink">
                   Unit {i + 1}
                   {errorAt(errors, `units.${i}.unitNumber`) ? <p className="text-caption font-medium text-signal-error">{errorAt(errors, `units.${i}.unitNumber`)}</p> : null}
                 </th>
