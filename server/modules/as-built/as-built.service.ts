@@ -7,7 +7,7 @@ import type { Database } from '../../db/client';
 import { HttpError, notFound } from '../../lib/http-error';
 import type { CurrentUser } from '../../middleware/auth';
 import { asBuiltInputSchemaFor, type AsBuiltInput, type AsBuiltRecord, type AsBuiltUnit } from '../../../shared/contracts/as-built';
-import { asBuiltDesignOf, compareAsBuilt, type AsBuiltDesign } from '../../../shared/compute/as-built';
+import { asBuiltDesignOf, AsBuiltDesignUnavailableError, compareAsBuilt, type AsBuiltDesign } from '../../../shared/compute/as-built';
 import { requireProjectScope } from '../structures/structures.service';
 import type { ProjectScope } from '../structures/structures.repository';
 import { findSignOff } from '../sign-offs/sign-offs.repository';
@@ -23,7 +23,14 @@ async function approvedDesign(db: Database, user: CurrentUser, projectId: string
       { path: 'signOffId', message: `is ${signOff.status}, not approved` },
     ]);
   }
-  return { scope, design: asBuiltDesignOf(signOff.snapshot) };
+  try {
+    return { scope, design: asBuiltDesignOf(signOff.snapshot) };
+  } catch (error) {
+    if (!(error instanceof AsBuiltDesignUnavailableError)) throw error;
+    throw new HttpError(409, 'hardware_sheet_unavailable', `There is no hardware sheet to compare with: ${error.message}`, [
+      { path: 'signOffId', message: error.message },
+    ]);
+  }
 }
 
 function toRecord(row: Omit<repository.AsBuiltRow, 'recordedByName'> & { recordedByName?: string | null }, design: AsBuiltDesign): AsBuiltRecord {
