@@ -6,3 +6,4 @@ export * from './sign-in-attempts';
 export * from './variants';
 export * from './site-records';
 export * from './sign-offs';
+export * from './history';
