@@ -310,6 +310,17 @@ describe('every change is recorded with who, when, what, before and after', () =
     expect(scripted.by).toBeNull();
     expect(scripted.changes).toEqual({ notes: { before: null, after: 'Typed in by a script' } });
 
+    // The stored file is compared, never copied: a change of its bytes alone says so, and no entry holds the file.
+    await t.ctx.db.execute(sql`update site_records set file_bytes = file_bytes || '\n'::bytea where id = ${recordId}`);
+    const refiled = await latest(ids, recordId);
+    expect(refiled.by).toBeNull();
+    expect(refiled.changes).toEqual({ fileBytes: { changed: true } });
+    const [{ largest }] = (
+      await t.ctx.db.execute<{ largest: number }>(sql`select max(octet_length(changes::text)) as largest from history_events where entity_id = ${recordId}`)
+    ).rows;
+    expect(csv.length).toBeGreaterThan(100_000);
+    expect(Number(largest)).toBeLessThan(2_000);
+
     await agents.engineer.delete(`/api/projects/${ids.projectId}/site-records/${recordId}`).expect(204);
     expect(await latest(ids, recordId)).toMatchObject({ action: 'delete', label: 'heel-drop.csv' });
   });
