@@ -281,7 +281,7 @@ describe('every change is recorded with who, when, what, before and after', () =
     expect((await history(ids, { pageSize: 200 })).events.length).toBe(count);
   });
 
-  it('site records: upload, analyse again, delete; an SQL change without a person is recorded with none', async () => {
+  it('site records: upload, analyse again, a re-tuned variant, delete; an SQL change without a person is recorded with none', async () => {
     const ids = await newProject('History site footbridge');
     const csv = demoSiteRecordCsv(demoSiteRecords[0]);
     const uploaded = await agents.fabricator
@@ -303,6 +303,14 @@ describe('every change is recorded with who, when, what, before and after', () =
     const analysed = await latest(ids, recordId);
     expect(analysed).toMatchObject({ action: 'update', by: engineerBy() });
     expect(analysed.changes).toEqual({ analysis: { changed: true } });
+
+    // A re-tuned variant made from the record is a new variant, recorded as the engineer's.
+    const design = await createVariant(ids);
+    const retuned = await agents.engineer.post(`/api/projects/${ids.projectId}/site-records/${recordId}/retuned-variant`).send({ variantId: design.id });
+    expect(retuned.status, JSON.stringify(retuned.body)).toBe(201);
+    const retunedCreated = await latest(ids, retuned.body.id as string);
+    expect(retunedCreated).toMatchObject({ entity: 'tuning-variant', action: 'create', label: retuned.body.name, by: engineerBy() });
+    expect(retunedCreated.changes.tuning.after).toEqual(retuned.body.tuning);
 
     // A write outside the services (no person set) is still recorded, with no person.
     await t.ctx.db.execute(sql`update site_records set notes = 'Typed in by a script' where id = ${recordId}`);
