@@ -20,6 +20,8 @@ function historyPath(projectId: string, filters: HistoryFilters, page: number): 
 export const historyQueryOptions = (projectId: string, filters: HistoryFilters) =>
   infiniteQueryOptions({
     queryKey: historyKeys.filtered(projectId, filters),
+    // Changes come from every page of the project, whose own mutations refresh only their own keys: always ask again.
+    staleTime: 0,
     queryFn: ({ pageParam, signal }) => apiRequest(historyPath(projectId, filters, pageParam), { schema: historyListSchema, signal }),
     initialPageParam: 1,
     getNextPageParam: (last) => (last.paging.hasMore ? last.paging.page + 1 : undefined),
