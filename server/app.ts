@@ -25,6 +25,7 @@ import { structuresRouter } from './modules/structures/structures.router';
 import { variantsRouter } from './modules/variants/variants.router';
 import { signOffsRouter } from './modules/sign-offs/sign-offs.router';
 import { asBuiltRouter } from './modules/as-built/as-built.router';
+import { historyRouter } from './modules/history/history.router';
 
 /**
  * Headers for every answer: no MIME sniffing, no framing by other sites, no referrer outside the site (invitation
@@ -89,6 +90,7 @@ export function createApp(ctx: AppContext, options: { clientDir?: string | null;
   app.use('/api/projects/:projectId/variants', variantsRouter(ctx));
   app.use('/api/projects/:projectId/site-records', siteRecordsRouter(ctx));
   app.use('/api/projects/:projectId/sign-offs/:signOffId/as-built', asBuiltRouter(ctx));
+  app.use('/api/projects/:projectId/history', historyRouter(ctx));
   app.use('/api/projects/:projectId/sign-offs', signOffsRouter(ctx));
   app.use('/api/projects', projectsRouter(ctx));
   app.use('/api/organisation', organisationRouter(ctx));

@@ -41,6 +41,8 @@ const projectSignOff = () =>
   import('./routes/project-sign-off').then((module) => ({ Component: module.ProjectSignOffRoute, loader: module.projectSignOffLoader }));
 const projectHardwareSheet = () =>
   import('./routes/project-hardware-sheet').then((module) => ({ Component: module.ProjectHardwareSheetRoute, loader: module.projectHardwareSheetLoader }));
+const projectHistory = () =>
+  import('./routes/project-history').then((module) => ({ Component: module.ProjectHistoryRoute, loader: module.projectHistoryLoader }));
 const projectSection = (slug: string) => () =>
   import('./routes/project-section').then((module) => ({ Component: module.projectSectionRoute(slug) }));
 
@@ -87,6 +89,7 @@ export const router = createBrowserRouter([
                       { path: 'site-records', lazy: projectSiteRecords },
                       { path: 'sign-off', lazy: projectSignOff },
                       { path: 'hardware-sheet', lazy: projectHardwareSheet },
+                      { path: 'history', lazy: projectHistory },
                       ...projectSections
                         .filter((entry) => !entry.available)
                         .map((entry) => ({ path: entry.slug, lazy: projectSection(entry.slug) })),

@@ -11,6 +11,7 @@ import { asBuiltRecordListSchema, asBuiltRecordSchema } from '../../shared/contr
 import { hardwareSheetSchema, signOffSchema, type SignOff } from '../../shared/contracts/sign-offs';
 import { variantSchema } from '../../shared/contracts/variants';
 import { projectSchema } from '../../shared/contracts/projects';
+import { historyListSchema } from '../../shared/contracts/history';
 import { roles, type Role } from '../../shared/contracts/roles';
 import { createTestApp, signIn, type Agent, type TestApp } from '../support/test-app';
 
@@ -102,6 +103,14 @@ describe('as-built records', () => {
       expect(record.comparison.warnings).toEqual([]);
     }
     for (const role of roles) expect(asBuiltRecordListSchema.parse((await agents[role].get(base).expect(200)).body).records, role).toHaveLength(3);
+    // Each record is one entry of the project's history, by the person who recorded it (docs/decisions/0020-history.md).
+    const history = historyListSchema.parse(
+      (await agents.viewer.get(`/api/projects/${signOff.projectId}/history`).query({ entity: 'as-built-record' }).expect(200)).body,
+    );
+    expect(history.events.map((e) => [e.action, e.by?.id])).toEqual(
+      (['admin', 'engineer', 'fabricator'] as const).map((role) => ['create', t.people[role].id]),
+    );
+    expect(history.events[2].changes.note).toEqual({ after: 'by fabricator' });
   });
 
   it("is 404 for another organisation's project or sign-off, and for a sign-off that does not exist", async () => {

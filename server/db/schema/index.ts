@@ -7,3 +7,4 @@ export * from './variants';
 export * from './site-records';
 export * from './sign-offs';
 export * from './as-built';
+export * from './history';

@@ -5,6 +5,7 @@
  */
 import type { Database } from '../../db/client';
 import { HttpError, notFound } from '../../lib/http-error';
+import { asActor } from '../../db/actor';
 import type { CurrentUser } from '../../middleware/auth';
 import { asBuiltInputSchemaFor, type AsBuiltInput, type AsBuiltRecord, type AsBuiltUnit } from '../../../shared/contracts/as-built';
 import { asBuiltDesignOf, AsBuiltDesignUnavailableError, compareAsBuilt, type AsBuiltDesign } from '../../../shared/compute/as-built';
@@ -64,6 +65,6 @@ export async function recordAsBuilt(db: Database, user: CurrentUser, projectId: 
     ...(unit.measuredAt !== undefined ? { measuredAt: unit.measuredAt } : {}),
     ...(unit.note ? { note: unit.note } : {}),
   }));
-  const row = await repository.insertRecord(db, scope, { signOffId, units, note: checked.note ? checked.note : null, recordedBy: user.id });
+  const row = await asActor(db, user, (tx) => repository.insertRecord(tx, scope, { signOffId, units, note: checked.note ? checked.note : null, recordedBy: user.id }));
   return toRecord({ ...row, recordedByName: user.name || user.email }, design);
 }

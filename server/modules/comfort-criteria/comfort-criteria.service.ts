@@ -8,6 +8,7 @@ import { requireProjectScope } from '../structures/structures.service';
 import * as repository from './comfort-criteria.repository';
 import { deleteUnlessUsedByVariants } from '../variants/variant-usage';
 import { frozenWrite, refuseIfFrozen } from '../sign-offs/freeze';
+import { asActor } from '../../db/actor';
 
 type CreateComfortCriteriaParsed = z.output<typeof createComfortCriteriaSchema>;
 type UpdateComfortCriteriaParsed = z.output<typeof updateComfortCriteriaSchema>;
@@ -43,7 +44,7 @@ export async function getComfortCriteria(db: Database, user: CurrentUser, projec
 /** New criteria are drafts; only sign-off moves the status. */
 export async function createComfortCriteria(db: Database, user: CurrentUser, projectId: string, input: CreateComfortCriteriaParsed): Promise<ComfortCriteria> {
   const scope = await requireProjectScope(db, user, projectId);
-  return toComfortCriteria(await repository.insertComfortCriteria(db, scope, user.id, { name: input.name, spec: input.spec }));
+  return toComfortCriteria(await asActor(db, user, (tx) => repository.insertComfortCriteria(tx, scope, user.id, { name: input.name, spec: input.spec })));
 }
 
 export async function updateComfortCriteria(
@@ -58,7 +59,7 @@ export async function updateComfortCriteria(
   const changes = givenFields(fields);
   if (Object.keys(changes).length === 0) throw nothingToChange(['name', 'spec']);
   await refuseIfFrozen(db, 'The comfort criteria', { criteriaId: id }, () => repository.findComfortCriteria(db, scope, id));
-  const row = await frozenWrite('The comfort criteria', () => repository.updateComfortCriteriaAtVersion(db, scope, id, version, changes));
+  const row = await frozenWrite('The comfort criteria', () => asActor(db, user, (tx) => repository.updateComfortCriteriaAtVersion(tx, scope, id, version, changes)));
   if (row) return toComfortCriteria(row);
   const current = await repository.findComfortCriteria(db, scope, id);
   if (!current) throw criteriaNotFound();
@@ -69,7 +70,7 @@ export async function deleteComfortCriteria(db: Database, user: CurrentUser, pro
   const scope = await requireProjectScope(db, user, projectId);
   await refuseIfFrozen(db, 'The comfort criteria', { criteriaId: id }, () => repository.findComfortCriteria(db, scope, id));
   const deleted = await deleteUnlessUsedByVariants(db, 'The comfort criteria', { criteriaId: id }, () =>
-    frozenWrite('The comfort criteria', () => repository.deleteComfortCriteria(db, scope, id)),
+    frozenWrite('The comfort criteria', () => asActor(db, user, (tx) => repository.deleteComfortCriteria(tx, scope, id))),
   );
   if (!deleted) throw criteriaNotFound();
 }

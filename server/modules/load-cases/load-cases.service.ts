@@ -8,6 +8,7 @@ import { requireProjectScope } from '../structures/structures.service';
 import * as repository from './load-cases.repository';
 import { frozenWrite, refuseIfFrozen } from '../sign-offs/freeze';
 import { deleteUnlessUsedByVariants } from '../variants/variant-usage';
+import { asActor } from '../../db/actor';
 
 type CreateLoadCaseParsed = z.output<typeof createLoadCaseSchema>;
 type UpdateLoadCaseParsed = z.output<typeof updateLoadCaseSchema>;
@@ -42,7 +43,7 @@ export async function getLoadCase(db: Database, user: CurrentUser, projectId: st
 /** The spec is stored as the engine's schema parsed it (its defaults filled in). */
 export async function createLoadCase(db: Database, user: CurrentUser, projectId: string, input: CreateLoadCaseParsed): Promise<SavedLoadCase> {
   const scope = await requireProjectScope(db, user, projectId);
-  return toSavedLoadCase(await repository.insertLoadCase(db, scope, user.id, { name: input.name, spec: input.spec }));
+  return toSavedLoadCase(await asActor(db, user, (tx) => repository.insertLoadCase(tx, scope, user.id, { name: input.name, spec: input.spec })));
 }
 
 export async function updateLoadCase(db: Database, user: CurrentUser, projectId: string, id: string, input: UpdateLoadCaseParsed): Promise<SavedLoadCase> {
@@ -51,7 +52,7 @@ export async function updateLoadCase(db: Database, user: CurrentUser, projectId:
   const changes = givenFields(fields);
   if (Object.keys(changes).length === 0) throw nothingToChange(['name', 'spec']);
   await refuseIfFrozen(db, 'The load case', { loadCaseId: id }, () => repository.findLoadCase(db, scope, id));
-  const row = await frozenWrite('The load case', () => repository.updateLoadCaseAtVersion(db, scope, id, version, changes));
+  const row = await frozenWrite('The load case', () => asActor(db, user, (tx) => repository.updateLoadCaseAtVersion(tx, scope, id, version, changes)));
   if (row) return toSavedLoadCase(row);
   const current = await repository.findLoadCase(db, scope, id);
   if (!current) throw loadCaseNotFound();
@@ -61,6 +62,6 @@ export async function updateLoadCase(db: Database, user: CurrentUser, projectId:
 export async function deleteLoadCase(db: Database, user: CurrentUser, projectId: string, id: string): Promise<void> {
   const scope = await requireProjectScope(db, user, projectId);
   await refuseIfFrozen(db, 'The load case', { loadCaseId: id }, () => repository.findLoadCase(db, scope, id));
-  const deleted = await deleteUnlessUsedByVariants(db, 'The load case', { loadCaseId: id }, () => frozenWrite('The load case', () => repository.deleteLoadCase(db, scope, id)));
+  const deleted = await deleteUnlessUsedByVariants(db, 'The load case', { loadCaseId: id }, () => frozenWrite('The load case', () => asActor(db, user, (tx) => repository.deleteLoadCase(tx, scope, id))));
   if (!deleted) throw loadCaseNotFound();
 }

@@ -11,6 +11,7 @@ import { listModesOfLumpedModel, updateModeAtVersion, type ModeRow } from '../mo
 import { requireStructure } from '../structures/structures.service';
 import { deriveFromLumpedModel, modesOf, solveLumpedModel } from './lumped-model-modes';
 import * as repository from './lumped-models.repository';
+import { asActor } from '../../db/actor';
 
 export function toLumpedModel(row: repository.LumpedModelRow, projectId: string, solution?: ModalSolution): LumpedModel {
   return {
@@ -68,12 +69,12 @@ export async function createLumpedModel(
 ): Promise<LumpedModel> {
   const scope = await structureScope(db, user, projectId, structureId);
   const solution = solveLumpedModel(input.massMatrixKg, input.stiffnessMatrixNPerM, input.dofLabels);
-  const row = await repository.insertLumpedModel(db, scope, user.id, {
+  const row = await asActor(db, user, (tx) => repository.insertLumpedModel(tx, scope, user.id, {
     name: input.name,
     massMatrixKg: input.massMatrixKg,
     stiffnessMatrixNPerM: input.stiffnessMatrixNPerM,
     dofLabels: input.dofLabels ?? null,
-  });
+  }));
   return toLumpedModel(row, projectId, solution);
 }
 
@@ -93,7 +94,7 @@ export async function updateLumpedModel(
   const { version, ...fields } = input;
   const changes = givenFields(fields);
   if (Object.keys(changes).length === 0) throw nothingToChange(['name', 'massMatrixKg', 'stiffnessMatrixNPerM', 'dofLabels']);
-  const { row, solution } = await db.transaction(async (tx) => {
+  const { row, solution } = await asActor(db, user, async (tx) => {
     const current = await repository.findLumpedModel(tx, scope, id);
     if (!current) throw modelNotFound();
     if (current.version !== version) throw versionConflict('The lumped model', version, current.version);
@@ -145,7 +146,7 @@ export async function updateLumpedModel(
 export async function deleteLumpedModel(db: Database, user: CurrentUser, projectId: string, structureId: string, id: string): Promise<void> {
   const scope = await structureScope(db, user, projectId, structureId);
   try {
-    await db.transaction(async (tx) => {
+    await asActor(db, user, async (tx) => {
       if (!(await repository.findLumpedModel(tx, scope, id))) throw modelNotFound();
       const modes = await listModesOfLumpedModel(tx, scope, id);
       if (modes.length > 0) throw usedBy(modes);

@@ -13,6 +13,7 @@ import { requireStructure } from '../structures/structures.service';
 import * as repository from './modes.repository';
 import { deleteUnlessUsedByVariants } from '../variants/variant-usage';
 import { frozenWrite, refuseIfFrozen } from '../sign-offs/freeze';
+import { asActor } from '../../db/actor';
 
 export function toSavedMode(row: repository.ModeRow, projectId: string): SavedMode {
   return {
@@ -86,7 +87,7 @@ export async function getMode(db: Database, user: CurrentUser, projectId: string
 
 export async function createMode(db: Database, user: CurrentUser, projectId: string, structureId: string, input: CreateModeParsed): Promise<SavedMode> {
   const scope = await structureScope(db, user, projectId, structureId);
-  const row = await db.transaction(async (tx) => {
+  const row = await asActor(db, user, async (tx) => {
     const derived = await deriveModeValues(tx, scope, input.source);
     // A typed mode has both numbers (the contract requires them); a derived one takes them from its source.
     const frequencyHz = derived?.frequencyHz ?? input.frequencyHz;
@@ -124,7 +125,7 @@ export async function updateMode(
   if (Object.keys(changes).length === 0 && source === undefined) {
     throw nothingToChange(['label', 'direction', 'frequencyHz', 'modalMassKg', 'dampingRatio', 'modeShapeMean', 'source']);
   }
-  const row = await db.transaction(async (tx) => {
+  const row = await asActor(db, user, async (tx) => {
     const current = await repository.findMode(tx, scope, id);
     if (!current) throw modeNotFound();
     await refuseIfFrozen(tx, 'The mode', { modeId: id });
@@ -161,6 +162,6 @@ export async function updateMode(
 export async function deleteMode(db: Database, user: CurrentUser, projectId: string, structureId: string, id: string): Promise<void> {
   const scope = await structureScope(db, user, projectId, structureId);
   await refuseIfFrozen(db, 'The mode', { modeId: id }, () => repository.findMode(db, scope, id));
-  const deleted = await deleteUnlessUsedByVariants(db, 'The mode', { modeId: id }, () => frozenWrite('The mode', () => repository.deleteMode(db, scope, id)));
+  const deleted = await deleteUnlessUsedByVariants(db, 'The mode', { modeId: id }, () => frozenWrite('The mode', () => asActor(db, user, (tx) => repository.deleteMode(tx, scope, id))));
   if (!deleted) throw modeNotFound();
 }

@@ -20,6 +20,7 @@ import { toSavedMode } from '../modes/modes.service';
 import { toSavedLoadCase } from '../load-cases/load-cases.service';
 import { toComfortCriteria } from '../comfort-criteria/comfort-criteria.service';
 import * as repository from './sign-offs.repository';
+import { asActor } from '../../db/actor';
 
 const UNIQUE_VIOLATION = '23505';
 const signOffNotFound = () => notFound('The sign-off', 'sign_off_not_found');
@@ -105,7 +106,7 @@ export async function submitSignOff(ctx: AppContext, user: CurrentUser, projectI
   let mailIds: string[] = [];
   let row: repository.SignOffRow;
   try {
-    row = await db.transaction(async (tx) => {
+    row = await asActor(db, user, async (tx) => {
       const inserted = await repository.insertSignOff(tx, scope, {
         variantId: input.variantId,
         criteriaId: snapshot.criteria.id,
@@ -155,7 +156,7 @@ async function decideSignOff(
   if (!current) throw signOffNotFound();
   const name = await repository.projectName(db, projectId);
   let mailIds: string[] = [];
-  const row = await db.transaction(async (tx) => {
+  const row = await asActor(db, user, async (tx) => {
     if (decision === 'approved') {
       const now = await repository.lockedVersions(tx, current.snapshot);
       const s = current.snapshot;

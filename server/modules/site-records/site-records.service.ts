@@ -24,6 +24,7 @@ import { requireProjectScope } from '../structures/structures.service';
 import { analyseRecord, recordTimeHistory } from './site-record-analysis';
 import type { EnginePool } from '../../workers/engine-pool';
 import * as repository from './site-records.repository';
+import { asActor } from '../../db/actor';
 
 const siteRecordNotFound = () => notFound('The site record', 'site_record_not_found');
 
@@ -127,7 +128,7 @@ export async function uploadSiteRecord(db: Database, engine: EnginePool, user: C
     method: fields.method,
     bandHz: fields.bandHz as [number, number] | undefined,
   }, engine);
-  const id = await repository.insertSiteRecord(db, scope, user.id, {
+  const id = await asActor(db, user, (tx) => repository.insertSiteRecord(tx, scope, user.id, {
     structureId: fields.structureId,
     modeId: fields.modeId ?? null,
     condition: fields.condition,
@@ -142,7 +143,7 @@ export async function uploadSiteRecord(db: Database, engine: EnginePool, user: C
     measuredAt: fields.measuredAt ? new Date(fields.measuredAt) : null,
     notes: fields.notes ?? null,
     analysis,
-  });
+  }));
   return readRecord(db, scope, id);
 }
 
@@ -159,7 +160,7 @@ export async function reanalyseSiteRecord(db: Database, engine: EnginePool, user
     method: input.method,
     bandHz: input.bandHz as [number, number] | undefined,
   }, engine);
-  if (!(await repository.updateAnalysisAtVersion(db, scope, id, input.version ?? row.version, analysis))) {
+  if (!(await asActor(db, user, (tx) => repository.updateAnalysisAtVersion(tx, scope, id, input.version ?? row.version, analysis)))) {
     const now = await repository.findSiteRecord(db, scope, id);
     if (!now) throw siteRecordNotFound();
     throw versionConflict('The site record', input.version ?? row.version, now.version);
@@ -169,7 +170,7 @@ export async function reanalyseSiteRecord(db: Database, engine: EnginePool, user
 
 export async function deleteSiteRecord(db: Database, user: CurrentUser, projectId: string, id: string): Promise<void> {
   const scope = await requireProjectScope(db, user, projectId);
-  if (!(await repository.deleteSiteRecord(db, scope, id))) throw siteRecordNotFound();
+  if (!(await asActor(db, user, (tx) => repository.deleteSiteRecord(tx, scope, id)))) throw siteRecordNotFound();
 }
 
 /** The record's measured structure, refused (409) when it is not the bare structure or shows no clear mode. */

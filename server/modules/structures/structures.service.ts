@@ -6,6 +6,7 @@ import type { Database } from '../../db/client';
 import { requireProject } from '../projects/projects.service';
 import * as repository from './structures.repository';
 import { deleteUnlessUsedByVariants } from '../variants/variant-usage';
+import { asActor } from '../../db/actor';
 
 export function toStructure(row: repository.StructureRow): Structure {
   return {
@@ -51,14 +52,14 @@ export async function getStructure(db: Database, user: CurrentUser, projectId: s
 
 export async function createStructure(db: Database, user: CurrentUser, projectId: string, input: CreateStructureInput): Promise<Structure> {
   const scope = await requireProjectScope(db, user, projectId);
-  const row = await repository.insertStructure(db, scope, user.id, {
+  const row = await asActor(db, user, (tx) => repository.insertStructure(tx, scope, user.id, {
     name: input.name,
     kind: input.kind,
     spanM: input.spanM ?? null,
     widthM: input.widthM ?? null,
     deckAreaM2: input.deckAreaM2 ?? null,
     notes: input.notes || null,
-  });
+  }));
   return toStructure(row);
 }
 
@@ -68,7 +69,7 @@ export async function updateStructure(db: Database, user: CurrentUser, projectId
   const changes = givenFields(fields);
   if (changes.notes === '') changes.notes = null;
   if (Object.keys(changes).length === 0) throw nothingToChange(['name', 'kind', 'spanM', 'widthM', 'deckAreaM2', 'notes']);
-  const row = await repository.updateStructureAtVersion(db, scope, id, version, changes);
+  const row = await asActor(db, user, (tx) => repository.updateStructureAtVersion(tx, scope, id, version, changes));
   if (row) return toStructure(row);
   const current = await repository.findStructure(db, scope, id);
   if (!current) throw structureNotFound();
@@ -78,6 +79,6 @@ export async function updateStructure(db: Database, user: CurrentUser, projectId
 export async function deleteStructure(db: Database, user: CurrentUser, projectId: string, id: string): Promise<void> {
   const scope = await requireProjectScope(db, user, projectId);
   // Deleting a structure deletes its modes: refused while a tuning variant uses one of them.
-  const deleted = await deleteUnlessUsedByVariants(db, 'A mode of the structure', { structureId: id }, () => repository.deleteStructure(db, scope, id));
+  const deleted = await deleteUnlessUsedByVariants(db, 'A mode of the structure', { structureId: id }, () => asActor(db, user, (tx) => repository.deleteStructure(tx, scope, id)));
   if (!deleted) throw structureNotFound();
 }

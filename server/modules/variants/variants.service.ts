@@ -23,6 +23,7 @@ import * as repository from './variants.repository';
 import { computeVariant } from './variant-compute';
 import type { EnginePool } from '../../workers/engine-pool';
 import { frozenWrite, isFrozen, refuseIfFrozen } from '../sign-offs/freeze';
+import { asActor } from '../../db/actor';
 
 const variantNotFound = () => notFound('The tuning variant', 'variant_not_found');
 
@@ -195,14 +196,14 @@ export async function createVariant(db: Database, engine: EnginePool, user: Curr
   };
   const computeInput = await computeInputOf(db, scope, { ...values, loadCaseIds: input.loadCaseIds });
   const computed = await computation(engine, computeInput, true);
-  return toVariant(await storing(() => repository.insertVariant(db, scope, user.id, { ...values, ...computed }, input.loadCaseIds)));
+  return toVariant(await storing(() => asActor(db, user, (tx) => repository.insertVariant(tx, scope, user.id, { ...values, ...computed }, input.loadCaseIds))));
 }
 
 const changeableFields = [
   'name', 'modeId', 'loadCaseIds', 'criteriaId', 'massRatio', 'tuning', 'unitCount', 'structureFrequencyToleranceRatio', 'tmdDampingToleranceRatio', 'hardware', 'notes',
 ];
 
-async function applyChanges(db: Database, engine: EnginePool, scope: ProjectScope, id: string, input: UpdateVariantParsed): Promise<Variant> {
+async function applyChanges(db: Database, engine: EnginePool, user: CurrentUser, scope: ProjectScope, id: string, input: UpdateVariantParsed): Promise<Variant> {
   const { version, loadCaseIds, ...fields } = input;
   const changes = givenFields(fields) as Partial<repository.VariantValues>;
   if (Object.keys(changes).length === 0 && loadCaseIds === undefined) throw nothingToChange(changeableFields);
@@ -212,7 +213,7 @@ async function applyChanges(db: Database, engine: EnginePool, scope: ProjectScop
   const merged = { ...current.row, ...changes, loadCaseIds: loadCaseIds ?? current.loadCaseIds };
   const computed = await computation(engine, await computeInputOf(db, scope, merged), true);
   const updated = await frozenWrite('The tuning variant', () =>
-    storing(() => repository.updateVariantAtVersion(db, scope, id, version, { ...changes, ...computed }, loadCaseIds)),
+    storing(() => asActor(db, user, (tx) => repository.updateVariantAtVersion(tx, scope, id, version, { ...changes, ...computed }, loadCaseIds))),
   );
   if (updated) return toVariant(updated);
   const now = await repository.findVariant(db, scope, id);
@@ -222,13 +223,13 @@ async function applyChanges(db: Database, engine: EnginePool, scope: ProjectScop
 
 export async function updateVariant(db: Database, engine: EnginePool, user: CurrentUser, projectId: string, id: string, input: UpdateVariantParsed): Promise<Variant> {
   const scope = await requireProjectScope(db, user, projectId);
-  return applyChanges(db, engine, scope, id, input);
+  return applyChanges(db, engine, user, scope, id, input);
 }
 
 export async function deleteVariant(db: Database, user: CurrentUser, projectId: string, id: string): Promise<void> {
   const scope = await requireProjectScope(db, user, projectId);
   await refuseIfFrozen(db, 'The tuning variant', { variantId: id });
-  if (!(await frozenWrite('The tuning variant', () => repository.deleteVariant(db, scope, id)))) throw variantNotFound();
+  if (!(await frozenWrite('The tuning variant', () => asActor(db, user, (tx) => repository.deleteVariant(tx, scope, id))))) throw variantNotFound();
 }
 
 /**
@@ -260,7 +261,7 @@ export async function sizeVariant(
   if (!(sized.massRatio > 0)) {
     throw invalidField('apply', 'the bare structure already meets the criteria over the detuning band: there is no mass ratio to apply');
   }
-  const variant = await applyChanges(db, engine, scope, id, { version: body.version as number, massRatio: sized.massRatio });
+  const variant = await applyChanges(db, engine, user, scope, id, { version: body.version as number, massRatio: sized.massRatio });
   return { ...sized, applied: true, variant };
 }
 

@@ -55,4 +55,10 @@ export const projectSections: ProjectSection[] = [
     purpose:
       'Measured acceleration records from site: time history, spectrum and decay, frequency and damping ratio compared with the design mode, and the re-tune of the damper.',
   },
+  {
+    slug: 'history',
+    label: 'History',
+    available: true,
+    purpose: 'Every change of the project’s things: who made it, when, and the values before and after.',
+  },
 ];
