@@ -136,6 +136,8 @@ describe('sign-off', () => {
     const entry = page.getByTestId('sign-off-entry').filter({ hasText: variantName }).first();
     await expect(entry.getByTestId('sign-off-status').textContent()).resolves.toBe('approved');
     await expect(entry.textContent()).resolves.toContain(comment);
+    // The decision's mail is sent in the background; the timeline reads again until it is sent.
+    await entry.getByText(`to ${engineer} — sent`).waitFor({ timeout: 30_000 });
     await browser.shot('sign-off-05-owner-approved');
     await signOut(page);
   });
