@@ -19,7 +19,11 @@ export function createMailer(options: { host: string; port: number; from: string
     port: options.port,
     secure: false,
     ignoreTLS: options.ignoreTls ?? false,
+    // A relay that accepts the connection and then hangs is given up on instead of holding the socket for minutes
+    // (nodemailer's own defaults are 30 s for the greeting and 10 min of silence); the outbox bounds each attempt too.
     connectionTimeout: 10_000,
+    greetingTimeout: 10_000,
+    socketTimeout: 20_000,
   });
   return {
     async send(mail) {

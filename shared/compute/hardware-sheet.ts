@@ -25,6 +25,7 @@ export interface HardwareSheetRow {
 export interface HardwareSheetInput {
   projectName: string;
   signOff: { id: string; status: string; decidedAt: string | null; decisionComment: string | null; snapshot: SignOffSnapshot };
+  /** The approver as they were at the decision (kept on the sign-off), never read at request time. */
   approver: { name: string | null; email: string } | null;
 }
 
@@ -101,7 +102,13 @@ export function buildHardwareSheet(input: HardwareSheetInput): HardwareSheet {
   add('tuning range', 'Moving mass per unit at constant springs, for the high end', r.minMovingMassKg / n, 'kg', 'm ∝ 1/f²');
   add('tuning range', 'Moving mass per unit at constant springs, for the low end', r.maxMovingMassKg / n, 'kg', 'm ∝ 1/f²');
   add('approval', 'Tuning variant', variant.name, '');
-  add('approval', 'Approved by', approver ? approver.name || approver.email : 'unknown', '', approver ? approver.email : '');
+  add(
+    'approval',
+    'Approved by',
+    approver ? approver.name || approver.email : 'not recorded',
+    '',
+    approver ? approver.email : 'approved before the approver was kept with the approval',
+  );
   add('approval', 'Approved at', signOff.decidedAt ?? '', 'UTC');
   add('approval', 'Comment', signOff.decisionComment ?? '', '');
   add('approval', 'Engine version', snapshot.engineVersion, '');

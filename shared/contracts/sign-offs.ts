@@ -67,6 +67,9 @@ export const signOffSchema = z.object({
   submittedBy: z.string().nullable(),
   submittedAt: z.string(),
   decidedBy: z.string().nullable(),
+  /** The decider's name and e-mail as they were at the decision (null before it, and on older decisions). */
+  decidedByName: z.string().nullable(),
+  decidedByEmail: z.string().nullable(),
   decidedAt: z.string().nullable(),
   decisionComment: z.string().nullable(),
   snapshot: signOffSnapshotSchema,

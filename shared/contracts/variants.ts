@@ -206,8 +206,12 @@ export type VariantComputation = z.infer<typeof variantComputationSchema>;
 
 /** A variant's result as served: the computation with the hash of the inputs it was computed from. */
 export const variantResultSchema = variantComputationSchema.extend({
-  /** Always false when served: a result whose inputs changed is recomputed before it is read. */
-  stale: z.literal(false),
+  /**
+   * False for every result but one: a result whose inputs or engine version changed is recomputed before it is read,
+   * except an approved (frozen) design's, which is served as approved; it is true when the engine version that
+   * computed it (`engineVersion`) is not the running one (docs/decisions/0019-sign-off-freeze.md).
+   */
+  stale: z.boolean(),
   inputsHash: z.string(),
   engineVersion: z.string(),
   computedAt: z.string(),

@@ -34,6 +34,19 @@ describe('hardware sheet', () => {
   let projectId = '';
   let signOffId = '';
 
+  it('says that no sheet exists yet, with the caution, while no design of the project is approved', async () => {
+    const { page } = browser;
+    await signIn(page, baseUrl, 'fabricator@demo.stillspan.test');
+    // The invented demo floor: no design of it is submitted by any suite.
+    await page.goto(`${baseUrl}/projects`);
+    await page.getByRole('link', { name: /Caskett Yard offices/ }).first().click();
+    await page.getByRole('navigation', { name: 'Project sections' }).getByRole('link', { name: /Hardware sheet/ }).click();
+    await page.getByRole('status').filter({ hasText: 'No hardware sheet yet' }).waitFor();
+    await expect(page.getByRole('complementary', { name: 'Caution' }).textContent()).resolves.toContain('judgement of a qualified engineer');
+    await browser.shot('hardware-sheet-00-none-yet');
+    await signOut(page);
+  });
+
   it('is there for the fabricator once the owner approves a design', async () => {
     const { page } = browser;
     await signIn(page, baseUrl, 'engineer@demo.stillspan.test');

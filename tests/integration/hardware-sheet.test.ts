@@ -162,3 +162,60 @@ describe('hardware sheet', () => {
     expect(text).toContain('licensed practice govern');
   });
 });
+
+describe('the hardware sheet rests on the approval alone', () => {
+  it('keeps the approver and project names of the decision when the owner and the project are renamed later', async () => {
+    const before = hardwareSheetSchema.parse((await agents.fabricator.get(base).expect(200)).body);
+    const approvedBy = before.rows.find((r) => r.quantity === 'Approved by');
+    expect(approvedBy).toMatchObject({ value: 'A owner', note: t.people.owner.email });
+    const csvBefore = (await agents.fabricator.get(`${base}.csv`).buffer(true).expect(200)).text;
+
+    await t.ctx.pool.query(`update users set name = 'Renamed owner', email = 'renamed-owner@a.test' where id = $1`, [t.people.owner.id]);
+    await t.ctx.pool.query(`update projects set name = 'Renamed project' where id = $1`, [signOff.projectId]);
+
+    const after = hardwareSheetSchema.parse((await agents.fabricator.get(base).expect(200)).body);
+    expect(after).toEqual(before);
+    expect(after.projectName).toBe(projectName);
+    expect((await agents.fabricator.get(`${base}.csv`).buffer(true).expect(200)).text).toBe(csvBefore);
+    // The sign-off keeps the decider as they were, too.
+    const read = signOffSchema.parse((await agents.viewer.get(`/api/projects/${signOff.projectId}/sign-offs/${signOff.id}`).expect(200)).body);
+    expect(read).toMatchObject({ decidedByName: 'A owner', decidedByEmail: t.people.owner.email });
+  });
+
+  it('an approved result from an earlier engine version is served as approved and says so; the sheet uses the snapshot', async () => {
+    const variantUrl = `/api/projects/${signOff.projectId}/variants/${signOff.variantId}`;
+    const current = variantSchema.parse((await agents.viewer.get(variantUrl).expect(200)).body);
+    expect(current.result?.stale).toBe(false);
+    const runningVersion = current.result!.engineVersion;
+    const olderVersion = '2000.01-0';
+    // An approval made under an earlier engine: the frozen row and the snapshot carry that engine's version. The
+    // database's freeze is stepped round for this one change (session_replication_role skips the triggers).
+    const client = await t.ctx.pool.connect();
+    try {
+      await client.query('begin');
+      await client.query(`set local session_replication_role = replica`);
+      await client.query(`update tuning_variants set engine_version = $2 where id = $1`, [signOff.variantId, olderVersion]);
+      await client.query(
+        `update sign_offs set snapshot = jsonb_set(jsonb_set(snapshot, '{engineVersion}', to_jsonb($2::text)), '{variant,result,engineVersion}', to_jsonb($2::text)) where id = $1`,
+        [signOff.id, olderVersion],
+      );
+      await client.query('commit');
+    } finally {
+      client.release();
+    }
+
+    const served = variantSchema.parse((await agents.viewer.get(variantUrl).expect(200)).body);
+    expect(served.result?.engineVersion).toBe(olderVersion);
+    expect(served.result?.engineVersion).not.toBe(runningVersion);
+    // Not recomputed (frozen): the same figures, and `stale` says that the running engine did not compute them.
+    expect(served.result?.stale).toBe(true);
+    expect(served.result?.loadCases).toEqual(current.result?.loadCases);
+    expect(served.result?.tmd).toEqual(current.result?.tmd);
+    const { rows } = await t.ctx.pool.query<{ engine_version: string }>(`select engine_version from tuning_variants where id = $1`, [signOff.variantId]);
+    expect(rows[0].engine_version).toBe(olderVersion);
+
+    const sheet = hardwareSheetSchema.parse((await agents.fabricator.get(base).expect(200)).body);
+    expect(sheet.rows.find((r) => r.quantity === 'Engine version')?.value).toBe(olderVersion);
+    expect(sheet.rows.find((r) => r.quantity === 'Total moving mass')?.value).toBe(signOff.snapshot.variant.result!.loadCases[0].hardware[0].movingMassKg);
+  });
+});

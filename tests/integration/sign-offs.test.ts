@@ -66,10 +66,27 @@ async function createVariant(ids: Ids, over: Record<string, unknown> = {}): Prom
 const signOffsOf = (ids: Ids) => `/api/projects/${ids.projectId}/sign-offs`;
 const modeUrl = (ids: Ids) => `/api/projects/${ids.projectId}/structures/${ids.structureId}/modes/${ids.modeId}`;
 
+/**
+ * The sign-off read again (by `agent`) until each of its mails has had its first attempt: the send after commit runs
+ * in the background, so an answer may still list a mail as `pending` with no attempt.
+ */
+async function afterFirstAttempts(url: string, agent: Agent = agents.viewer, timeoutMs = 20_000): Promise<SignOff> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const current = signOffSchema.parse((await agent.get(url).expect(200)).body);
+    if (current.mails.every((m) => m.attempts > 0)) return current;
+    if (Date.now() > deadline) throw new Error(`the mails of ${url} are still waiting for their first attempt: ${JSON.stringify(current.mails)}`);
+    await new Promise((wait) => setTimeout(wait, 25));
+  }
+}
+
+/** Submits and waits until the submission's mails have been tried, so that a later test's mailbox holds only its own. */
 async function submit(ids: Ids, variantId: string, agent = agents.engineer, message?: string): Promise<SignOff> {
   const response = await agent.post(signOffsOf(ids)).send({ variantId, ...(message ? { message } : {}) });
   expect(response.status, JSON.stringify(response.body)).toBe(201);
-  return signOffSchema.parse(response.body);
+  const answered = signOffSchema.parse(response.body);
+  const tried = await afterFirstAttempts(`${signOffsOf(ids)}/${answered.id}`);
+  return { ...answered, mails: tried.mails };
 }
 
 async function criteriaStatus(ids: Ids): Promise<string> {
@@ -187,8 +204,12 @@ describe('deciding', () => {
     expect(approved.status).toBe('approved');
     expect(approved.decidedBy).toBe(t.people.owner.id);
     expect(approved.decisionComment).toBe('Agreed for the crowd class.');
-    // The sign-off's mails: the submission's to the owner, then the decision's to the submitter.
-    expect(approved.mails).toEqual([
+    // The decider as they were at the decision, kept with it.
+    expect(approved.decidedByName).toBe('A owner');
+    expect(approved.decidedByEmail).toBe(t.people.owner.email);
+    // The sign-off's mails: the submission's to the owner, then the decision's to the submitter (sent in the
+    // background after the answer).
+    expect((await afterFirstAttempts(`${signOffsOf(ids)}/${signOff.id}`)).mails).toEqual([
       { to: t.people.owner.email, state: 'sent', attempts: 1 },
       { to: t.people.engineer.email, state: 'sent', attempts: 1 },
     ]);
@@ -288,6 +309,7 @@ describe('an approved mode taken from a lumped model', () => {
     const variant = await createVariant({ ...ids, modeId });
     const signOff = await submit(ids, variant.id);
     await agents.owner.post(`${signOffsOf(ids)}/${signOff.id}/approve`).send({}).expect(200);
+    await afterFirstAttempts(`${signOffsOf(ids)}/${signOff.id}`);
     const response = await agents.engineer.patch(`${base}/models/${model.id}`).send({ version: model.version, stiffnessMatrixNPerM: [[stiffness * 1.1]] });
     expect(response.status).toBe(409);
     expect(errorOf(response.body).code).toBe('approved_design_frozen');
@@ -315,6 +337,7 @@ describe('a returned design', () => {
     expect(returned.status).toBe('returned');
     expect(returned.decisionComment).toBe('Check the walker at 3 % mass ratio.');
     expect(await criteriaStatus(ids)).toBe('returned');
+    await afterFirstAttempts(`${signOffsOf(ids)}/${first.id}`);
     const mails = t.ctx.fakeSmtp?.mails() ?? [];
     expect(mails).toHaveLength(1);
     expect(mails[0].to).toEqual([t.people.engineer.email]);
@@ -372,7 +395,8 @@ describe('the mail outbox', () => {
       expect(response.status, JSON.stringify(response.body)).toBe(201);
       const submitted = signOffSchema.parse(response.body);
       expect(submitted.status).toBe('submitted');
-      expect(submitted.mails).toEqual([{ to: down.people.owner.email, state: 'pending', attempts: 1 }]);
+      const tried = await afterFirstAttempts(`/api/projects/${projectId}/sign-offs/${submitted.id}`, engineer);
+      expect(tried.mails).toEqual([{ to: down.people.owner.email, state: 'pending', attempts: 1 }]);
 
       // The relay comes back on the same port; the next drain (here without waiting for the backoff) sends it.
       const relay = await startFakeSmtp({ host: '127.0.0.1', port });

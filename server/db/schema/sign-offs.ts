@@ -36,6 +36,14 @@ export const signOffs = pgTable(
     decidedBy: uuid().references(() => users.id, { onDelete: 'set null' }),
     decidedAt: timestamp({ withTimezone: true }),
     decisionComment: text(),
+    /**
+     * Who decided and the project's name, as they were at the decision: the hardware sheet reads these, never the
+     * person's or project's current row (a later rename does not change an approved sheet). Null before a decision,
+     * and on sign-offs decided before these were kept.
+     */
+    decidedByName: text(),
+    decidedByEmail: text(),
+    decidedProjectName: text(),
     /** The variant, its mode, load cases, criteria and computed result as they were at submission. */
     snapshot: jsonb().$type<SignOffSnapshot>().notNull(),
     version: integer().notNull().default(1),

@@ -18,9 +18,10 @@ export async function getHardwareSheet(db: Database, user: CurrentUser, projectI
       { path: 'signOffId', message: `is ${row.status}, not approved` },
     ]);
   }
-  const approver = row.decidedBy ? await repository.findUser(db, row.decidedBy) : undefined;
+  // Everything from the approval itself: the snapshot, and the approver's and project's names kept at the decision.
+  // A sign-off decided before those were kept falls back to the project's current name and names no approver.
   return buildHardwareSheet({
-    projectName: await repository.projectName(db, projectId),
+    projectName: row.decidedProjectName ?? (await repository.projectName(db, projectId)),
     signOff: {
       id: row.id,
       status: row.status,
@@ -28,7 +29,7 @@ export async function getHardwareSheet(db: Database, user: CurrentUser, projectI
       decisionComment: row.decisionComment,
       snapshot: row.snapshot,
     },
-    approver: approver ? { name: approver.name, email: approver.email } : null,
+    approver: row.decidedByEmail ? { name: row.decidedByName, email: row.decidedByEmail } : null,
   });
 }
 

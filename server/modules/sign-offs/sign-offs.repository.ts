@@ -46,7 +46,15 @@ export async function decide(
   db: Executor,
   scope: ProjectScope,
   id: string,
-  values: { status: 'approved' | 'returned'; decidedBy: string; decisionComment: string | null },
+  values: {
+    status: 'approved' | 'returned';
+    decidedBy: string;
+    decisionComment: string | null;
+    /** The decider's name and e-mail and the project's name as they are now, kept with the decision. */
+    decidedByName: string | null;
+    decidedByEmail: string;
+    decidedProjectName: string;
+  },
 ): Promise<SignOffRow | undefined> {
   const [row] = await db
     .update(signOffs)

@@ -1,7 +1,7 @@
 /**
  * Sign-off: an engineer or admin submits a tuning variant with a snapshot of everything its approval rests on; an
  * owner approves or returns it, once. The comfort criteria's status follows in the same transaction, and the mails
- * go to the outbox in that transaction too, sent after commit (docs/decisions/0019-sign-off-freeze.md).
+ * go to the outbox in that transaction too, sent after commit in the background (docs/decisions/0019-sign-off-freeze.md).
  */
 import type { Database } from '../../db/client';
 import type { AppContext } from '../../context';
@@ -36,6 +36,8 @@ function toSignOff(row: repository.SignOffRow, mails: repository.OutboxRow[]): S
     submittedBy: row.submittedBy,
     submittedAt: row.submittedAt.toISOString(),
     decidedBy: row.decidedBy,
+    decidedByName: row.decidedByName,
+    decidedByEmail: row.decidedByEmail,
     decidedAt: row.decidedAt ? row.decidedAt.toISOString() : null,
     decisionComment: row.decisionComment,
     snapshot: row.snapshot,
@@ -133,7 +135,8 @@ export async function submitSignOff(ctx: AppContext, user: CurrentUser, projectI
     if (pgErrorCode(error) === UNIQUE_VIOLATION) throw alreadySubmitted();
     throw error;
   }
-  await ctx.outbox.drain(mailIds);
+  // Sent in the background: the answer does not wait for the mail relay (the mails read `pending` until then).
+  ctx.outbox.sendSoon(mailIds);
   return withMails(db, row);
 }
 
@@ -168,7 +171,15 @@ async function decideSignOff(
         now.criteriaUnchanged;
       if (!same) throw designChanged();
     }
-    const decided = await repository.decide(tx, scope, id, { status: decision, decidedBy: user.id, decisionComment: comment });
+    const decider = await repository.findUser(tx, user.id);
+    const decided = await repository.decide(tx, scope, id, {
+      status: decision,
+      decidedBy: user.id,
+      decisionComment: comment,
+      decidedByName: (decider ? decider.name : user.name) || null,
+      decidedByEmail: decider?.email ?? user.email,
+      decidedProjectName: name,
+    });
     if (!decided) {
       throw new HttpError(409, 'sign_off_decided', `This sign-off was already ${current.status === 'submitted' ? 'decided' : current.status}; a decision is made once`, [
         { path: '', message: 'the sign-off is no longer waiting for a decision' },
@@ -191,7 +202,8 @@ async function decideSignOff(
     }
     return decided;
   });
-  await ctx.outbox.drain(mailIds);
+  // Sent in the background: the answer does not wait for the mail relay (the mails read `pending` until then).
+  ctx.outbox.sendSoon(mailIds);
   return withMails(db, row);
 }
 

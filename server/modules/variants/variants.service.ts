@@ -111,7 +111,8 @@ async function computation(engine: EnginePool, input: VariantComputeInput, refus
   }
 }
 
-function toVariant(record: repository.VariantRecord): Variant {
+/** `stale`: an approved result served as it is although the running engine version is another (see `fresh`). */
+function toVariant(record: repository.VariantRecord, stale = false): Variant {
   const { row, loadCaseIds } = record;
   const result = row.result as VariantComputation | null;
   return {
@@ -130,7 +131,7 @@ function toVariant(record: repository.VariantRecord): Variant {
     notes: row.notes,
     result:
       result && row.inputsHash && row.engineVersion && row.computedAt
-        ? { ...result, stale: false, inputsHash: row.inputsHash, engineVersion: row.engineVersion, computedAt: row.computedAt.toISOString() }
+        ? { ...result, stale, inputsHash: row.inputsHash, engineVersion: row.engineVersion, computedAt: row.computedAt.toISOString() }
         : null,
     resultError: row.resultError ?? null,
     version: row.version,
@@ -155,7 +156,8 @@ async function fresh(db: Database, engine: EnginePool, scope: ProjectScope, reco
   if (record.row.inputsHash === variantInputsHash(input) && record.row.engineVersion === variantEngineVersion) return toVariant(record);
   // An approved variant's result never moves (its inputs are frozen; only a new engine version can differ): the
   // stored result, the one its sign-off's snapshot holds, is served as it is (docs/decisions/0019-sign-off-freeze.md).
-  if (await isFrozen(db, { variantId: record.row.id })) return toVariant(record);
+  // It says so with `stale` when the engine that computed it is not the running one.
+  if (await isFrozen(db, { variantId: record.row.id })) return toVariant(record, record.row.engineVersion !== variantEngineVersion);
   const values = await computation(engine, input, false);
   await repository.storeComputation(db, record.row.id, record.row.version, values);
   return toVariant({ ...record, row: { ...record.row, ...values } });

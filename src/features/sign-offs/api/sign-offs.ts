@@ -17,12 +17,20 @@ export const signOffKeys = {
 const path = (projectId: string) => `/api/projects/${encodeURIComponent(projectId)}/sign-offs`;
 const itemPath = (projectId: string, id: string) => `${path(projectId)}/${encodeURIComponent(id)}`;
 
-/** The project's sign-offs, newest first (sorted here too, so the order never rests on the server alone). */
+/** How soon to read the sign-offs again while a mail still waits for its first attempt (sent in the background). */
+const firstAttemptPollMs = 2_000;
+
+/**
+ * The project's sign-offs, newest first (sorted here too, so the order never rests on the server alone). While a mail
+ * has not had its first attempt yet, the list is read again every 2 s, so that its state moves from waiting to sent.
+ */
 export const signOffsQueryOptions = (projectId: string) =>
   queryOptions({
     queryKey: signOffKeys.all(projectId),
     queryFn: ({ signal }) => apiRequest(path(projectId), { schema: signOffListSchema, signal }),
     select: (data) => [...data.signOffs].sort((a, b) => b.submittedAt.localeCompare(a.submittedAt)),
+    refetchInterval: (query) =>
+      query.state.data?.signOffs.some((entry) => entry.mails.some((mail) => mail.state === 'pending' && mail.attempts === 0)) ? firstAttemptPollMs : false,
   });
 
 /** Submitting freezes nothing yet but changes the criteria's status and the variant's page: refresh the whole project. */

@@ -16,6 +16,7 @@ import { Table, Td, Th } from '../../../components/ui/table';
 import { describeError, issueMessage, issuesFor, isApiError } from '../../../lib/api-client';
 import { formatDateTime, formatPercent, formatQuantity } from '../../../lib/format';
 import { useDecideSignOff } from '../api/sign-offs';
+import { decisionSummary } from './decision-summary';
 import { SignOffStatusTag } from './sign-off-status';
 
 interface SignOffDecisionProps {
@@ -43,6 +44,21 @@ function PassOrFail({ verdict }: { verdict: 'pass' | 'fail' | undefined }) {
     <span className="font-semibold text-tide-800">■ meets the limit</span>
   ) : (
     <span className="font-semibold text-ember-700">□ exceeds the limit</span>
+  );
+}
+
+function InShort({ summary }: { summary: ReturnType<typeof decisionSummary> }) {
+  const meets = summary.tone === 'meets';
+  return (
+    <div
+      data-testid="decision-in-short"
+      className={`rounded-plate border-l-4 px-4 py-3 text-small ${meets ? 'border-tide-700 bg-tide-50 text-ink' : 'border-ember-600 bg-ember-50 text-ink'}`}
+    >
+      <p className={`font-semibold ${meets ? 'text-tide-800' : 'text-ember-700'}`}>
+        In short: {meets ? 'the design meets the comfort criteria' : 'the design does not meet the comfort criteria everywhere'}
+      </p>
+      <p className="mt-1">{summary.sentences.join(' ')}</p>
+    </div>
   );
 }
 
@@ -74,9 +90,13 @@ export function SignOffDecision({ projectId, signOff, canDecide, personName, cri
         {signOff.message ? <blockquote className="border-l-2 border-paper-line pl-3 text-small text-ink">“{signOff.message}”</blockquote> : null}
       </header>
 
+      {result ? <InShort summary={decisionSummary(result, loadCaseName)} /> : null}
+
       <div className="flex flex-col gap-2">
         <h3 className="font-semibold text-ink">1. The comfort the structure must give — {criteria.name}</h3>
-        <div className="text-small">{criteriaInWords}</div>
+        <div className="text-small" data-testid="decision-criteria">
+          {criteriaInWords}
+        </div>
       </div>
 
       <div className="flex flex-col gap-2">
@@ -123,8 +143,8 @@ export function SignOffDecision({ projectId, signOff, canDecide, personName, cri
                 {result.loadCases.map((lc) => (
                   <tr key={lc.loadCaseId} data-testid="decision-load-case">
                     <Td>{lc.name}</Td>
-                    <Td className="whitespace-nowrap tabular-nums">{formatQuantity(lc.peakAccelerationMPerS2, 'm/s²', 3)}</Td>
-                    <Td className="whitespace-nowrap tabular-nums">{lc.criterion ? formatQuantity(lc.criterion.limitMPerS2, 'm/s²', 3) : '—'}</Td>
+                    <Td className="whitespace-nowrap tabular-nums">{formatQuantity(lc.peakAccelerationMPerS2, 'm/s²', 4)}</Td>
+                    <Td className="whitespace-nowrap tabular-nums">{lc.criterion ? formatQuantity(lc.criterion.limitMPerS2, 'm/s²', 4) : '—'}</Td>
                     <Td className="whitespace-nowrap tabular-nums">{lc.utilisation === undefined ? '—' : formatPercent(1 - lc.utilisation)}</Td>
                     <Td>
                       <PassOrFail verdict={lc.verdict} />
@@ -144,7 +164,7 @@ export function SignOffDecision({ projectId, signOff, canDecide, personName, cri
               {result.detuning.tmdDampingToleranceRatio === null
                 ? ''
                 : `, damper damping ratio ±${formatPercent(result.detuning.tmdDampingToleranceRatio)}`}
-              ), the worst case is {formatQuantity(result.detuning.worstPeakAccelerationMPerS2, 'm/s²', 3)} under{' '}
+              ), the worst case is {formatQuantity(result.detuning.worstPeakAccelerationMPerS2, 'm/s²', 4)} under{' '}
               {loadCaseName(result.detuning.loadCaseId)} at {formatQuantity(result.detuning.atStructureFrequencyHz, 'Hz')}: margin{' '}
               {formatPercent(1 - result.detuning.worstUtilisation)}, <PassOrFail verdict={result.detuning.verdict} />.
             </p>

@@ -33,7 +33,7 @@ export function SignOffTimeline({ signOffs, personName, projectId, criteriaInWor
           </p>
           {signOff.decidedAt ? (
             <p className="text-small text-ink-soft">
-              {signOff.status === 'approved' ? 'Approved' : 'Returned'} by {personName(signOff.decidedBy)} on {formatDateTime(signOff.decidedAt)}
+              {signOff.status === 'approved' ? 'Approved' : 'Returned'} by {signOff.decidedByName ?? personName(signOff.decidedBy)} on {formatDateTime(signOff.decidedAt)}
               {signOff.decisionComment ? <>: “{signOff.decisionComment}”</> : null}
             </p>
           ) : null}

@@ -12,6 +12,7 @@ import { useDisplayUnits } from '../../../lib/display-units';
 import { formatDateTime, formatNumber, formatPercent } from '../../../lib/format';
 import { useSizeVariant, variantCurvesQueryOptions, type ModeChoice } from '../api/variants';
 import { CurvesPanels } from './curves-panels';
+import { frozenResultNotice } from './frozen-result';
 import { describeTuning } from './labels';
 import { DetuningSummary, Fact, HardwareFigures, LoadCaseVerdicts, ResultWarnings } from './result-panels';
 import { VerdictTag } from './verdict-tag';
@@ -60,6 +61,7 @@ export function VariantDetails({ projectId, variant, mode, criteria, canEdit, on
         </Notice>
       ) : (
         <>
+          <FrozenResultNotice result={result} />
           <Panel title="Damper">
             <dl className="grid gap-x-6 gap-y-3 text-small sm:grid-cols-2 lg:grid-cols-4">
               <Fact label="Mass ratio">{formatPercent(variant.massRatio, 3)}</Fact>
@@ -100,6 +102,15 @@ export function VariantDetails({ projectId, variant, mode, criteria, canEdit, on
       <Caution />
     </div>
   );
+}
+
+function FrozenResultNotice({ result }: { result: Variant['result'] }) {
+  const notice = frozenResultNotice(result);
+  return notice ? (
+    <Notice tone="caution" title={notice.title}>
+      {notice.body}
+    </Notice>
+  ) : null;
 }
 
 function VariantCurvesPanel({ projectId, variant, mode }: { projectId: string; variant: Variant; mode: ModeChoice | undefined }) {
