@@ -293,9 +293,20 @@ export function linePlotArea(box: Box): Box {
   return { x: box.x + LEFT_GUTTER, y: box.y + 6, width: box.width - LEFT_GUTTER - 8, height: box.height - BOTTOM_GUTTER - 6 - 16 };
 }
 
-/** A line plot in `box`: bands, grid, series, rules, marked points, axes with nice ticks and titles, and a key below. */
-export function drawLinePlot(doc: PDFKit.PDFDocument, box: Box, spec: LinePlotSpec): void {
-  const cursor = { x: doc.x, y: doc.y };
+export interface PlotFrame {
+  area: Box;
+  xTicks: NiceTicks;
+  yTicks: NiceTicks;
+  /** Data to page coordinates (pdfkit's y grows downwards: larger values map higher up the page). */
+  toX: (value: number) => number;
+  toY: (value: number) => number;
+}
+
+/**
+ * The axes of a line plot in `box`: the horizontal axis from the data's (or `xRange`'s) ends with nice ticks inside,
+ * the value axis widened to whole nice steps around the data and the rules (from 0 unless `yFromZero` is false).
+ */
+export function linePlotFrame(box: Box, spec: Pick<LinePlotSpec, 'series' | 'xRange' | 'rules' | 'yFromZero'>): PlotFrame {
   const area = linePlotArea(box);
   let xLo = Infinity;
   let xHi = -Infinity;
@@ -314,7 +325,12 @@ export function drawLinePlot(doc: PDFKit.PDFDocument, box: Box, spec: LinePlotSp
       }
     }
   }
-  for (const r of spec.rules ?? []) if (Number.isFinite(r.value)) yHi = Math.max(yHi, r.value);
+  for (const r of spec.rules ?? []) {
+    if (Number.isFinite(r.value)) {
+      yHi = Math.max(yHi, r.value);
+      yLo = Math.min(yLo, r.value);
+    }
+  }
   if (spec.xRange) [xLo, xHi] = spec.xRange;
   if (!Number.isFinite(xLo)) [xLo, xHi] = [0, 1];
   if (!Number.isFinite(yLo)) [yLo, yHi] = [0, 1];
@@ -324,6 +340,13 @@ export function drawLinePlot(doc: PDFKit.PDFDocument, box: Box, spec: LinePlotSp
   const yTicks = niceTicks(yLo, yHi * (fromZero ? 1.04 : 1), Math.max(3, Math.round(area.height / 32)));
   const toX = linearMap([xTicks.min, xTicks.max], [area.x, area.x + area.width]);
   const toY = linearMap([yTicks.min, yTicks.max], [area.y + area.height, area.y]);
+  return { area, xTicks, yTicks, toX, toY };
+}
+
+/** A line plot in `box`: bands, grid, series, rules, marked points, axes with nice ticks and titles, and a key below. */
+export function drawLinePlot(doc: PDFKit.PDFDocument, box: Box, spec: LinePlotSpec): void {
+  const cursor = { x: doc.x, y: doc.y };
+  const { area, xTicks, yTicks, toX, toY } = linePlotFrame(box, spec);
 
   doc.save();
   doc.rect(area.x, area.y, area.width, area.height).clip();

@@ -62,11 +62,13 @@ async function newVariant(ids: Ids, agent = agents.engineer): Promise<Variant> {
 const reportPath = (ids: Pick<Ids, 'projectId'>, variantId: string) => `/api/projects/${ids.projectId}/variants/${variantId}/report.pdf`;
 
 /** The answer's body as bytes (supertest leaves application/pdf unparsed otherwise). */
-function asBuffer(res: NodeJS.ReadableStream, callback: (error: Error | null, body: Buffer) => void) {
+type BodyParser = Extract<Parameters<ReturnType<Agent['get']>['parse']>[0], (res: never, callback: never) => void>;
+const asBuffer: BodyParser = (res, callback) => {
+  const stream = res as unknown as NodeJS.ReadableStream;
   const chunks: Buffer[] = [];
-  res.on('data', (chunk: Buffer) => chunks.push(chunk));
-  res.on('end', () => callback(null, Buffer.concat(chunks)));
-}
+  stream.on('data', (chunk: Buffer) => chunks.push(chunk));
+  stream.on('end', () => callback(null, Buffer.concat(chunks)));
+};
 
 async function pdfText(bytes: Buffer): Promise<{ text: string; pages: number }> {
   const parser = new PDFParse({ data: new Uint8Array(bytes) });
