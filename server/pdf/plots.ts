@@ -5,7 +5,7 @@
  * plot, so a filed report and the screen cannot disagree.
  *
  * Tick choice follows Heckbert's "nice numbers" (P. S. Heckbert, "Nice numbers for graph labels", Graphics Gems,
- * 1990): a step of 1, 2 or 5 × 10^k, with the axis widened to whole steps.
+ * 1990): a step of 1, 2 or 5 × 10^k near range / wanted intervals, with the axis widened to whole steps.
  */
 import { FONT_REGULAR, FONT_SEMIBOLD, latin } from './fonts';
 
@@ -61,7 +61,7 @@ export interface NiceTicks {
 
 /**
  * Ticks for data from `lo` to `hi`: about `targetCount` intervals of a nice step, the axis widened outwards to whole
- * steps (Heckbert 1990, "loose labelling"). A range of zero width is widened around its value.
+ * steps (after Heckbert 1990). A range of zero width is widened around its value.
  */
 export function niceTicks(lo: number, hi: number, targetCount = 5): NiceTicks {
   if (!Number.isFinite(lo) || !Number.isFinite(hi)) throw new RangeError(`niceTicks: the range must be finite (got ${lo} to ${hi})`);
@@ -71,8 +71,9 @@ export function niceTicks(lo: number, hi: number, targetCount = 5): NiceTicks {
     lo -= half;
     hi += half;
   }
-  const range = niceNumber(hi - lo, false);
-  const step = niceNumber(range / Math.max(1, targetCount), true);
+  // The step is the nice number nearest range / targetCount (Heckbert's rounding; his loose labelling first rounds the
+  // range up as well, which can halve the ticks: 0–25.7 s with seven wanted gave a step of 10).
+  const step = niceNumber((hi - lo) / Math.max(1, targetCount), true);
   // Snap to the step, with a tolerance for the ends that already lie on it.
   const min = Math.floor(lo / step + 1e-9) * step;
   const max = Math.ceil(hi / step - 1e-9) * step;
@@ -337,7 +338,9 @@ export function linePlotFrame(box: Box, spec: Pick<LinePlotSpec, 'series' | 'xRa
   const fromZero = spec.yFromZero ?? true;
   if (fromZero) yLo = Math.min(0, yLo);
   const xTicks = niceTicksWithin(xLo, xHi, Math.max(3, Math.round(area.width / 60)));
-  const yTicks = niceTicks(yLo, yHi * (fromZero ? 1.04 : 1), Math.max(3, Math.round(area.height / 32)));
+  // A little headroom, so that a peak or a rule at the top of the data does not sit on the frame.
+  const headroom = 0.04 * (yHi - yLo);
+  const yTicks = niceTicks(fromZero ? yLo : yLo - headroom, yHi + headroom, Math.max(3, Math.round(area.height / 32)));
   const toX = linearMap([xTicks.min, xTicks.max], [area.x, area.x + area.width]);
   const toY = linearMap([yTicks.min, yTicks.max], [area.y + area.height, area.y]);
   return { area, xTicks, yTicks, toX, toY };
@@ -380,7 +383,7 @@ export function drawLinePlot(doc: PDFKit.PDFDocument, box: Box, spec: LinePlotSp
   doc.undash();
   for (const r of spec.rules ?? []) {
     const py = toY(r.value);
-    if (py < area.y || py > area.y + area.height) continue;
+    if (py < area.y - 0.5 || py > area.y + area.height + 0.5) continue;
     doc.lineWidth(1.1).strokeColor(r.colour ?? plotColours.limit).dash(6, { space: 2.5 });
     doc.moveTo(area.x, py).lineTo(area.x + area.width, py).stroke();
     doc.undash();

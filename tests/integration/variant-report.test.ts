@@ -23,6 +23,7 @@ const projectName = 'Report test footbridge';
 const mode = { label: 'Report test vertical mode', direction: 'vertical', frequencyHz: 1.93, modalMassKg: 36_500, dampingRatio: 0.006, modeShapeMean: 0.62 };
 const crowd = { name: 'Report test crowd', spec: { kind: 'crowd', guide: 'setra', trafficClass: 'II', deckAreaM2: 180 } };
 const walker = { name: 'Report test walker', spec: { kind: 'walker' } };
+const crossing = { name: 'Report test crossing', spec: { kind: 'moving-walker', spanM: 36 } };
 const criteriaSpec = { set: 'setra', class: 'mean' };
 const massRatio = 0.025;
 
@@ -40,7 +41,7 @@ async function newProject(name: string, agent = agents.engineer): Promise<Ids> {
   const structureId = (await agent.post(`/api/projects/${projectId}/structures`).send({ name: 'Report test span', kind: 'footbridge-span' }).expect(201)).body.id as string;
   const modeBody = (await agent.post(`/api/projects/${projectId}/structures/${structureId}/modes`).send(mode).expect(201)).body as { id: string; version: number };
   const loadCaseIds: string[] = [];
-  for (const lc of [crowd, walker]) loadCaseIds.push((await agent.post(`/api/projects/${projectId}/load-cases`).send(lc).expect(201)).body.id as string);
+  for (const lc of [crowd, walker, crossing]) loadCaseIds.push((await agent.post(`/api/projects/${projectId}/load-cases`).send(lc).expect(201)).body.id as string);
   const criteriaId = (await agent.post(`/api/projects/${projectId}/comfort-criteria`).send({ name: 'Report test criteria', spec: criteriaSpec }).expect(201)).body.id as string;
   return { projectId, structureId, modeId: modeBody.id, modeVersion: modeBody.version, loadCaseIds, criteriaId };
 }
@@ -150,13 +151,15 @@ describe('design report', () => {
     expect(text).toContain(`${four(result.detuning.worstPeakAccelerationMPerS2)} m/s²`);
 
     // The plots: axis titles with units (response over the force band, robustness map).
-    for (const title of ['frequency of the force [Hz]', 'peak acceleration [m/s²]', 'structure frequency [Hz]', 'damper damping ratio, referred to f_a [%]']) {
+    // The crossing's time history.
+    for (const title of ['frequency of the force [Hz]', 'peak acceleration [m/s²]', 'structure frequency [Hz]', 'damper damping ratio, referred to f_a [%]', 'time [s]', 'acceleration [m/s²]']) {
       expect(text).toContain(title);
     }
 
     // Warnings: the walker's values from memory are flagged.
     expect(text).toContain('FROM MEMORY');
-    // The caution.
+    // The caution: the engine's own, in full, and its gist on every page.
+    expect(text).toContain(result.caution);
     expect(text).toContain('judgement of a qualified engineer');
     expect(text).toContain('licensed practice govern');
   });

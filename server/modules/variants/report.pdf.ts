@@ -190,7 +190,7 @@ function drawLoadCasePlots(w: PageWriter, data: VariantReportData, curves: Varia
       series: [
         { label: 'bare structure', x: h.timesS, y: h.bareStructureAccelerationMPerS2, colour: plotColours.bare, width: 0.7 },
         { label: 'with damper', x: h.timesS, y: h.structureAccelerationMPerS2, colour: plotColours.withDamper, width: 0.9 },
-        { label: 'running 1-s r.m.s., with damper', x: h.timesS, y: h.runningRms1sMPerS2, colour: plotColours.accent, width: 1.2 },
+        { label: 'running 1-s r.m.s., with damper', x: h.timesS, y: h.runningRms1sMPerS2, colour: plotColours.ink, width: 1.2 },
       ],
       rules: [{ value: curves.limitMPerS2, label: `comfort limit ${accel(curves.limitMPerS2)}` }],
     });
@@ -552,11 +552,10 @@ export function variantReportPdf(data: VariantReportData): Promise<Buffer> {
   });
 
   // ---- caution ----
-  w.ensureSpace(120);
+  w.ensureSpace(95);
   w.heading('8  Caution');
-  const cautionText =
-    'These results support, and never replace, the judgement of a qualified engineer, who remains responsible for the design; local codes, the project\'s specification and licensed practice govern. ' +
-    result.caution;
+  // The engine's own caution (shared/engine/design.ts), as every result carries it; the footer repeats its gist.
+  const cautionText = result.caution;
   doc.font(FONT_SEMIBOLD).fontSize(9.5);
   const ch = doc.heightOfString(latin(cautionText), { width: w.width - 20 });
   const box = w.reserve(ch + 16);
@@ -609,8 +608,9 @@ function collectWarnings(data: VariantReportData): ReportWarning[] {
 }
 
 function countWarnings(data: VariantReportData): string {
-  const n = collectWarnings(data).length;
-  const memory = collectWarnings(data).filter((x) => x.memory).length;
+  const warnings = collectWarnings(data);
+  const n = warnings.length;
+  const memory = warnings.filter((x) => x.memory).length;
   return n === 0 ? 'none' : `${n}, of which ${memory} concern values from memory`;
 }
 
