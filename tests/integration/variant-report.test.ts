@@ -46,11 +46,11 @@ async function newProject(name: string, agent = agents.engineer): Promise<Ids> {
   return { projectId, structureId, modeId: modeBody.id, modeVersion: modeBody.version, loadCaseIds, criteriaId };
 }
 
-async function newVariant(ids: Ids, agent = agents.engineer): Promise<Variant> {
+async function newVariant(ids: Ids, loadCaseIds = ids.loadCaseIds, agent = agents.engineer): Promise<Variant> {
   const created = await agent.post(`/api/projects/${ids.projectId}/variants`).send({
     name: 'Report test Den Hartog 2.5 %',
     modeId: ids.modeId,
-    loadCaseIds: ids.loadCaseIds,
+    loadCaseIds,
     criteriaId: ids.criteriaId,
     massRatio,
     tuning: { method: 'den-hartog' },
@@ -86,6 +86,8 @@ const four = (value: number) => (Math.abs(value) >= 1000 ? String(Math.round(val
 
 let ids: Ids;
 let variant: Variant;
+/** The same damper under the crowd alone: a lighter report for the checks that read it once per role. */
+let crowdOnly: Variant;
 
 beforeAll(async () => {
   t = await createTestApp();
@@ -93,6 +95,7 @@ beforeAll(async () => {
   outsiderAgent = await signIn(t.app, t.outsider.email);
   ids = await newProject(projectName);
   variant = await newVariant(ids);
+  crowdOnly = await newVariant(ids, ids.loadCaseIds.slice(0, 1));
 });
 
 afterAll(async () => {
@@ -102,11 +105,11 @@ afterAll(async () => {
 describe('design report', () => {
   it('every role of the organisation reads it as a PDF file named after the project, variant and revision', async () => {
     for (const role of roles) {
-      const response = await agents[role].get(reportPath(ids, variant.id)).buffer(true).parse(asBuffer);
+      const response = await agents[role].get(reportPath(ids, crowdOnly.id)).buffer(true).parse(asBuffer);
       expect(response.status, role).toBe(200);
       expect(response.headers['content-type']).toBe('application/pdf');
       expect(response.headers['content-disposition']).toMatch(
-        new RegExp(`^attachment; filename="?Report-test-footbridge-Report-test-Den-Hartog-2-5-design-report-${variant.id.slice(0, 8)}-v${variant.version}\\.pdf"?$`),
+        new RegExp(`^attachment; filename="?Report-test-footbridge-Report-test-Den-Hartog-2-5-design-report-${crowdOnly.id.slice(0, 8)}-v${crowdOnly.version}\\.pdf"?$`),
       );
       expect((response.body as Buffer).subarray(0, 5).toString('latin1')).toBe('%PDF-');
     }
