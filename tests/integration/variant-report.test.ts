@@ -167,6 +167,66 @@ describe('design report', () => {
     expect(text).toContain('licensed practice govern');
   });
 
+  it('names where a derived mode came from: the beam with its λ and modal-mass fraction, the lumped model with its mode and DOF', async () => {
+    const agent = agents.engineer;
+    const walkerOnly = [ids.loadCaseIds[1]];
+    // A simply supported uniform beam: λ1 = π and M = m L / 2 (Blevins, "Formulas for Natural Frequency and Mode
+    // Shape", 1979); 40 m, 2000 kg/m and EI = 8.3e9 N·m² put f1 = (π / 2L²) √(EI/m) near 2 Hz (invented inputs).
+    const beamMode = (
+      await agent
+        .post(`/api/projects/${ids.projectId}/structures/${ids.structureId}/modes`)
+        .send({
+          label: 'Report test beam mode',
+          direction: 'vertical',
+          dampingRatio: 0.006,
+          source: { kind: 'beam', support: 'simply-supported', lengthM: 40, bendingStiffnessNM2: 8.3e9, massPerLengthKgPerM: 2000 },
+        })
+        .expect(201)
+    ).body as { id: string; frequencyHz: number; modalMassKg: number };
+    const beamVariant = await (async () => {
+      const created = await agent.post(`/api/projects/${ids.projectId}/variants`).send({
+        name: 'Report test beam variant', modeId: beamMode.id, loadCaseIds: walkerOnly, criteriaId: ids.criteriaId, massRatio, tuning: { method: 'warburton-random' },
+      });
+      expect(created.status, JSON.stringify(created.body)).toBe(201);
+      return variantSchema.parse(created.body);
+    })();
+    const beamText = (await pdfText((await agents.owner.get(reportPath(ids, beamVariant.id)).buffer(true).parse(asBuffer).expect(200)).body as Buffer)).text;
+    expect(beamText).toContain('uniform Euler-Bernoulli beam, simply-supported, mode 1');
+    expect(beamText).toContain(`lambda_n = ${four(Math.PI)}`); // 3.142
+    expect(beamText).toContain(`M = ${four(0.5)} · m L`); // m L / 2
+    expect(beamText).toContain(`${four((Math.PI / (2 * 40 ** 2)) * Math.sqrt(8.3e9 / 2000))} Hz`);
+    expect(beamText).toContain(`${four(2000 * 40 * 0.5)} kg`); // 40000 kg
+    expect(beamText).toContain('Warburton');
+
+    // A two-mass chain (invented): mode 1 at the free end's DOF.
+    const model = (
+      await agent
+        .post(`/api/projects/${ids.projectId}/structures/${ids.structureId}/models`)
+        .send({
+          name: 'Report test chain',
+          massMatrixKg: [[20_000, 0], [0, 20_000]],
+          stiffnessMatrixNPerM: [[16.5e6, -8.25e6], [-8.25e6, 8.25e6]],
+          dofLabels: ['quarter point', 'midspan'],
+        })
+        .expect(201)
+    ).body as { id: string };
+    const chainMode = (
+      await agent
+        .post(`/api/projects/${ids.projectId}/structures/${ids.structureId}/modes`)
+        .send({ label: 'Report test chain mode', direction: 'vertical', dampingRatio: 0.006, source: { kind: 'lumped-model', modelId: model.id, modeNumber: 1, dofIndex: 1 } })
+        .expect(201)
+    ).body as { id: string };
+    const created = await agent.post(`/api/projects/${ids.projectId}/variants`).send({
+      name: 'Report test chain variant', modeId: chainMode.id, loadCaseIds: walkerOnly, criteriaId: ids.criteriaId, massRatio, tuning: { method: 'h2' },
+    });
+    expect(created.status, JSON.stringify(created.body)).toBe(201);
+    const chainText = (await pdfText((await agents.fabricator.get(reportPath(ids, created.body.id as string)).buffer(true).parse(asBuffer).expect(200)).body as Buffer)).text;
+    expect(chainText).toContain('derived from the lumped model "Report test chain" (2 degrees of freedom)');
+    expect(chainText).toContain('undamped mode 1 (ascending frequency)');
+    expect(chainText).toContain('DOF 1 (midspan)');
+    expect(chainText).toContain('numerical H2 optimum');
+  });
+
   it('another organisation, an unknown variant or a variant of another project is 404; a malformed id is 400; no session is 401', async () => {
     const outsider = await outsiderAgent.get(reportPath(ids, variant.id));
     expect(outsider.status).toBe(404);
