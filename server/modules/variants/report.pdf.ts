@@ -3,7 +3,7 @@
  * where it came from, the load cases and their sources, the comfort criteria), the tuning method and its source, the
  * results of every load case with its response plot and robustness map drawn from the same curves as the variant's
  * page, the detuning check, the hardware numbers (the hardware sheet's rows, shared/compute/hardware-sheet.ts), every
- * warning of the engine in plain words, and the caution. SI units throughout; numbers with at least four significant
+ * warning of the engine in plain words; the caution stands under the title block. SI units throughout; numbers with at least four significant
  * figures. A running header on every page names the project, the variant and its version, the engine version, the
  * time of generation and the page.
  */
@@ -364,7 +364,16 @@ export function variantReportPdf(data: VariantReportData): Promise<Buffer> {
   }
   doc.save().lineWidth(1).strokeColor(pageColours.ink).rect(w.left, blockTop, w.width, y - blockTop + 2).stroke();
   doc.moveTo(w.left + colW, blockTop).lineTo(w.left + colW, y + 2).lineWidth(0.5).strokeColor(pageColours.rule).stroke().restore();
-  w.y = y + 12;
+  w.y = y + 10;
+
+  // ---- caution, under the title block: the engine's own (shared/engine/design.ts), as every result carries it ----
+  const cautionText = `Caution. ${result.caution}`;
+  doc.font(FONT_SEMIBOLD).fontSize(9);
+  const ch = doc.heightOfString(latin(cautionText), { width: w.width - 20 });
+  const cautionBox = w.reserve(ch + 14, 6);
+  doc.save().lineWidth(1.2).strokeColor(pageColours.alert).rect(cautionBox.x, cautionBox.y, cautionBox.width, cautionBox.height).stroke().restore();
+  doc.fillColor(pageColours.ink).text(latin(cautionText), cautionBox.x + 10, cautionBox.y + 7, { width: w.width - 20 });
+  w.y = cautionBox.y + cautionBox.height + 6;
 
   // ---- summary ----
   w.heading('1  Summary');
@@ -472,8 +481,8 @@ export function variantReportPdf(data: VariantReportData): Promise<Buffer> {
       { title: 'With damper', width: 0.15, align: 'right' },
       { title: 'Limit', width: 0.1, align: 'right' },
       { title: 'Use of limit', width: 0.09, align: 'right' },
-      { title: 'Stroke', width: 0.09, align: 'right' },
-      { title: 'Class', width: 0.14 },
+      { title: 'Stroke', width: 0.1, align: 'right' },
+      { title: 'Class', width: 0.13 },
       { title: 'Verdict', width: 0.09 },
     ],
     result.loadCases.map((lc) => [
@@ -551,17 +560,6 @@ export function variantReportPdf(data: VariantReportData): Promise<Buffer> {
     });
   });
 
-  // ---- caution ----
-  w.ensureSpace(95);
-  w.heading('8  Caution');
-  // The engine's own caution (shared/engine/design.ts), as every result carries it; the footer repeats its gist.
-  const cautionText = result.caution;
-  doc.font(FONT_SEMIBOLD).fontSize(9.5);
-  const ch = doc.heightOfString(latin(cautionText), { width: w.width - 20 });
-  const box = w.reserve(ch + 16);
-  doc.save().lineWidth(1.2).strokeColor(pageColours.alert).rect(box.x, box.y, box.width, box.height).stroke().restore();
-  doc.fillColor(pageColours.ink).text(latin(cautionText), box.x + 10, box.y + 8, { width: w.width - 20 });
-
   const generated = iso(data.generatedAt);
   return w.finish((page, count) => {
     doc.font(FONT_SEMIBOLD).fontSize(8).fillColor(pageColours.ink);
@@ -611,6 +609,6 @@ function countWarnings(data: VariantReportData): string {
   const warnings = collectWarnings(data);
   const n = warnings.length;
   const memory = warnings.filter((x) => x.memory).length;
-  return n === 0 ? 'none' : `${n}, of which ${memory} concern values from memory`;
+  return n === 0 ? 'none' : `${n}, of which ${memory} ${memory === 1 ? 'concerns' : 'concern'} values from memory`;
 }
 
