@@ -502,6 +502,12 @@ export function variantReportPdf(data: VariantReportData): Promise<Buffer> {
     w.newPage();
     w.heading(`4.${i + 1}  ${lc.name}`, 2);
     const curves = data.curves.find((c) => c.loadCaseId === lc.loadCaseId);
+    if (data.plotEngineVersion) {
+      w.paragraph(
+        `The numbers of this report are the stored result of engine ${result.engineVersion}, which the design was approved with; the plots below were computed by engine ${data.plotEngineVersion} and may differ slightly.`,
+        { size: 8.5, colour: pageColours.alert },
+      );
+    }
     if (curves) drawLoadCasePlots(w, data, curves);
     w.keyValues(loadCaseFacts(lc), { size: 8 });
   });

@@ -10,7 +10,7 @@ import type { CurrentUser } from '../../middleware/auth';
 import type { EnginePool } from '../../workers/engine-pool';
 import type { SavedMode } from '../../../shared/contracts/model';
 import type { Variant, VariantCurves, VariantResult } from '../../../shared/contracts/variants';
-import type { CriteriaSpec, LoadCaseSpec } from '../../../shared/compute/variant';
+import { variantEngineVersion, type CriteriaSpec, type LoadCaseSpec } from '../../../shared/compute/variant';
 import { findProject } from '../projects/projects.repository';
 import { findStructure } from '../structures/structures.repository';
 import { requireProjectScope } from '../structures/structures.service';
@@ -30,6 +30,11 @@ export interface VariantReportData {
   criteria: { name: string; status: string; spec: CriteriaSpec };
   /** The plot data of each load case, in the variant's order. */
   curves: VariantCurves[];
+  /**
+   * The engine version that computed the plots when it differs from the stored result's (an approved design keeps the
+   * result it was approved with, docs/decisions/0019-sign-off-freeze.md); null otherwise.
+   */
+  plotEngineVersion: string | null;
   generatedAt: Date;
   generatedFor: { name: string; email: string };
 }
@@ -68,9 +73,12 @@ export async function getVariantReport(db: Database, engine: EnginePool, user: C
   // The page's own plot data, one load case after another (each runs on the engine's worker pool).
   const curves: VariantCurves[] = [];
   for (const loadCase of loadCases) curves.push(await variantCurves(db, engine, user, projectId, variantId, loadCase.id));
-  // The curves are computed from the inputs as they are now: a change made meanwhile would mix two designs.
+  // The curves are computed from the inputs as they are now: a change made meanwhile would mix two designs. (An
+  // approved design computed by an earlier engine keeps its stored result; its plots are then the present engine's,
+  // and the report says so.)
   const tmd = variant.result.tmd;
-  if (curves.some((c) => c.tmd.massKg !== tmd.massKg || c.tmd.frequencyHz !== tmd.frequencyHz || c.tmd.dampingRatio !== tmd.dampingRatio)) {
+  const sameEngine = variant.result.engineVersion === variantEngineVersion;
+  if (sameEngine && curves.some((c) => c.tmd.massKg !== tmd.massKg || c.tmd.frequencyHz !== tmd.frequencyHz || c.tmd.dampingRatio !== tmd.dampingRatio)) {
     throw new HttpError(409, 'variant_changed', 'The tuning variant changed while its report was being prepared; ask for the report again');
   }
 
@@ -85,6 +93,7 @@ export async function getVariantReport(db: Database, engine: EnginePool, user: C
     loadCases,
     criteria: { name: criteriaRow.name, status: criteriaRow.status, spec: criteriaRow.spec as CriteriaSpec },
     curves,
+    plotEngineVersion: sameEngine ? null : variantEngineVersion,
     generatedAt: new Date(),
     generatedFor: { name: user.name, email: user.email },
   };
