@@ -15,6 +15,7 @@
 import type { SignOffSnapshot } from '../contracts/sign-offs';
 import type { HardwareSheetEntry } from '../contracts/compute-design';
 import type { AsBuiltComparison, AsBuiltUnitComparison, AsBuiltUnitInput, RangeVerdict } from '../contracts/as-built';
+import { governingHardwareEntry, HardwareSheetUnavailableError } from './hardware-sheet';
 
 /** Per-unit design numbers and tuning range of an approved damper (the "per unit" and "tuning range" rows of the sheet). */
 export interface AsBuiltDesign {
@@ -38,18 +39,12 @@ export interface AsBuiltDesign {
 /** Mass ratios outside this band get a warning (PRODUCT cautions: usual mass ratios 0.5–10 %). */
 export const USUAL_MASS_RATIO_RANGE = [0.005, 0.1] as const;
 
-export class AsBuiltDesignUnavailableError extends Error {}
+/** Thrown when the approved result holds no hardware entry to compare with (the hardware sheet's own error). */
+export { HardwareSheetUnavailableError as AsBuiltDesignUnavailableError };
 
-/** The hardware entry the sheet is built from: the load case needing the largest design stroke. */
+/** The hardware entry the sheet is built from (the load case needing the largest design stroke), by the sheet's own rule. */
 function sheetEntry(snapshot: SignOffSnapshot): HardwareSheetEntry {
-  const result = snapshot.variant.result;
-  if (!result) throw new AsBuiltDesignUnavailableError('the approved design has no result');
-  let best: HardwareSheetEntry | null = null;
-  for (const loadCase of result.loadCases) {
-    for (const entry of loadCase.hardware) if (!best || entry.designStrokeM > best.designStrokeM) best = entry;
-  }
-  if (!best) throw new AsBuiltDesignUnavailableError('the approved result holds no hardware entry');
-  return best;
+  return governingHardwareEntry(snapshot).entry;
 }
 
 export function asBuiltDesignFromEntry(entry: HardwareSheetEntry, modalMassKg: number): AsBuiltDesign {

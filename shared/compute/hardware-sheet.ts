@@ -40,17 +40,20 @@ export interface HardwareSheet {
 
 export class HardwareSheetUnavailableError extends Error {}
 
+/** What the design rows are read from: a tuning variant with its result, and its mode. */
+export type HardwareDesign = Pick<SignOffSnapshot, 'variant' | 'mode'>;
+
 /** The load case whose hardware entry needs the largest design stroke (the governing one for the fabricator). */
-function governingEntry(snapshot: SignOffSnapshot): { entry: HardwareSheetEntry; loadCaseName: string } {
-  const result = snapshot.variant.result;
-  if (!result) throw new HardwareSheetUnavailableError('the approved design has no result');
+export function governingHardwareEntry(design: HardwareDesign): { entry: HardwareSheetEntry; loadCaseName: string } {
+  const result = design.variant.result;
+  if (!result) throw new HardwareSheetUnavailableError('the design has no result');
   let best: { entry: HardwareSheetEntry; loadCaseName: string } | null = null;
   for (const loadCase of result.loadCases) {
     for (const entry of loadCase.hardware) {
       if (!best || entry.designStrokeM > best.entry.designStrokeM) best = { entry, loadCaseName: loadCase.name };
     }
   }
-  if (!best) throw new HardwareSheetUnavailableError('the approved result holds no hardware entry');
+  if (!best) throw new HardwareSheetUnavailableError('the result holds no hardware entry');
   return best;
 }
 
@@ -62,8 +65,37 @@ export function buildHardwareSheet(input: HardwareSheetInput): HardwareSheet {
   const { signOff, approver } = input;
   if (signOff.status !== 'approved') throw new HardwareSheetUnavailableError(`the sign-off is ${signOff.status}, not approved`);
   const { snapshot } = signOff;
-  const { entry, loadCaseName } = governingEntry(snapshot);
-  const { mode, variant } = snapshot;
+  const rows = hardwareDesignRows(snapshot);
+  const { variant } = snapshot;
+  const add = (section: string, quantity: string, value: number | string, unit: string, note = '') => rows.push({ section, quantity, value, unit, note });
+  add('approval', 'Tuning variant', variant.name, '');
+  add(
+    'approval',
+    'Approved by',
+    approver ? approver.name || approver.email : 'not recorded',
+    '',
+    approver ? approver.email : 'approved before the approver was kept with the approval',
+  );
+  add('approval', 'Approved at', signOff.decidedAt ?? '', 'UTC');
+  add('approval', 'Comment', signOff.decisionComment ?? '', '');
+  add('approval', 'Engine version', snapshot.engineVersion, '');
+
+  return {
+    projectName: input.projectName,
+    variantName: variant.name,
+    revision: hardwareSheetRevision(signOff.id, signOff.decidedAt),
+    rows,
+    caution: HARDWARE_SHEET_CAUTION,
+  };
+}
+
+/**
+ * The sheet's rows of the design itself (mode, damper, per unit, stroke, tuning range), without the approval: the
+ * hardware sheet adds its approval rows, and the design report prints these for a design not yet approved.
+ */
+export function hardwareDesignRows(design: HardwareDesign): HardwareSheetRow[] {
+  const { entry, loadCaseName } = governingHardwareEntry(design);
+  const { mode, variant } = design;
   const n = entry.unitCount;
   const mm = (m: number) => m * 1000;
   const rows: HardwareSheetRow[] = [];
@@ -101,25 +133,7 @@ export function buildHardwareSheet(input: HardwareSheetInput): HardwareSheet {
   add('tuning range', 'Spring rate per unit at constant mass, high end', r.maxSpringRateNPerM / n, 'N/m', 'k ∝ f²');
   add('tuning range', 'Moving mass per unit at constant springs, for the high end', r.minMovingMassKg / n, 'kg', 'm ∝ 1/f²');
   add('tuning range', 'Moving mass per unit at constant springs, for the low end', r.maxMovingMassKg / n, 'kg', 'm ∝ 1/f²');
-  add('approval', 'Tuning variant', variant.name, '');
-  add(
-    'approval',
-    'Approved by',
-    approver ? approver.name || approver.email : 'not recorded',
-    '',
-    approver ? approver.email : 'approved before the approver was kept with the approval',
-  );
-  add('approval', 'Approved at', signOff.decidedAt ?? '', 'UTC');
-  add('approval', 'Comment', signOff.decisionComment ?? '', '');
-  add('approval', 'Engine version', snapshot.engineVersion, '');
-
-  return {
-    projectName: input.projectName,
-    variantName: variant.name,
-    revision: hardwareSheetRevision(signOff.id, signOff.decidedAt),
-    rows,
-    caution: HARDWARE_SHEET_CAUTION,
-  };
+  return rows;
 }
 
 /** Six significant figures, no exponent for ordinary magnitudes. */

@@ -3,25 +3,9 @@
  * own font, read from node_modules; fontkit reads its WOFF files). The rows are those of the CSV and the page
  * (shared/compute/hardware-sheet.ts).
  */
-import { readFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
-import { dirname, join } from 'node:path';
 import PDFDocument from 'pdfkit';
 import { formatHardwareValue, type HardwareSheet } from '../../../shared/compute/hardware-sheet';
-
-const fontDir = join(dirname(createRequire(import.meta.url).resolve('@fontsource/work-sans/LICENSE')), 'files');
-let fonts: { regular: Buffer; bold: Buffer } | undefined;
-function workSans() {
-  fonts ??= {
-    regular: readFileSync(join(fontDir, 'work-sans-latin-400-normal.woff')),
-    bold: readFileSync(join(fontDir, 'work-sans-latin-600-normal.woff')),
-  };
-  return fonts;
-}
-
-/** Work Sans' latin files hold no Greek letters: the PDF spells them out. */
-const spelled: Record<string, string> = { 'ω': 'w', 'ζ': 'zeta', 'μ': 'mu', 'π': 'pi', '∝': '~', '×': 'x', '≤': '<=' };
-const latin = (text: string) => text.replace(/[ωζμπ∝×≤]/g, (c) => spelled[c] ?? c);
+import { latin, registerWorkSans } from '../../pdf/fonts';
 
 export function hardwareSheetPdf(sheet: HardwareSheet): Promise<Buffer> {
   const doc = new PDFDocument({ size: 'A4', margin: 48, info: { Title: `Hardware sheet ${sheet.projectName} ${sheet.revision}`, Creator: 'Stillspan' } });
@@ -31,9 +15,7 @@ export function hardwareSheetPdf(sheet: HardwareSheet): Promise<Buffer> {
     doc.on('end', () => resolve(Buffer.concat(chunks)));
     doc.on('error', reject);
   });
-  const { regular, bold } = workSans();
-  doc.registerFont('WorkSans', regular);
-  doc.registerFont('WorkSans-SemiBold', bold);
+  registerWorkSans(doc);
 
   const left = doc.page.margins.left;
   const width = doc.page.width - left - doc.page.margins.right;

@@ -13,6 +13,8 @@ import {
   type VariantList,
 } from '../../../shared/contracts/variants';
 import * as service from './variants.service';
+import { getVariantReport, variantReportFileName } from './report.service';
+import { variantReportPdf } from './report.pdf';
 
 /** /api/projects/:projectId/variants: everyone in the organisation reads; admins and engineers change and size. */
 export function variantsRouter(ctx: AppContext): Router {
@@ -55,6 +57,13 @@ export function variantsRouter(ctx: AppContext): Router {
     const { projectId, variantId } = parsed(variantParamsSchema, req.params);
     const { loadCaseId } = parsed(variantCurvesQuerySchema, req.query);
     res.json(await service.variantCurves(ctx.db, ctx.enginePool, currentUser(req), projectId, variantId, loadCaseId));
+  });
+
+  // The engineer's design report (PDF): everyone in the organisation reads it; 409 while the engine refuses the inputs.
+  router.get('/:variantId/report.pdf', validate({ params: variantParamsSchema }), async (req, res) => {
+    const { projectId, variantId } = parsed(variantParamsSchema, req.params);
+    const report = await getVariantReport(ctx.db, ctx.enginePool, currentUser(req), projectId, variantId);
+    res.attachment(variantReportFileName(report)).type('application/pdf').send(await variantReportPdf(report));
   });
 
   return router;

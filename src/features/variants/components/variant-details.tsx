@@ -41,18 +41,29 @@ export function VariantDetails({ projectId, variant, mode, criteria, canEdit, on
             {mode ? `${mode.structure.name} · ${mode.mode.label} (${formatNumber(mode.mode.frequencyHz, 4)} Hz)` : 'mode not found'} · {criteria?.name ?? 'criteria not found'}
           </p>
         </div>
-        {canEdit ? (
-          <div className="flex gap-2">
-            <LinkButton tone="secondary" to={`/projects/${projectId}/tuning-variants/${variant.id}/edit`}>
-              Edit variant
-            </LinkButton>
-            {onDelete ? (
-              <Button tone="danger-outline" busy={deleting} onClick={onDelete}>
-                Delete
-              </Button>
-            ) : null}
-          </div>
-        ) : null}
+        <div className="flex flex-wrap items-center gap-2">
+          {result ? (
+            <a
+              className="px-2 text-small font-medium text-tide-800 underline underline-offset-4 hover:text-tide-900"
+              href={`/api/projects/${projectId}/variants/${variant.id}/report.pdf`}
+              download
+            >
+              Design report (PDF)
+            </a>
+          ) : null}
+          {canEdit ? (
+            <>
+              <LinkButton tone="secondary" to={`/projects/${projectId}/tuning-variants/${variant.id}/edit`}>
+                Edit variant
+              </LinkButton>
+              {onDelete ? (
+                <Button tone="danger-outline" busy={deleting} onClick={onDelete}>
+                  Delete
+                </Button>
+              ) : null}
+            </>
+          ) : null}
+        </div>
       </header>
 
       {!result ? (
