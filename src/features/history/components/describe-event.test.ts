@@ -21,7 +21,9 @@ describe('history entries in plain words', () => {
     expect(eventSentence(event({}))).toBe('changed the load case “Test crowd”');
     expect(eventSentence(event({ entity: 'sign-off', action: 'submitted', label: 'Test variant' }))).toBe('submitted the design “Test variant” for sign-off');
     expect(eventSentence(event({ entity: 'sign-off', action: 'approved', label: 'Test variant' }))).toBe('approved the design “Test variant”');
-    expect(eventSentence(event({ entity: 'as-built-record', action: 'create', label: null }))).toBe('added the as built record');
+    expect(eventSentence(event({ entity: 'as-built-record', action: 'create', label: null }))).toBe('added the as-built record');
+    // A kind of thing added later without a noun reads from its name.
+    expect(eventSentence(event({ entity: 'damper-inspection', action: 'create', label: null }))).toBe('added the damper inspection');
   });
 
   it('reads the unit from the field name', () => {
