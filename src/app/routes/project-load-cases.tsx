@@ -1,8 +1,10 @@
 import { useQuery } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router-dom';
+import { designLocks } from '../../components/forms/design-locks';
 import { CollectionPage } from '../../components/layouts/collection-page';
 import { loadCasesQueryOptions } from '../../features/load-cases/api/load-cases';
-import { CreateLoadCaseForm } from '../../features/load-cases/components/load-case-form';
+import { signOffsQueryOptions } from '../../features/sign-offs/api/sign-offs';
+import { LoadCaseForm } from '../../features/load-cases/components/load-case-form';
 import { LoadCaseList } from '../../features/load-cases/components/load-case-list';
 import { queryClient } from '../../lib/query-client';
 import { useProjectContext } from './project-layout';
@@ -17,6 +19,10 @@ export async function projectLoadCasesLoader({ params }: LoaderFunctionArgs) {
 export function ProjectLoadCasesRoute() {
   const { project, canEdit } = useProjectContext();
   const loadCases = useQuery(loadCasesQueryOptions(project.id));
+  // Which load cases an approved design rests on (fixed) or a submitted one (a change needs a new submission); while
+  // the sign-offs are unknown every load case is offered and the server's answer is shown.
+  const signOffs = useQuery({ ...signOffsQueryOptions(project.id), enabled: canEdit });
+  const locks = designLocks(signOffs.data);
   return (
     <CollectionPage
       query={loadCases}
@@ -27,8 +33,8 @@ export function ProjectLoadCasesRoute() {
       newLabel="New load case"
       newDescription="Choose the kind and the guide's choices; the source it follows and the frequencies it covers show as you go."
       addedTitle="Load case added"
-      renderList={(items) => <LoadCaseList projectId={project.id} loadCases={items} canEdit={canEdit} />}
-      renderCreateForm={(onCreated) => <CreateLoadCaseForm projectId={project.id} onCreated={onCreated} />}
+      renderList={(items) => <LoadCaseList projectId={project.id} loadCases={items} canEdit={canEdit} locks={locks.loadCases} />}
+      renderCreateForm={(onCreated) => <LoadCaseForm projectId={project.id} onDone={onCreated} />}
     />
   );
 }
