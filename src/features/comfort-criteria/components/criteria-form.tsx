@@ -2,13 +2,13 @@ import { useState } from 'react';
 import { get, useForm, useWatch, type FieldErrors, type Path } from 'react-hook-form';
 import { createComfortCriteriaSchema, type ComfortCriteria, type CreateComfortCriteriaInput } from '../../../../shared/contracts';
 import { changesSomething, saveRefusalOf, type SaveRefusal } from '../../../components/forms/changes';
+import { NumberField } from '../../../components/forms/number-field';
 import { SaveRefusalNotice } from '../../../components/forms/save-refusal-notice';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { applyServerIssues } from '../../../lib/form-errors';
 import { bodyResolver, dropBlank } from '../../../lib/form-resolver';
-import { numberOrUndefined } from '../../../lib/form-values';
 import { useCreateComfortCriteria, useUpdateComfortCriteria } from '../api/comfort-criteria';
 import { criteriaChanges, criteriaToForm } from './criteria-changes';
 import { criteriaClasses, criteriaSetLabels, describeCriteria, type CriteriaSet, type CriteriaSpec } from './criteria-info';
@@ -130,13 +130,13 @@ export function CriteriaForm({ projectId, criteria, onDone, onCancel, onReload }
           ))}
         </SelectField>
         {set === 'custom' ? (
-          <TextField
+          <NumberField
             id={id('criteria-limit')}
             label="Peak acceleration limit [m/s²]"
-            inputMode="decimal"
             hint="One limit for the peak acceleration of every mode, as the project's specification sets it."
-            error={errorAt(errors, 'spec.peakAccelerationLimitMPerS2')}
-            {...register('spec.peakAccelerationLimitMPerS2', { setValueAs: numberOrUndefined })}
+            name="spec.peakAccelerationLimitMPerS2"
+            register={register}
+            errors={errors}
           />
         ) : (
           <SelectField id={id('criteria-class')} label={set === 'en1990' ? 'Situation' : set === 'dg11' || set === 'iso10137' ? 'Use of the space' : 'Comfort class'} error={errorAt(errors, 'spec.class')} {...register('spec.class')}>
@@ -148,14 +148,14 @@ export function CriteriaForm({ projectId, criteria, onDone, onCancel, onReload }
           </SelectField>
         )}
         {set === 'iso10137' ? (
-          <TextField
+          <NumberField
             id={id('criteria-response-factor')}
             label="Response factor R [–]"
             optional
-            inputMode="decimal"
             hint="Left blank: the class's own factor."
-            error={errorAt(errors, 'spec.responseFactor')}
-            {...register('spec.responseFactor', { setValueAs: numberOrUndefined })}
+            name="spec.responseFactor"
+            register={register}
+            errors={errors}
           />
         ) : null}
       </div>

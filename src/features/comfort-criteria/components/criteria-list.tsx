@@ -45,9 +45,7 @@ export function CriteriaList({ projectId, criteria, canEdit }: { projectId: stri
               badge={<Badge tone={entry.status === 'approved' ? 'tide' : 'ember'}>{statusLabels[entry.status]}</Badge>}
               summary={criteriaTitle(entry.spec)}
               actions={
-                !canEdit || editing ? null : fixed ? (
-                  <span className="max-w-[14rem] text-caption text-ink-muted">Approved by the owner: they cannot be changed.</span>
-                ) : (
+                !canEdit || editing || fixed ? null : (
                   <div className="flex gap-2">
                     {confirming === entry.id ? null : (
                       <Button
@@ -78,7 +76,7 @@ export function CriteriaList({ projectId, criteria, canEdit }: { projectId: stri
               {savedId === entry.id ? <Notice tone="success" title="Comfort criteria saved" /> : null}
               {canEdit && fixed ? (
                 <p className="text-small text-ink-soft">
-                  The design the owner approved rests on these criteria, so they stay as they are. For other limits, add new
+                  The design the owner approved rests on these criteria, so they cannot be changed. For other limits, add new
                   criteria and submit a design with them for sign-off.
                 </p>
               ) : null}

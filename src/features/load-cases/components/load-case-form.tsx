@@ -4,6 +4,7 @@ import { createLoadCaseSchema, type CreateLoadCaseInput, type SavedLoadCase } fr
 import { dg11ConstantForceN } from '../../../../shared/engine/loads/floor-walking';
 import { trafficClasses, type CrowdGuide } from '../../../../shared/engine/loads/pedestrian-crowd';
 import { changesSomething, saveRefusalOf, type SaveRefusal } from '../../../components/forms/changes';
+import { NumberField } from '../../../components/forms/number-field';
 import { SaveRefusalNotice } from '../../../components/forms/save-refusal-notice';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextField } from '../../../components/ui/field';
@@ -254,38 +255,38 @@ function KindFields({ kind, spec, densityBy, register, errors, id }: KindFieldsP
                 ))}
             </SelectField>
           ) : (
-            <TextField id={id('load-case-density')} label="Density [persons/m²]" inputMode="decimal" error={errorAt(errors, 'spec.densityPerM2')} {...register('spec.densityPerM2', number)} />
+            <NumberField id={id('load-case-density')} label="Density [persons/m²]" name="spec.densityPerM2" register={register} errors={errors} />
           )}
-          <TextField
+          <NumberField
             id={id('load-case-deck-area')}
             label="Deck area [m²]"
-            inputMode="decimal"
             hint="The loaded deck: number of pedestrians n = density × area."
-            error={errorAt(errors, 'spec.deckAreaM2')}
-            {...register('spec.deckAreaM2', number)}
+            name="spec.deckAreaM2"
+            register={register}
+            errors={errors}
           />
-          <TextField
+          <NumberField
             id={id('load-case-shape-mean')}
             label="Mean |φ| over the deck [–]"
             optional
-            inputMode="decimal"
             hint="For the mode shape scaled to 1 at its largest; left blank: 2/π ≈ 0.637, a half sine."
-            error={errorAt(errors, 'spec.modeShapeMean')}
-            {...register('spec.modeShapeMean', number)}
+            name="spec.modeShapeMean"
+            register={register}
+            errors={errors}
           />
           <SelectField id={id('load-case-harmonic')} label="Pedestrian force harmonic" error={errorAt(errors, 'spec.harmonic')} {...register('spec.harmonic', { setValueAs: (value) => Number(value) })}>
             <option value={1}>First harmonic (the pacing frequency)</option>
             <option value={2}>Second harmonic (twice the pacing frequency)</option>
           </SelectField>
           {kind === 'lateral' ? (
-            <TextField
+            <NumberField
               id={id('load-case-lock-in')}
               label="Lock-in coefficient k [N·s/m per person]"
               optional
-              inputMode="decimal"
               hint="Left blank: 300 N·s/m per person on 0.5–1.0 Hz (Dallard et al. 2001)."
-              error={errorAt(errors, 'spec.lockInCoefficientNsPerM')}
-              {...register('spec.lockInCoefficientNsPerM', number)}
+              name="spec.lockInCoefficientNsPerM"
+              register={register}
+              errors={errors}
             />
           ) : null}
         </>
@@ -295,15 +296,15 @@ function KindFields({ kind, spec, densityBy, register, errors, id }: KindFieldsP
     case 'jogger':
       return (
         <>
-          <TextField id={id('load-case-body-weight')} label="Body weight G [N]" optional inputMode="decimal" hint="Left blank: 800 N (from memory)." error={errorAt(errors, 'spec.bodyWeightN')} {...register('spec.bodyWeightN', number)} />
-          <TextField
+          <NumberField id={id('load-case-body-weight')} label="Body weight G [N]" optional hint="Left blank: 800 N (from memory)." name="spec.bodyWeightN" register={register} errors={errors} />
+          <NumberField
             id={id('load-case-shape-value')}
             label="|φ| where the person goes [–]"
             optional
-            inputMode="decimal"
             hint="Left blank: 1, the antinode."
-            error={errorAt(errors, 'spec.modeShapeValue')}
-            {...register('spec.modeShapeValue', number)}
+            name="spec.modeShapeValue"
+            register={register}
+            errors={errors}
           />
           <BandFields field="pacingRangeHz" label="Pacing band" hint={`Left blank: ${kind === 'walker' ? '1.6–2.4' : '2.0–3.5'} Hz (from memory).`} register={register} errors={errors} />
         </>
@@ -311,61 +312,61 @@ function KindFields({ kind, spec, densityBy, register, errors, id }: KindFieldsP
     case 'moving-walker':
       return (
         <>
-          <TextField id={id('load-case-span')} label="Span [m]" inputMode="decimal" error={errorAt(errors, 'spec.spanM')} {...register('spec.spanM', number)} />
+          <NumberField id={id('load-case-span')} label="Span [m]" name="spec.spanM" register={register} errors={errors} />
           <SelectField id={id('load-case-gait')} label="Gait" error={errorAt(errors, 'spec.gait')} {...register('spec.gait')}>
             <option value="walking">Walking</option>
             <option value="jogging">Jogging</option>
           </SelectField>
-          <TextField
+          <NumberField
             id={id('load-case-pacing')}
             label="Pacing frequency [Hz]"
             optional
-            inputMode="decimal"
             hint="Left blank: the pace that puts a harmonic on the mode."
-            error={errorAt(errors, 'spec.pacingFrequencyHz')}
-            {...register('spec.pacingFrequencyHz', number)}
+            name="spec.pacingFrequencyHz"
+            register={register}
+            errors={errors}
           />
-          <TextField
+          <NumberField
             id={id('load-case-speed')}
             label="Walking speed [m/s]"
             optional
-            inputMode="decimal"
             hint="Left blank: stride × pace (stride 0.75 m walking, 1.25 m jogging)."
-            error={errorAt(errors, 'spec.walkingSpeedMPerS')}
-            {...register('spec.walkingSpeedMPerS', number)}
+            name="spec.walkingSpeedMPerS"
+            register={register}
+            errors={errors}
           />
-          <TextField id={id('load-case-walker-weight')} label="Body weight G [N]" optional inputMode="decimal" hint="Left blank: 800 N (from memory)." error={errorAt(errors, 'spec.bodyWeightN')} {...register('spec.bodyWeightN', number)} />
+          <NumberField id={id('load-case-walker-weight')} label="Body weight G [N]" optional hint="Left blank: 800 N (from memory)." name="spec.bodyWeightN" register={register} errors={errors} />
         </>
       );
     case 'floor-walking':
       return (
         <>
-          <TextField
+          <NumberField
             id={id('load-case-p0')}
             label="Constant force P0 [N]"
             optional
-            inputMode="decimal"
             hint={`Left blank: ${dg11ConstantForceN.floor} N for floors; DG11 gives ${dg11ConstantForceN.footbridge} N for footbridges.`}
-            error={errorAt(errors, 'spec.constantForceN')}
-            {...register('spec.constantForceN', number)}
+            name="spec.constantForceN"
+            register={register}
+            errors={errors}
           />
-          <TextField
+          <NumberField
             id={id('load-case-weight')}
             label="Effective weight W [N]"
             optional
-            inputMode="decimal"
             hint="Left blank: 2 g × the modal mass, the weight of a bay whose half-sine modal mass is half its mass."
-            error={errorAt(errors, 'spec.effectiveWeightN')}
-            {...register('spec.effectiveWeightN', number)}
+            name="spec.effectiveWeightN"
+            register={register}
+            errors={errors}
           />
-          <TextField id={id('load-case-harmonics')} label="Walking harmonics" optional inputMode="numeric" hint="Left blank: 4 (from memory)." error={errorAt(errors, 'spec.harmonicCount')} {...register('spec.harmonicCount', number)} />
+          <NumberField id={id('load-case-harmonics')} label="Walking harmonics" optional hint="Left blank: 4 (from memory)." name="spec.harmonicCount" register={register} errors={errors} whole />
           <BandFields field="stepFrequencyRangeHz" label="Step frequency band" hint="Left blank: 1.6–2.2 Hz (from memory)." register={register} errors={errors} />
         </>
       );
     case 'harmonic':
       return (
         <>
-          <TextField id={id('load-case-force')} label="Modal force amplitude [N]" inputMode="decimal" error={errorAt(errors, 'spec.modalForceAmplitudeN')} {...register('spec.modalForceAmplitudeN', number)} />
+          <NumberField id={id('load-case-force')} label="Modal force amplitude [N]" name="spec.modalForceAmplitudeN" register={register} errors={errors} />
           <BandFields field="pacingRangeHz" label="Force frequency band" hint="The force is swept over this band." register={register} errors={errors} />
         </>
       );

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import type { LumpedModel, SavedMode } from '../../../../shared/contracts';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
@@ -19,6 +19,12 @@ interface EditModeSectionProps {
 /** The form of the mode's own source, opened on the stored mode; a derived mode's numbers are not typed over. */
 export function EditModeSection({ projectId, structureId, mode, models, pendingSignOff, onSaved, onCancel }: EditModeSectionProps) {
   const reloadModes = useReloadModes(projectId, structureId);
+  // The form opens below the table: bring it into view (a long table may hide it).
+  const sectionRef = useRef<HTMLElement>(null);
+  useEffect(() => {
+    // A block body: newer browsers answer scrollIntoView with a promise, which React would take for a clean-up.
+    sectionRef.current?.scrollIntoView({ block: 'nearest' });
+  }, []);
   // Bumped after a reload, so that the form opens again on the stored mode.
   const [opening, setOpening] = useState(0);
   const target = {
@@ -36,7 +42,7 @@ export function EditModeSection({ projectId, structureId, mode, models, pendingS
   const model = mode.source.kind === 'lumped-model' ? models?.find((entry) => entry.id === (mode.source as { modelId: string }).modelId) : undefined;
 
   return (
-    <section aria-label={`Editing mode ${mode.label}`} className="flex flex-col gap-4 rounded-plate border border-tide-200 bg-paper px-4 py-4">
+    <section ref={sectionRef} aria-label={`Editing mode ${mode.label}`} className="flex flex-col gap-4 rounded-plate border border-tide-200 bg-paper px-4 py-4">
       <h3 className="text-body font-semibold text-ink">Edit “{mode.label}”</h3>
       {mode.source.kind === 'beam' ? (
         <p className="text-small text-ink-soft">

@@ -4,12 +4,12 @@ import { get, useForm, useWatch, type FieldErrors, type Path, type UseFormRegist
 import { createModeSchema, type LumpedModel, type ModeSourceInput, type SavedMode } from '../../../../shared/contracts';
 import { beamSupports, deriveBeamMode, MAX_BEAM_MODE_NUMBER } from '../../../../shared/engine/beam';
 import { changesSomething, saveRefusalOf, type SaveRefusal } from '../../../components/forms/changes';
+import { NumberField } from '../../../components/forms/number-field';
 import { SaveRefusalNotice } from '../../../components/forms/save-refusal-notice';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { applyServerIssues } from '../../../lib/form-errors';
-import { numberOrUndefined } from '../../../lib/form-values';
 import { formatNumber, formatPercent, formatQuantity } from '../../../lib/format';
 import { useCreateMode, useUpdateMode } from '../api/structures';
 import { describeEngineError } from './lumped-model-analysis';
@@ -37,7 +37,6 @@ const modeFormFields = [
   'source',
 ] as const satisfies readonly Path<ModeFormValues>[];
 
-const number = { setValueAs: numberOrUndefined };
 const errorAt = (errors: FieldErrors<ModeFormValues>, path: string): string | undefined =>
   (get(errors, path) as { message?: string } | undefined)?.message;
 
@@ -105,13 +104,13 @@ function CommonModeFields({ register, errors, idPrefix }: { register: UseFormReg
           </option>
         ))}
       </SelectField>
-      <TextField
+      <NumberField
         id={`${idPrefix}-damping`}
         label="Damping ratio ζ [–]"
-        inputMode="decimal"
         hint="A fraction of critical damping: 0.006 is 0.6 %, the composite footbridge value of the ISO 10137 / BS 5400 tables; steel about 0.005 and concrete 0.008 (from memory)."
-        error={errorAt(errors, 'dampingRatio')}
-        {...register('dampingRatio', number)}
+        name="dampingRatio"
+        register={register}
+        errors={errors}
       />
     </>
   );
@@ -173,23 +172,23 @@ export function TypedModeForm(target: ModeFormTarget) {
     <FormFrame target={target} label="Type a mode" formError={formError} refusal={refusal} busy={busy} submitLabel="Add mode" onSubmit={() => void onSubmit()}>
       <div className="grid gap-4 sm:grid-cols-2">
         <CommonModeFields register={register} errors={errors} idPrefix={fieldId('typed-mode')} />
-        <TextField id={fieldId('typed-mode-frequency')} label="Natural frequency [Hz]" inputMode="decimal" error={errorAt(errors, 'frequencyHz')} {...register('frequencyHz', number)} />
-        <TextField
+        <NumberField id={fieldId('typed-mode-frequency')} label="Natural frequency [Hz]" name="frequencyHz" register={register} errors={errors} />
+        <NumberField
           id={fieldId('typed-mode-modal-mass')}
           label="Modal mass [kg]"
-          inputMode="decimal"
           hint="For the mode shape scaled to 1 where the damper will sit."
-          error={errorAt(errors, 'modalMassKg')}
-          {...register('modalMassKg', number)}
+          name="modalMassKg"
+          register={register}
+          errors={errors}
         />
-        <TextField
+        <NumberField
           id={fieldId('typed-mode-shape-mean')}
           label="Mean |φ| over the deck [–]"
           optional
-          inputMode="decimal"
           hint="Used by crowd load cases; 2/π ≈ 0.637 for a half sine."
-          error={errorAt(errors, 'modeShapeMean')}
-          {...register('modeShapeMean', number)}
+          name="modeShapeMean"
+          register={register}
+          errors={errors}
         />
       </div>
     </FormFrame>
@@ -237,30 +236,31 @@ export function BeamModeForm(target: ModeFormTarget) {
             </option>
           ))}
         </SelectField>
-        <TextField id={fieldId('beam-length')} label="Length L [m]" inputMode="decimal" error={errorAt(errors, 'source.lengthM')} {...register('source.lengthM', number)} />
-        <TextField
+        <NumberField id={fieldId('beam-length')} label="Length L [m]" name="source.lengthM" register={register} errors={errors} />
+        <NumberField
           id={fieldId('beam-stiffness')}
           label="Bending stiffness EI [N·m²]"
-          inputMode="decimal"
           hint="E × I of the whole cross-section, e.g. 2.1e9."
-          error={errorAt(errors, 'source.bendingStiffnessNM2')}
-          {...register('source.bendingStiffnessNM2', number)}
+          name="source.bendingStiffnessNM2"
+          register={register}
+          errors={errors}
         />
-        <TextField
+        <NumberField
           id={fieldId('beam-mass')}
           label="Mass per length m [kg/m]"
-          inputMode="decimal"
           hint="Structure and permanent finishes."
-          error={errorAt(errors, 'source.massPerLengthKgPerM')}
-          {...register('source.massPerLengthKgPerM', number)}
+          name="source.massPerLengthKgPerM"
+          register={register}
+          errors={errors}
         />
-        <TextField
+        <NumberField
           id={fieldId('beam-mode-number')}
           label="Mode number"
-          inputMode="numeric"
           hint={`1 for the fundamental, up to ${MAX_BEAM_MODE_NUMBER}.`}
-          error={errorAt(errors, 'source.modeNumber')}
-          {...register('source.modeNumber', number)}
+          name="source.modeNumber"
+          register={register}
+          errors={errors}
+          whole
         />
       </div>
       <section aria-label="Derived from the beam" aria-live="polite" className="rounded-plate border border-tide-200 bg-tide-50 px-4 py-3 text-small text-tide-900">

@@ -67,7 +67,7 @@ export function ModesTable({ projectId, structureId, modes, models, canEdit, loc
               <Td className="text-right tabular-nums">{formatNumber(mode.modalMassKg, 4)}</Td>
               <Td className="text-right tabular-nums">{formatDampingRatio(mode.dampingRatio)}</Td>
               <Td className="text-right tabular-nums">{mode.modeShapeMean === null ? '—' : formatNumber(mode.modeShapeMean, 3)}</Td>
-              <Td className="min-w-[15rem]">
+              <Td className="min-w-[13rem]">
                 <div className="flex flex-col items-start gap-1">
                   <Badge tone={mode.source.kind === 'typed' ? 'neutral' : 'tide'}>{sourceKindLabels[mode.source.kind]}</Badge>
                   <span className="text-caption text-ink-muted">{describeModeSource(mode.source, models)}</span>
@@ -76,9 +76,9 @@ export function ModesTable({ projectId, structureId, modes, models, canEdit, loc
               {canEdit ? (
                 <Td className="text-right">
                   {locks.approved.has(mode.id) ? (
-                    <span className="inline-block max-w-[11rem] text-left text-caption text-ink-muted">Part of the approved design: fixed</span>
+                    <span className="inline-block w-[7rem] text-left text-caption text-ink-muted">Part of the approved design: fixed</span>
                   ) : (
-                    <div className="flex justify-end gap-2">
+                    <div className="flex flex-col items-end gap-1">
                       {confirming === mode.id || editingId === mode.id ? null : (
                         <Button
                           tone="quiet"
@@ -98,7 +98,7 @@ export function ModesTable({ projectId, structureId, modes, models, canEdit, loc
                         onAsk={() => setConfirming(mode.id)}
                         onRemove={() => deleteMode.mutate(mode.id, { onSettled: () => setConfirming(null) })}
                         onKeep={() => setConfirming(null)}
-                        className="flex justify-end gap-2"
+                        className="flex flex-col items-end gap-1"
                       />
                     </div>
                   )}
