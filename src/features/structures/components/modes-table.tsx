@@ -61,20 +61,20 @@ export function ModesTable({ projectId, structureId, modes, models, canEdit, loc
         <tbody>
           {modes.map((mode) => (
             <tr key={mode.id} className={mode.id === editingId ? 'bg-tide-50' : undefined}>
-              <Td className="min-w-[8rem] font-semibold">{mode.label}</Td>
+              <Td className="min-w-[6rem] font-semibold">{mode.label}</Td>
               <Td>{directionLabels[mode.direction]}</Td>
               <Td className="text-right tabular-nums">{formatNumber(mode.frequencyHz, 4)}</Td>
               <Td className="text-right tabular-nums">{formatNumber(mode.modalMassKg, 4)}</Td>
               <Td className="text-right tabular-nums">{formatDampingRatio(mode.dampingRatio)}</Td>
               <Td className="text-right tabular-nums">{mode.modeShapeMean === null ? '—' : formatNumber(mode.modeShapeMean, 3)}</Td>
-              <Td className="min-w-[13rem]">
+              <Td className="min-w-[9rem]">
                 <div className="flex flex-col items-start gap-1">
                   <Badge tone={mode.source.kind === 'typed' ? 'neutral' : 'tide'}>{sourceKindLabels[mode.source.kind]}</Badge>
                   <span className="text-caption text-ink-muted">{describeModeSource(mode.source, models)}</span>
                 </div>
               </Td>
               {canEdit ? (
-                <Td className="text-right">
+                <Td className="px-1! text-right">
                   {locks.approved.has(mode.id) ? (
                     <span className="inline-block w-[7rem] text-left text-caption text-ink-muted">Part of the approved design: fixed</span>
                   ) : (
