@@ -246,7 +246,7 @@ describe('changing the structural model in the browser', () => {
 
     await page.getByRole('navigation', { name: 'Project sections' }).getByRole('link', { name: 'Load cases' }).click();
     const loadCases = page.getByRole('list', { name: 'Load cases' });
-    await loadCases.getByText('Part of the approved design: it cannot be changed or removed.').waitFor();
+    await loadCases.getByText(/The design the owner approved rests on this load case, so it cannot be changed or removed/).waitFor();
     await expect(loadCases.getByRole('button', { name: /^Edit load case/ }).count()).resolves.toBe(0);
     await browser.shot('editing-07b-approved-load-case');
 

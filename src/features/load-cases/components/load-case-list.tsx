@@ -44,9 +44,7 @@ export function LoadCaseList({ projectId, loadCases, canEdit, locks = noLocks }:
               badge={<Badge tone="tide">{loadCaseKindShort[loadCase.spec.kind]}</Badge>}
               summary={summariseLoadCase(loadCase.spec)}
               actions={
-                !canEdit || editing ? null : fixed ? (
-                  <span className="max-w-[14rem] text-caption text-ink-muted">Part of the approved design: it cannot be changed or removed.</span>
-                ) : (
+                !canEdit || editing || fixed ? null : (
                   <div className="flex gap-2">
                     {confirming === loadCase.id ? null : (
                       <Button
@@ -73,6 +71,12 @@ export function LoadCaseList({ projectId, loadCases, canEdit, locks = noLocks }:
               }
             >
               {savedId === loadCase.id ? <Notice tone="success" title="Load case saved" /> : null}
+              {canEdit && fixed ? (
+                <p className="text-small text-ink-soft">
+                  The design the owner approved rests on this load case, so it cannot be changed or removed. For another load,
+                  add a new load case.
+                </p>
+              ) : null}
               {editing ? (
                 <EditLoadCase
                   projectId={projectId}
