@@ -5,11 +5,11 @@
  * case and comfort criteria; criteria submitted for sign-off say a change needs a new sign-off, and what an approved
  * design rests on offers no edit. The demo fabricator sees no edit action. Names and numbers are invented.
  */
-import type { Page } from 'playwright-core';
+import { request as playwrightRequest, type Page } from 'playwright-core';
 import { describe, expect, inject, it } from 'vitest';
 import { projectSchema, savedModeSchema, type SavedMode } from '../../shared/contracts';
 import { signOffSchema } from '../../shared/contracts/sign-offs';
-import { browserForFile, signIn, signOut } from './browser';
+import { browserForFile, demoPassword, signIn, signOut } from './browser';
 
 const baseUrl = inject('baseUrl');
 const stamp = Date.now().toString(36);
@@ -214,28 +214,44 @@ describe('changing the structural model in the browser', () => {
     })) as { id: string };
     const signOff = signOffSchema.parse(await post(page, `/api/projects/${ids.projectId}/sign-offs`, { variantId: variant.id }));
 
-    await page.reload();
+    // The mode of the submitted design says what a change would mean when it is opened.
+    await openStructure(page);
+    const modes = page.getByRole('table', { name: 'Design modes of the structure' });
+    await modes.getByRole('button', { name: 'Edit mode Second vertical (invented FE result)' }).click();
+    await page.getByRole('region', { name: 'Editing mode Second vertical (invented FE result)' }).getByText("Waiting for the owner's sign-off").waitFor();
+
+    await page.getByRole('navigation', { name: 'Project sections' }).getByRole('link', { name: 'Comfort criteria' }).click();
     const list = page.getByRole('list', { name: 'Comfort criteria' });
     await list.getByText('Submitted to the owner').waitFor();
     await list.getByRole('button', { name: 'Edit comfort criteria Code limit (invented)' }).click();
     await list.getByRole('status').filter({ hasText: 'A change will need a new sign-off' }).waitFor();
     await browser.shot('editing-06-submitted-criteria');
-    await list.getByRole('button', { name: 'Cancel' }).click();
+    const form = list.getByRole('form', { name: 'Edit comfort criteria Code limit (invented)' });
+    await form.getByLabel('Situation').selectOption('normal-use');
 
-    // The mode of the submitted design says the same when it is opened.
-    await openStructure(page);
-    const modes = page.getByRole('table', { name: 'Design modes of the structure' });
-    await modes.getByRole('button', { name: 'Edit mode Second vertical (invented FE result)' }).click();
-    await page.getByRole('region', { name: 'Editing mode Second vertical (invented FE result)' }).getByText("Waiting for the owner's sign-off").waitFor();
-    await signOut(page);
+    // Meanwhile the owner approves the design (in a session of her own), which freezes the criteria.
+    const owner = await playwrightRequest.newContext({ baseURL: baseUrl });
+    try {
+      const { csrfToken } = (await (await owner.get('/api/auth/csrf')).json()) as { csrfToken: string };
+      const signedIn = await owner.post('/api/auth/callback/credentials', { form: { csrfToken, email: 'owner@demo.stillspan.test', password: demoPassword }, maxRedirects: 0 });
+      expect(signedIn.status()).toBe(302);
+      const approved = await owner.post(`/api/projects/${ids.projectId}/sign-offs/${signOff.id}/approve`, { data: {} });
+      expect(approved.status(), await approved.text()).toBe(200);
+    } finally {
+      await owner.dispose();
+    }
 
-    // The owner approves it.
-    await signIn(page, baseUrl, 'owner@demo.stillspan.test');
-    const approved = await page.request.post(`${baseUrl}/api/projects/${ids.projectId}/sign-offs/${signOff.id}/approve`, { data: {} });
-    expect(approved.status(), await approved.text()).toBe(200);
-    await signOut(page);
+    // The save is refused in the server's words, which say what to do instead.
+    await form.getByRole('button', { name: 'Save comfort criteria' }).click();
+    await form.getByRole('alert').filter({ hasText: 'Not saved: an approved design rests on this' }).waitFor();
+    await form.getByText(/belongs to a design the owner approved and cannot be changed or deleted; copy the variant and submit again/).waitFor();
+    browser.consumeExpectedResponseError(409, `/comfort-criteria/${ids.criteriaId}`);
+    await browser.shot('editing-06b-criteria-frozen-meanwhile');
+    // Closed, the form leaves the criteria as they now are: approved, with no edit offered.
+    await form.getByRole('button', { name: 'Cancel' }).click();
+    await list.getByText(/The design the owner approved rests on these criteria, so they cannot be changed/).waitFor();
+    await expect(list.getByRole('button', { name: /^Edit comfort criteria/ }).count()).resolves.toBe(0);
 
-    await signIn(page, baseUrl, 'engineer@demo.stillspan.test');
     await openStructure(page);
     const frozenRow = modes.getByRole('row').filter({ hasText: 'Second vertical (invented FE result)' });
     await frozenRow.getByText('Part of the approved design: fixed').waitFor();

@@ -6,7 +6,7 @@ import {
   type CreateComfortCriteriaInput,
   type UpdateComfortCriteriaInput,
 } from '../../../../shared/contracts';
-import { apiRequest } from '../../../lib/api-client';
+import { apiRequest, isApiError } from '../../../lib/api-client';
 
 /** Under the project's key, so invalidating the project refreshes its comfort criteria too. */
 export const comfortCriteriaKeys = {
@@ -46,6 +46,9 @@ export function useUpdateComfortCriteria(projectId: string) {
       void queryClient.invalidateQueries({ queryKey: ['projects', projectId, 'variants'] });
       return queryClient.invalidateQueries({ queryKey: comfortCriteriaKeys.all(projectId) });
     },
+    // Approved meanwhile: fetch the criteria's new status, so that once the form is closed they show as approved.
+    onError: (error) =>
+      isApiError(error) && error.code === 'approved_design_frozen' ? queryClient.invalidateQueries({ queryKey: comfortCriteriaKeys.all(projectId) }) : undefined,
   });
 }
 

@@ -37,7 +37,8 @@ export function CriteriaList({ projectId, criteria, canEdit }: { projectId: stri
       <ul aria-label="Comfort criteria" className="flex flex-col gap-4">
         {criteria.map((entry) => {
           const fixed = entry.status === 'approved';
-          const editing = canEdit && !fixed && editingId === entry.id;
+          // A form already open stays open when the criteria are approved meanwhile, to show the refusal of its save.
+          const editing = canEdit && editingId === entry.id;
           return (
             <RecordCard
               key={entry.id}
@@ -74,7 +75,7 @@ export function CriteriaList({ projectId, criteria, canEdit }: { projectId: stri
               }
             >
               {savedId === entry.id ? <Notice tone="success" title="Comfort criteria saved" /> : null}
-              {canEdit && fixed ? (
+              {canEdit && fixed && !editing ? (
                 <p className="text-small text-ink-soft">
                   The design the owner approved rests on these criteria, so they cannot be changed. For other limits, add new
                   criteria and submit a design with them for sign-off.

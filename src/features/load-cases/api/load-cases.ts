@@ -6,7 +6,7 @@ import {
   type LoadCaseList,
   type UpdateLoadCaseInput,
 } from '../../../../shared/contracts';
-import { apiRequest } from '../../../lib/api-client';
+import { apiRequest, isApiError } from '../../../lib/api-client';
 
 /** Under the project's key, so invalidating the project refreshes its load cases too. */
 export const loadCaseKeys = {
@@ -46,6 +46,9 @@ export function useUpdateLoadCase(projectId: string) {
       void queryClient.invalidateQueries({ queryKey: ['projects', projectId, 'variants'] });
       return queryClient.invalidateQueries({ queryKey: loadCaseKeys.all(projectId) });
     },
+    // Approved meanwhile: learn it from the sign-offs, so that once the form is closed the load case shows as fixed.
+    onError: (error) =>
+      isApiError(error) && error.code === 'approved_design_frozen' ? queryClient.invalidateQueries({ queryKey: ['projects', projectId, 'sign-offs'] }) : undefined,
   });
 }
 

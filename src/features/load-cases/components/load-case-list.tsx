@@ -36,7 +36,8 @@ export function LoadCaseList({ projectId, loadCases, canEdit, locks = noLocks }:
       <ul aria-label="Load cases" className="flex flex-col gap-4">
         {loadCases.map((loadCase) => {
           const fixed = locks.approved.has(loadCase.id);
-          const editing = canEdit && !fixed && editingId === loadCase.id;
+          // A form already open stays open when an approved design comes to rest on it meanwhile, to show the refusal.
+          const editing = canEdit && editingId === loadCase.id;
           return (
             <RecordCard
               key={loadCase.id}
@@ -71,7 +72,7 @@ export function LoadCaseList({ projectId, loadCases, canEdit, locks = noLocks }:
               }
             >
               {savedId === loadCase.id ? <Notice tone="success" title="Load case saved" /> : null}
-              {canEdit && fixed ? (
+              {canEdit && fixed && !editing ? (
                 <p className="text-small text-ink-soft">
                   The design the owner approved rests on this load case, so it cannot be changed or removed. For another load,
                   add a new load case.

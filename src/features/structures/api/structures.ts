@@ -103,6 +103,9 @@ export function useCreateMode(projectId: string, structureId: string) {
 
 /** The tuning variants' key (their results are recomputed when a mode they use changes). */
 const variantsKey = (projectId: string) => ['projects', projectId, 'variants'] as const;
+/** The sign-offs' key: they tell which modes an approved design rests on. */
+const signOffsKey = (projectId: string) => ['projects', projectId, 'sign-offs'] as const;
+const isFrozenRefusal = (error: unknown) => isApiError(error) && error.code === 'approved_design_frozen';
 
 /**
  * A saved change puts the stored mode in the cached list at once, then refreshes the list and the project's tuning
@@ -120,6 +123,8 @@ export function useUpdateMode(projectId: string, structureId: string) {
       void queryClient.invalidateQueries({ queryKey: variantsKey(projectId) });
       return queryClient.invalidateQueries({ queryKey: structureKeys.modes(projectId, structureId) });
     },
+    // Approved meanwhile: learn it, so that once the form is closed the mode shows as fixed.
+    onError: (error) => (isFrozenRefusal(error) ? queryClient.invalidateQueries({ queryKey: signOffsKey(projectId) }) : undefined),
   });
 }
 

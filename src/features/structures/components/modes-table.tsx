@@ -108,7 +108,8 @@ export function ModesTable({ projectId, structureId, modes, models, canEdit, loc
           ))}
         </tbody>
       </Table>
-      {canEdit && editing && !locks.approved.has(editing.id) ? (
+      {/* A form already open stays open when an approved design comes to rest on its mode meanwhile, to show the refusal. */}
+      {canEdit && editing ? (
         <EditModeSection
           key={editing.id}
           projectId={projectId}
