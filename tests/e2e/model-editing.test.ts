@@ -246,6 +246,7 @@ describe('changing the structural model in the browser', () => {
     await form.getByRole('alert').filter({ hasText: 'Not saved: an approved design rests on this' }).waitFor();
     await form.getByText(/belongs to a design the owner approved and cannot be changed or deleted; copy the variant and submit again/).waitFor();
     browser.consumeExpectedResponseError(409, `/comfort-criteria/${ids.criteriaId}`);
+    await expect(form.getByRole('button', { name: 'Save comfort criteria' }).isDisabled()).resolves.toBe(true);
     await browser.shot('editing-06b-criteria-frozen-meanwhile');
     // Closed, the form leaves the criteria as they now are: approved, with no edit offered.
     await form.getByRole('button', { name: 'Cancel' }).click();

@@ -166,7 +166,7 @@ export function CriteriaForm({ projectId, criteria, onDone, onCancel, onReload }
         </section>
       ) : null}
       <div className="flex flex-wrap gap-3">
-        <Button type="submit" busy={createCriteria.isPending || updateCriteria.isPending}>
+        <Button type="submit" busy={createCriteria.isPending || updateCriteria.isPending} disabled={refusal?.kind === 'frozen'}>
           {opened ? 'Save comfort criteria' : 'Add comfort criteria'}
         </Button>
         {onCancel ? (

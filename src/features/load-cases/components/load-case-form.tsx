@@ -182,7 +182,7 @@ export function LoadCaseForm({ projectId, loadCase, onDone, onCancel, onReload }
       </div>
       <LoadCaseInfoBox info={info} title="This load case follows" />
       <div className="flex flex-wrap gap-3">
-        <Button type="submit" busy={createLoadCase.isPending || updateLoadCase.isPending}>
+        <Button type="submit" busy={createLoadCase.isPending || updateLoadCase.isPending} disabled={refusal?.kind === 'frozen'}>
           {opened ? 'Save load case' : 'Add load case'}
         </Button>
         {onCancel ? (

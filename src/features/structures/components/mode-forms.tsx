@@ -16,6 +16,7 @@ import { describeEngineError } from './lumped-model-analysis';
 import { modalMassAtDofKg } from './lumped-model-math';
 import { beamSupportLabels, directionLabels } from './labels';
 import { modeChanges, modeToForm, type ModeFormValues } from './mode-changes';
+
 type BeamSourceInput = Extract<ModeSourceInput, { kind: 'beam' }>;
 type ModelSourceInput = Extract<ModeSourceInput, { kind: 'lumped-model' }>;
 
@@ -148,7 +149,7 @@ function FormFrame({ target, label, formError, refusal, busy, submitLabel, onSub
       ) : null}
       {children}
       <div className="flex flex-wrap gap-3">
-        <Button type="submit" busy={busy}>
+        <Button type="submit" busy={busy} disabled={refusal?.kind === 'frozen'}>
           {editing ? 'Save mode' : submitLabel}
         </Button>
         {target.onCancel ? (
