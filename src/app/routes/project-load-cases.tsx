@@ -3,15 +3,20 @@ import type { LoaderFunctionArgs } from 'react-router-dom';
 import { designLocks } from '../../components/forms/design-locks';
 import { CollectionPage } from '../../components/layouts/collection-page';
 import { loadCasesQueryOptions } from '../../features/load-cases/api/load-cases';
-import { signOffsQueryOptions } from '../../features/sign-offs/api/sign-offs';
 import { LoadCaseForm } from '../../features/load-cases/components/load-case-form';
 import { LoadCaseList } from '../../features/load-cases/components/load-case-list';
+import { signOffsQueryOptions } from '../../features/sign-offs/api/sign-offs';
 import { queryClient } from '../../lib/query-client';
 import { useProjectContext } from './project-layout';
 
-/** Prefetches the project's load cases; a failure is shown by the page itself. */
+/** Prefetches the project's load cases and sign-offs; a failure is shown by the page itself. */
 export async function projectLoadCasesLoader({ params }: LoaderFunctionArgs) {
-  await queryClient.ensureQueryData(loadCasesQueryOptions(params.projectId ?? '')).catch(() => undefined);
+  const projectId = params.projectId ?? '';
+  // The sign-offs tell which load cases an approved design holds fast, so that no Edit shows for them even briefly.
+  await Promise.all([
+    queryClient.ensureQueryData(loadCasesQueryOptions(projectId)).catch(() => undefined),
+    queryClient.ensureQueryData(signOffsQueryOptions(projectId)).catch(() => undefined),
+  ]);
   return null;
 }
 

@@ -16,7 +16,7 @@ import { isApiError } from '../../lib/api-client';
 import { queryClient } from '../../lib/query-client';
 import { useProjectContext } from './project-layout';
 
-/** Prefetches the structure, its modes and its models; failures are shown by the page itself. */
+/** Prefetches the structure, its modes and its models, and the project's sign-offs; failures are shown by the page itself. */
 export async function projectStructureLoader({ params }: LoaderFunctionArgs) {
   const projectId = params.projectId ?? '';
   const structureId = params.structureId ?? '';
@@ -25,6 +25,8 @@ export async function projectStructureLoader({ params }: LoaderFunctionArgs) {
     queryClient.ensureQueryData(structureQueryOptions(projectId, structureId)).catch(ignore),
     queryClient.ensureQueryData(modesQueryOptions(projectId, structureId)).catch(ignore),
     queryClient.ensureQueryData(lumpedModelsQueryOptions(projectId, structureId)).catch(ignore),
+    // Which modes an approved design holds fast, so that no Edit shows for them even briefly.
+    queryClient.ensureQueryData(signOffsQueryOptions(projectId)).catch(ignore),
   ]);
   return null;
 }
