@@ -2,7 +2,7 @@ import { useQuery } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import { CollectionPage } from '../../components/layouts/collection-page';
 import { comfortCriteriaQueryOptions } from '../../features/comfort-criteria/api/comfort-criteria';
-import { CreateCriteriaForm } from '../../features/comfort-criteria/components/criteria-form';
+import { CriteriaForm } from '../../features/comfort-criteria/components/criteria-form';
 import { CriteriaList } from '../../features/comfort-criteria/components/criteria-list';
 import { queryClient } from '../../lib/query-client';
 import { useProjectContext } from './project-layout';
@@ -29,7 +29,7 @@ export function ProjectComfortCriteriaRoute() {
       addedTitle="Comfort criteria added"
       caution="Values marked “from memory” could not be checked against their published source: confirm them before a verdict rests on them."
       renderList={(items) => <CriteriaList projectId={project.id} criteria={items} canEdit={canEdit} />}
-      renderCreateForm={(onCreated) => <CreateCriteriaForm projectId={project.id} onCreated={onCreated} />}
+      renderCreateForm={(onCreated) => <CriteriaForm projectId={project.id} onDone={onCreated} />}
     />
   );
 }

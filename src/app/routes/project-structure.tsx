@@ -1,10 +1,12 @@
 import { useQuery } from '@tanstack/react-query';
 import { Link, useNavigate, useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { designLocks } from '../../components/forms/design-locks';
 import { Caution } from '../../components/ui/caution';
 import { Loading } from '../../components/ui/loading';
 import { PageTitle } from '../../components/ui/page-title';
 import { Panel } from '../../components/ui/panel';
 import { QueryError } from '../../components/ui/query-error';
+import { signOffsQueryOptions } from '../../features/sign-offs/api/sign-offs';
 import { lumpedModelsQueryOptions, modesQueryOptions, structureQueryOptions } from '../../features/structures/api/structures';
 import { AddModePanel } from '../../features/structures/components/add-mode-panel';
 import { ModesTable } from '../../features/structures/components/modes-table';
@@ -14,7 +16,7 @@ import { isApiError } from '../../lib/api-client';
 import { queryClient } from '../../lib/query-client';
 import { useProjectContext } from './project-layout';
 
-/** Prefetches the structure, its modes and its models; failures are shown by the page itself. */
+/** Prefetches the structure, its modes and its models, and the project's sign-offs; failures are shown by the page itself. */
 export async function projectStructureLoader({ params }: LoaderFunctionArgs) {
   const projectId = params.projectId ?? '';
   const structureId = params.structureId ?? '';
@@ -23,6 +25,8 @@ export async function projectStructureLoader({ params }: LoaderFunctionArgs) {
     queryClient.ensureQueryData(structureQueryOptions(projectId, structureId)).catch(ignore),
     queryClient.ensureQueryData(modesQueryOptions(projectId, structureId)).catch(ignore),
     queryClient.ensureQueryData(lumpedModelsQueryOptions(projectId, structureId)).catch(ignore),
+    // Which modes an approved design holds fast, so that no Edit shows for them even briefly.
+    queryClient.ensureQueryData(signOffsQueryOptions(projectId)).catch(ignore),
   ]);
   return null;
 }
@@ -35,6 +39,10 @@ export function ProjectStructureRoute() {
   const structure = useQuery(structureQueryOptions(project.id, structureId));
   const modes = useQuery(modesQueryOptions(project.id, structureId));
   const models = useQuery(lumpedModelsQueryOptions(project.id, structureId));
+  // Which modes an approved design rests on (fixed) or a submitted one (a change needs a new submission); while the
+  // sign-offs are unknown every mode is offered and the server's answer is shown.
+  const signOffs = useQuery({ ...signOffsQueryOptions(project.id), enabled: canEdit });
+  const locks = designLocks(signOffs.data);
   const back = (
     <Link to={`/projects/${project.id}/structures`} className="text-small font-medium text-tide-800 underline-offset-4 hover:underline">
       ← All structures
@@ -69,7 +77,7 @@ export function ProjectStructureRoute() {
         ) : modes.isError ? (
           <QueryError error={modes.error} retry={() => void modes.refetch()} what="the modes" />
         ) : (
-          <ModesTable projectId={project.id} structureId={structureId} modes={modes.data} models={models.data} canEdit={canEdit} />
+          <ModesTable projectId={project.id} structureId={structureId} modes={modes.data} models={models.data} canEdit={canEdit} locks={locks.modes} />
         )}
       </Panel>
       {canEdit ? <AddModePanel projectId={project.id} structureId={structureId} /> : null}

@@ -1,13 +1,16 @@
 import { useState } from 'react';
 import { get, useForm, useWatch, type FieldErrors, type Path } from 'react-hook-form';
-import { createComfortCriteriaSchema, type CreateComfortCriteriaInput } from '../../../../shared/contracts';
+import { createComfortCriteriaSchema, type ComfortCriteria, type CreateComfortCriteriaInput } from '../../../../shared/contracts';
+import { changesSomething, saveRefusalOf, type SaveRefusal } from '../../../components/forms/changes';
+import { NumberField } from '../../../components/forms/number-field';
+import { SaveRefusalNotice } from '../../../components/forms/save-refusal-notice';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { applyServerIssues } from '../../../lib/form-errors';
 import { bodyResolver, dropBlank } from '../../../lib/form-resolver';
-import { numberOrUndefined } from '../../../lib/form-values';
-import { useCreateComfortCriteria } from '../api/comfort-criteria';
+import { useCreateComfortCriteria, useUpdateComfortCriteria } from '../api/comfort-criteria';
+import { criteriaChanges, criteriaToForm } from './criteria-changes';
 import { criteriaClasses, criteriaSetLabels, describeCriteria, type CriteriaSet, type CriteriaSpec } from './criteria-info';
 import { LimitLines } from './limit-lines';
 
@@ -34,12 +37,28 @@ const errorAt = (errors: FieldErrors<CriteriaFormValues>, path: string): string 
   (get(errors, path) as { message?: string } | undefined)?.message;
 const resolver = bodyResolver<CriteriaFormValues, typeof createComfortCriteriaSchema>(createComfortCriteriaSchema, criteriaBody);
 
-export function CreateCriteriaForm({ projectId, onCreated }: { projectId: string; onCreated: () => void }) {
+interface CriteriaFormProps {
+  projectId: string;
+  /** The stored criteria to change, the form opened on them; undefined to add new ones. */
+  criteria?: ComfortCriteria;
+  /** After the criteria were added or saved. */
+  onDone: () => void;
+  onCancel?: () => void;
+  /** Fetches the stored criteria again (after a refused stale save) and opens the form on them. */
+  onReload?: () => Promise<unknown>;
+}
+
+/** Adds comfort criteria, or changes the stored ones it is opened on (only what differs is sent, with the version read). */
+export function CriteriaForm({ projectId, criteria, onDone, onCancel, onReload }: CriteriaFormProps) {
   const createCriteria = useCreateComfortCriteria(projectId);
+  const updateCriteria = useUpdateComfortCriteria(projectId);
   const [formError, setFormError] = useState<string | null>(null);
+  const [refusal, setRefusal] = useState<SaveRefusal | null>(null);
+  // The criteria as the form was opened on them: their version is the one a save names, and changes are counted from it.
+  const [opened] = useState(criteria);
   const { register, handleSubmit, setError, reset, getValues, control, formState } = useForm<CriteriaFormValues, unknown, unknown>({
     resolver: resolver as never,
-    defaultValues: emptyForm,
+    defaultValues: opened ? criteriaToForm(opened) : emptyForm,
   });
   const errors = formState.errors;
   const values = useWatch({ control }) as CriteriaFormValues;
@@ -54,29 +73,48 @@ export function CreateCriteriaForm({ projectId, onCreated }: { projectId: string
       return null;
     }
   })();
+  // A page may hold a form to add criteria and one to change them at once: their field ids differ.
+  const id = (name: string) => (opened ? `edit-${name}` : name);
 
-  const onSubmit = handleSubmit((body) => {
+  const onSubmit = handleSubmit((parsedBody) => {
     setFormError(null);
-    createCriteria.mutate(body as CreateComfortCriteriaInput, {
+    setRefusal(null);
+    const body = parsedBody as CreateComfortCriteriaInput;
+    const onError = (error: unknown) => {
+      const refused = saveRefusalOf(error);
+      setRefusal(refused);
+      if (!refused) setFormError(applyServerIssues(error, serverFields, setError));
+    };
+    if (opened) {
+      const changes = criteriaChanges(opened, body);
+      if (!changesSomething(changes)) {
+        setFormError('Nothing differs from the stored criteria: change a value, or cancel.');
+        return;
+      }
+      updateCriteria.mutate({ criteriaId: opened.id, input: changes }, { onSuccess: onDone, onError });
+      return;
+    }
+    createCriteria.mutate(body, {
       onSuccess: () => {
         reset(emptyForm);
-        onCreated();
+        onDone();
       },
-      onError: (error) => setFormError(applyServerIssues(error, serverFields, setError)),
+      onError,
     });
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate aria-label="New comfort criteria" className="flex flex-col gap-5">
+    <form onSubmit={onSubmit} noValidate aria-label={opened ? `Edit comfort criteria ${opened.name}` : 'New comfort criteria'} className="flex flex-col gap-5">
+      <SaveRefusalNotice refusal={refusal} what="criteria" onReload={onReload ?? (async () => undefined)} />
       {formError ? (
-        <Notice tone="error" title="The comfort criteria were not added">
+        <Notice tone="error" title={opened ? 'The comfort criteria were not saved' : 'The comfort criteria were not added'}>
           {formError}
         </Notice>
       ) : null}
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField id="criteria-name" label="Name" autoComplete="off" error={errorAt(errors, 'name')} {...register('name')} />
+        <TextField id={id('criteria-name')} label="Name" autoComplete="off" error={errorAt(errors, 'name')} {...register('name')} />
         <SelectField
-          id="criteria-set"
+          id={id('criteria-set')}
           label="Criteria"
           value={set}
           error={errorAt(errors, 'spec.set')}
@@ -92,16 +130,16 @@ export function CreateCriteriaForm({ projectId, onCreated }: { projectId: string
           ))}
         </SelectField>
         {set === 'custom' ? (
-          <TextField
-            id="criteria-limit"
+          <NumberField
+            id={id('criteria-limit')}
             label="Peak acceleration limit [m/s²]"
-            inputMode="decimal"
             hint="One limit for the peak acceleration of every mode, as the project's specification sets it."
-            error={errorAt(errors, 'spec.peakAccelerationLimitMPerS2')}
-            {...register('spec.peakAccelerationLimitMPerS2', { setValueAs: numberOrUndefined })}
+            name="spec.peakAccelerationLimitMPerS2"
+            register={register}
+            errors={errors}
           />
         ) : (
-          <SelectField id="criteria-class" label={set === 'en1990' ? 'Situation' : set === 'dg11' || set === 'iso10137' ? 'Use of the space' : 'Comfort class'} error={errorAt(errors, 'spec.class')} {...register('spec.class')}>
+          <SelectField id={id('criteria-class')} label={set === 'en1990' ? 'Situation' : set === 'dg11' || set === 'iso10137' ? 'Use of the space' : 'Comfort class'} error={errorAt(errors, 'spec.class')} {...register('spec.class')}>
             {criteriaClasses[set].map((entry) => (
               <option key={entry.value} value={entry.value}>
                 {entry.label}
@@ -110,14 +148,14 @@ export function CreateCriteriaForm({ projectId, onCreated }: { projectId: string
           </SelectField>
         )}
         {set === 'iso10137' ? (
-          <TextField
-            id="criteria-response-factor"
+          <NumberField
+            id={id('criteria-response-factor')}
             label="Response factor R [–]"
             optional
-            inputMode="decimal"
             hint="Left blank: the class's own factor."
-            error={errorAt(errors, 'spec.responseFactor')}
-            {...register('spec.responseFactor', { setValueAs: numberOrUndefined })}
+            name="spec.responseFactor"
+            register={register}
+            errors={errors}
           />
         ) : null}
       </div>
@@ -127,10 +165,15 @@ export function CreateCriteriaForm({ projectId, onCreated }: { projectId: string
           <LimitLines lines={preview} />
         </section>
       ) : null}
-      <div>
-        <Button type="submit" busy={createCriteria.isPending}>
-          Add comfort criteria
+      <div className="flex flex-wrap gap-3">
+        <Button type="submit" busy={createCriteria.isPending || updateCriteria.isPending} disabled={refusal?.kind === 'frozen'}>
+          {opened ? 'Save comfort criteria' : 'Add comfort criteria'}
         </Button>
+        {onCancel ? (
+          <Button tone="quiet" onClick={onCancel}>
+            Cancel
+          </Button>
+        ) : null}
       </div>
     </form>
   );

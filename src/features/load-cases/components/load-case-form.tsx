@@ -1,15 +1,19 @@
 import { useState } from 'react';
 import { get, useForm, useWatch, type FieldErrors, type Path, type UseFormRegister } from 'react-hook-form';
-import { createLoadCaseSchema, type CreateLoadCaseInput } from '../../../../shared/contracts';
+import { createLoadCaseSchema, type CreateLoadCaseInput, type SavedLoadCase } from '../../../../shared/contracts';
 import { dg11ConstantForceN } from '../../../../shared/engine/loads/floor-walking';
 import { trafficClasses, type CrowdGuide } from '../../../../shared/engine/loads/pedestrian-crowd';
+import { changesSomething, saveRefusalOf, type SaveRefusal } from '../../../components/forms/changes';
+import { NumberField } from '../../../components/forms/number-field';
+import { SaveRefusalNotice } from '../../../components/forms/save-refusal-notice';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { applyServerIssues } from '../../../lib/form-errors';
 import { bodyResolver, dropBlank } from '../../../lib/form-resolver';
 import { numberOrUndefined } from '../../../lib/form-values';
-import { useCreateLoadCase } from '../api/load-cases';
+import { useCreateLoadCase, useUpdateLoadCase } from '../api/load-cases';
+import { loadCaseChanges, loadCaseToForm } from './load-case-changes';
 import { describeLoadCase, guideLabels, loadCaseKindLabels, loadCaseKinds, type LoadCaseKind, type LoadCaseSpec } from './load-case-info';
 import { LoadCaseInfoBox } from './load-case-info-box';
 
@@ -91,40 +95,75 @@ const serverFields = [
 
 const resolver = bodyResolver<LoadCaseFormValues, typeof createLoadCaseSchema>(createLoadCaseSchema, loadCaseBody);
 
-export function CreateLoadCaseForm({ projectId, onCreated }: { projectId: string; onCreated: () => void }) {
+interface LoadCaseFormProps {
+  projectId: string;
+  /** The stored load case to change, the form opened on it; undefined to add a new one. */
+  loadCase?: SavedLoadCase;
+  /** After the load case was added or saved. */
+  onDone: () => void;
+  onCancel?: () => void;
+  /** Fetches the stored load case again (after a refused stale save) and opens the form on it. */
+  onReload?: () => Promise<unknown>;
+}
+
+/** Adds a load case, or changes the stored one it is opened on (only what differs is sent, with the version read). */
+export function LoadCaseForm({ projectId, loadCase, onDone, onCancel, onReload }: LoadCaseFormProps) {
   const createLoadCase = useCreateLoadCase(projectId);
+  const updateLoadCase = useUpdateLoadCase(projectId);
   const [formError, setFormError] = useState<string | null>(null);
+  const [refusal, setRefusal] = useState<SaveRefusal | null>(null);
+  // The load case as the form was opened on it: its version is the one a save names, and changes are counted from it.
+  const [opened] = useState(loadCase);
   const { register, handleSubmit, setError, reset, getValues, control, formState } = useForm<LoadCaseFormValues, unknown, unknown>({
     resolver: resolver as never,
-    defaultValues: emptyForm,
+    defaultValues: opened ? loadCaseToForm(opened) : emptyForm,
   });
   const errors = formState.errors;
   const values = useWatch({ control }) as LoadCaseFormValues;
   const spec = values.spec;
   const info = describeLoadCase(previewSpec(loadCaseBody(values)));
+  // A page may hold a form to add a load case and one to change one at once: their field ids differ.
+  const id = (name: string) => (opened ? `edit-${name}` : name);
 
-  const onSubmit = handleSubmit((formValues) => {
+  const onSubmit = handleSubmit((parsedBody) => {
     setFormError(null);
-    createLoadCase.mutate(formValues as CreateLoadCaseInput, {
+    setRefusal(null);
+    const body = parsedBody as CreateLoadCaseInput;
+    const onError = (error: unknown) => {
+      const refused = saveRefusalOf(error);
+      setRefusal(refused);
+      if (!refused) setFormError(applyServerIssues(error, serverFields, setError));
+    };
+    if (opened) {
+      const changes = loadCaseChanges(opened, body);
+      if (!changesSomething(changes)) {
+        setFormError('Nothing differs from the stored load case: change a value, or cancel.');
+        return;
+      }
+      updateLoadCase.mutate({ loadCaseId: opened.id, input: changes }, { onSuccess: onDone, onError });
+      return;
+    }
+    createLoadCase.mutate(body, {
       onSuccess: () => {
         reset(emptyForm);
-        onCreated();
+        onDone();
       },
-      onError: (error) => setFormError(applyServerIssues(error, serverFields, setError)),
+      onError,
     });
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate aria-label="New load case" className="flex flex-col gap-5">
+    <form onSubmit={onSubmit} noValidate aria-label={opened ? `Edit load case ${opened.name}` : 'New load case'} className="flex flex-col gap-5">
+      <SaveRefusalNotice refusal={refusal} what="load case" onReload={onReload ?? (async () => undefined)} />
       {formError ? (
-        <Notice tone="error" title="The load case was not added">
+        <Notice tone="error" title={opened ? 'The load case was not saved' : 'The load case was not added'}>
           {formError}
         </Notice>
       ) : null}
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField id="load-case-name" label="Load case name" autoComplete="off" error={errorAt(errors, 'name')} {...register('name')} />
+        <TextField id={id('load-case-name')} label="Load case name" autoComplete="off" error={errorAt(errors, 'name')} {...register('name')} />
         <SelectField
-          id="load-case-kind"
+          id={id('load-case-kind')}
           label="Kind"
           value={spec.kind}
           error={errorAt(errors, 'spec.kind')}
@@ -139,13 +178,18 @@ export function CreateLoadCaseForm({ projectId, onCreated }: { projectId: string
             </option>
           ))}
         </SelectField>
-        <KindFields kind={spec.kind} spec={spec} densityBy={values.densityBy} register={register} errors={errors} />
+        <KindFields kind={spec.kind} spec={spec} densityBy={values.densityBy} register={register} errors={errors} id={id} />
       </div>
       <LoadCaseInfoBox info={info} title="This load case follows" />
-      <div>
-        <Button type="submit" busy={createLoadCase.isPending}>
-          Add load case
+      <div className="flex flex-wrap gap-3">
+        <Button type="submit" busy={createLoadCase.isPending || updateLoadCase.isPending} disabled={refusal?.kind === 'frozen'}>
+          {opened ? 'Save load case' : 'Add load case'}
         </Button>
+        {onCancel ? (
+          <Button tone="quiet" onClick={onCancel}>
+            Cancel
+          </Button>
+        ) : null}
       </div>
     </form>
   );
@@ -157,6 +201,8 @@ interface KindFieldsProps {
   densityBy: LoadCaseFormValues['densityBy'];
   register: UseFormRegister<LoadCaseFormValues>;
   errors: FieldErrors<LoadCaseFormValues>;
+  /** The id of a field of this form. */
+  id: (name: string) => string;
 }
 
 function BandFields({ field, label, hint, register, errors }: { field: 'pacingRangeHz' | 'stepFrequencyRangeHz'; label: string; hint: string; register: UseFormRegister<LoadCaseFormValues>; errors: FieldErrors<LoadCaseFormValues> }) {
@@ -176,14 +222,14 @@ function BandFields({ field, label, hint, register, errors }: { field: 'pacingRa
   );
 }
 
-function KindFields({ kind, spec, densityBy, register, errors }: KindFieldsProps) {
+function KindFields({ kind, spec, densityBy, register, errors, id }: KindFieldsProps) {
   switch (kind) {
     case 'crowd':
     case 'lateral': {
       const guide = (spec.guide as CrowdGuide | undefined) ?? 'setra';
       return (
         <>
-          <SelectField id="load-case-guide" label="Guide" error={errorAt(errors, 'spec.guide')} {...register('spec.guide')}>
+          <SelectField id={id('load-case-guide')} label="Guide" error={errorAt(errors, 'spec.guide')} {...register('spec.guide')}>
             <option value="setra">{guideLabels.setra} (Sétra/AFGC footbridge guide)</option>
             <option value="hivoss">{guideLabels.hivoss} (HiVoSS footbridge guideline)</option>
           </SelectField>
@@ -199,7 +245,7 @@ function KindFields({ kind, spec, densityBy, register, errors }: KindFieldsProps
             </div>
           </fieldset>
           {densityBy === 'class' ? (
-            <SelectField id="load-case-traffic-class" label="Traffic class" error={errorAt(errors, 'spec.trafficClass')} {...register('spec.trafficClass')}>
+            <SelectField id={id('load-case-traffic-class')} label="Traffic class" error={errorAt(errors, 'spec.trafficClass')} {...register('spec.trafficClass')}>
               {trafficClasses
                 .filter((entry) => entry.guide === guide)
                 .map((entry) => (
@@ -209,38 +255,38 @@ function KindFields({ kind, spec, densityBy, register, errors }: KindFieldsProps
                 ))}
             </SelectField>
           ) : (
-            <TextField id="load-case-density" label="Density [persons/m²]" inputMode="decimal" error={errorAt(errors, 'spec.densityPerM2')} {...register('spec.densityPerM2', number)} />
+            <NumberField id={id('load-case-density')} label="Density [persons/m²]" name="spec.densityPerM2" register={register} errors={errors} />
           )}
-          <TextField
-            id="load-case-deck-area"
+          <NumberField
+            id={id('load-case-deck-area')}
             label="Deck area [m²]"
-            inputMode="decimal"
             hint="The loaded deck: number of pedestrians n = density × area."
-            error={errorAt(errors, 'spec.deckAreaM2')}
-            {...register('spec.deckAreaM2', number)}
+            name="spec.deckAreaM2"
+            register={register}
+            errors={errors}
           />
-          <TextField
-            id="load-case-shape-mean"
+          <NumberField
+            id={id('load-case-shape-mean')}
             label="Mean |φ| over the deck [–]"
             optional
-            inputMode="decimal"
             hint="For the mode shape scaled to 1 at its largest; left blank: 2/π ≈ 0.637, a half sine."
-            error={errorAt(errors, 'spec.modeShapeMean')}
-            {...register('spec.modeShapeMean', number)}
+            name="spec.modeShapeMean"
+            register={register}
+            errors={errors}
           />
-          <SelectField id="load-case-harmonic" label="Pedestrian force harmonic" error={errorAt(errors, 'spec.harmonic')} {...register('spec.harmonic', { setValueAs: (value) => Number(value) })}>
+          <SelectField id={id('load-case-harmonic')} label="Pedestrian force harmonic" error={errorAt(errors, 'spec.harmonic')} {...register('spec.harmonic', { setValueAs: (value) => Number(value) })}>
             <option value={1}>First harmonic (the pacing frequency)</option>
             <option value={2}>Second harmonic (twice the pacing frequency)</option>
           </SelectField>
           {kind === 'lateral' ? (
-            <TextField
-              id="load-case-lock-in"
+            <NumberField
+              id={id('load-case-lock-in')}
               label="Lock-in coefficient k [N·s/m per person]"
               optional
-              inputMode="decimal"
               hint="Left blank: 300 N·s/m per person on 0.5–1.0 Hz (Dallard et al. 2001)."
-              error={errorAt(errors, 'spec.lockInCoefficientNsPerM')}
-              {...register('spec.lockInCoefficientNsPerM', number)}
+              name="spec.lockInCoefficientNsPerM"
+              register={register}
+              errors={errors}
             />
           ) : null}
         </>
@@ -250,15 +296,15 @@ function KindFields({ kind, spec, densityBy, register, errors }: KindFieldsProps
     case 'jogger':
       return (
         <>
-          <TextField id="load-case-body-weight" label="Body weight G [N]" optional inputMode="decimal" hint="Left blank: 800 N (from memory)." error={errorAt(errors, 'spec.bodyWeightN')} {...register('spec.bodyWeightN', number)} />
-          <TextField
-            id="load-case-shape-value"
+          <NumberField id={id('load-case-body-weight')} label="Body weight G [N]" optional hint="Left blank: 800 N (from memory)." name="spec.bodyWeightN" register={register} errors={errors} />
+          <NumberField
+            id={id('load-case-shape-value')}
             label="|φ| where the person goes [–]"
             optional
-            inputMode="decimal"
             hint="Left blank: 1, the antinode."
-            error={errorAt(errors, 'spec.modeShapeValue')}
-            {...register('spec.modeShapeValue', number)}
+            name="spec.modeShapeValue"
+            register={register}
+            errors={errors}
           />
           <BandFields field="pacingRangeHz" label="Pacing band" hint={`Left blank: ${kind === 'walker' ? '1.6–2.4' : '2.0–3.5'} Hz (from memory).`} register={register} errors={errors} />
         </>
@@ -266,61 +312,61 @@ function KindFields({ kind, spec, densityBy, register, errors }: KindFieldsProps
     case 'moving-walker':
       return (
         <>
-          <TextField id="load-case-span" label="Span [m]" inputMode="decimal" error={errorAt(errors, 'spec.spanM')} {...register('spec.spanM', number)} />
-          <SelectField id="load-case-gait" label="Gait" error={errorAt(errors, 'spec.gait')} {...register('spec.gait')}>
+          <NumberField id={id('load-case-span')} label="Span [m]" name="spec.spanM" register={register} errors={errors} />
+          <SelectField id={id('load-case-gait')} label="Gait" error={errorAt(errors, 'spec.gait')} {...register('spec.gait')}>
             <option value="walking">Walking</option>
             <option value="jogging">Jogging</option>
           </SelectField>
-          <TextField
-            id="load-case-pacing"
+          <NumberField
+            id={id('load-case-pacing')}
             label="Pacing frequency [Hz]"
             optional
-            inputMode="decimal"
             hint="Left blank: the pace that puts a harmonic on the mode."
-            error={errorAt(errors, 'spec.pacingFrequencyHz')}
-            {...register('spec.pacingFrequencyHz', number)}
+            name="spec.pacingFrequencyHz"
+            register={register}
+            errors={errors}
           />
-          <TextField
-            id="load-case-speed"
+          <NumberField
+            id={id('load-case-speed')}
             label="Walking speed [m/s]"
             optional
-            inputMode="decimal"
             hint="Left blank: stride × pace (stride 0.75 m walking, 1.25 m jogging)."
-            error={errorAt(errors, 'spec.walkingSpeedMPerS')}
-            {...register('spec.walkingSpeedMPerS', number)}
+            name="spec.walkingSpeedMPerS"
+            register={register}
+            errors={errors}
           />
-          <TextField id="load-case-walker-weight" label="Body weight G [N]" optional inputMode="decimal" hint="Left blank: 800 N (from memory)." error={errorAt(errors, 'spec.bodyWeightN')} {...register('spec.bodyWeightN', number)} />
+          <NumberField id={id('load-case-walker-weight')} label="Body weight G [N]" optional hint="Left blank: 800 N (from memory)." name="spec.bodyWeightN" register={register} errors={errors} />
         </>
       );
     case 'floor-walking':
       return (
         <>
-          <TextField
-            id="load-case-p0"
+          <NumberField
+            id={id('load-case-p0')}
             label="Constant force P0 [N]"
             optional
-            inputMode="decimal"
             hint={`Left blank: ${dg11ConstantForceN.floor} N for floors; DG11 gives ${dg11ConstantForceN.footbridge} N for footbridges.`}
-            error={errorAt(errors, 'spec.constantForceN')}
-            {...register('spec.constantForceN', number)}
+            name="spec.constantForceN"
+            register={register}
+            errors={errors}
           />
-          <TextField
-            id="load-case-weight"
+          <NumberField
+            id={id('load-case-weight')}
             label="Effective weight W [N]"
             optional
-            inputMode="decimal"
             hint="Left blank: 2 g × the modal mass, the weight of a bay whose half-sine modal mass is half its mass."
-            error={errorAt(errors, 'spec.effectiveWeightN')}
-            {...register('spec.effectiveWeightN', number)}
+            name="spec.effectiveWeightN"
+            register={register}
+            errors={errors}
           />
-          <TextField id="load-case-harmonics" label="Walking harmonics" optional inputMode="numeric" hint="Left blank: 4 (from memory)." error={errorAt(errors, 'spec.harmonicCount')} {...register('spec.harmonicCount', number)} />
+          <NumberField id={id('load-case-harmonics')} label="Walking harmonics" optional hint="Left blank: 4 (from memory)." name="spec.harmonicCount" register={register} errors={errors} whole />
           <BandFields field="stepFrequencyRangeHz" label="Step frequency band" hint="Left blank: 1.6–2.2 Hz (from memory)." register={register} errors={errors} />
         </>
       );
     case 'harmonic':
       return (
         <>
-          <TextField id="load-case-force" label="Modal force amplitude [N]" inputMode="decimal" error={errorAt(errors, 'spec.modalForceAmplitudeN')} {...register('spec.modalForceAmplitudeN', number)} />
+          <NumberField id={id('load-case-force')} label="Modal force amplitude [N]" name="spec.modalForceAmplitudeN" register={register} errors={errors} />
           <BandFields field="pacingRangeHz" label="Force frequency band" hint="The force is swept over this band." register={register} errors={errors} />
         </>
       );

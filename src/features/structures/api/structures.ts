@@ -9,6 +9,7 @@ import {
   type CreateLumpedModelInput,
   type CreateModeInput,
   type CreateStructureInput,
+  type ModeList,
   type UpdateLumpedModelInput,
   type UpdateModeInput,
   type UpdateStructureInput,
@@ -100,13 +101,37 @@ export function useCreateMode(projectId: string, structureId: string) {
   });
 }
 
+/** The tuning variants' key (their results are recomputed when a mode they use changes). */
+const variantsKey = (projectId: string) => ['projects', projectId, 'variants'] as const;
+/** The sign-offs' key: they tell which modes an approved design rests on. */
+const signOffsKey = (projectId: string) => ['projects', projectId, 'sign-offs'] as const;
+const isFrozenRefusal = (error: unknown) => isApiError(error) && error.code === 'approved_design_frozen';
+
+/**
+ * A saved change puts the stored mode in the cached list at once, then refreshes the list and the project's tuning
+ * variants, whose results follow their mode. A refused one changes nothing here: the form offers the reload.
+ */
 export function useUpdateMode(projectId: string, structureId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: ({ modeId, input }: { modeId: string; input: UpdateModeInput }) =>
       apiRequest(`${modesPath(projectId, structureId)}/${e(modeId)}`, { method: 'PATCH', body: input, schema: savedModeSchema }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: structureKeys.modes(projectId, structureId) }),
+    onSuccess: (mode) => {
+      queryClient.setQueryData<ModeList>(structureKeys.modes(projectId, structureId), (list) =>
+        list ? { ...list, modes: list.modes.map((entry) => (entry.id === mode.id ? mode : entry)) } : list,
+      );
+      void queryClient.invalidateQueries({ queryKey: variantsKey(projectId) });
+      return queryClient.invalidateQueries({ queryKey: structureKeys.modes(projectId, structureId) });
+    },
+    // Approved meanwhile: learn it, so that once the form is closed the mode shows as fixed.
+    onError: (error) => (isFrozenRefusal(error) ? queryClient.invalidateQueries({ queryKey: signOffsKey(projectId) }) : undefined),
   });
+}
+
+/** Fetches the structure's modes again (after a refused stale save, say). */
+export function useReloadModes(projectId: string, structureId: string) {
+  const queryClient = useQueryClient();
+  return () => queryClient.invalidateQueries({ queryKey: structureKeys.modes(projectId, structureId) });
 }
 
 export function useDeleteMode(projectId: string, structureId: string) {

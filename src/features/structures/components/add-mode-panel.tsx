@@ -38,9 +38,9 @@ export function AddModePanel({ projectId, structureId }: { projectId: string; st
         {added ? <Notice tone="success" title="Mode added to the table above" /> : null}
         <div role="tabpanel" aria-label={way === 'typed' ? 'Type in' : 'From a beam'}>
           {way === 'typed' ? (
-            <TypedModeForm projectId={projectId} structureId={structureId} onAdded={onAdded} />
+            <TypedModeForm projectId={projectId} structureId={structureId} onDone={onAdded} />
           ) : (
-            <BeamModeForm projectId={projectId} structureId={structureId} onAdded={onAdded} />
+            <BeamModeForm projectId={projectId} structureId={structureId} onDone={onAdded} />
           )}
         </div>
       </div>

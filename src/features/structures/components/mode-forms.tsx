@@ -1,20 +1,22 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState, type ReactNode } from 'react';
 import { get, useForm, useWatch, type FieldErrors, type Path, type UseFormRegister } from 'react-hook-form';
-import { createModeSchema, type CreateModeInput, type LumpedModel, type ModeSourceInput } from '../../../../shared/contracts';
+import { createModeSchema, type LumpedModel, type ModeSourceInput, type SavedMode } from '../../../../shared/contracts';
 import { beamSupports, deriveBeamMode, MAX_BEAM_MODE_NUMBER } from '../../../../shared/engine/beam';
+import { changesSomething, saveRefusalOf, type SaveRefusal } from '../../../components/forms/changes';
+import { NumberField } from '../../../components/forms/number-field';
+import { SaveRefusalNotice } from '../../../components/forms/save-refusal-notice';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { applyServerIssues } from '../../../lib/form-errors';
-import { numberOrUndefined } from '../../../lib/form-values';
 import { formatNumber, formatPercent, formatQuantity } from '../../../lib/format';
-import { useCreateMode } from '../api/structures';
+import { useCreateMode, useUpdateMode } from '../api/structures';
 import { describeEngineError } from './lumped-model-analysis';
 import { modalMassAtDofKg } from './lumped-model-math';
 import { beamSupportLabels, directionLabels } from './labels';
+import { modeChanges, modeToForm, type ModeFormValues } from './mode-changes';
 
-type ModeFormValues = CreateModeInput;
 type BeamSourceInput = Extract<ModeSourceInput, { kind: 'beam' }>;
 type ModelSourceInput = Extract<ModeSourceInput, { kind: 'lumped-model' }>;
 
@@ -36,27 +38,60 @@ const modeFormFields = [
   'source',
 ] as const satisfies readonly Path<ModeFormValues>[];
 
-const number = { setValueAs: numberOrUndefined };
 const errorAt = (errors: FieldErrors<ModeFormValues>, path: string): string | undefined =>
   (get(errors, path) as { message?: string } | undefined)?.message;
 
-/** One form to add a mode, whatever its source: the shared fields, the source's own, and the submit. */
-function useModeForm(projectId: string, structureId: string, defaultValues: ModeFormValues, onAdded: () => void) {
+/**
+ * What a mode form is for: adding a new mode (`mode` undefined; `onDone` after each one added), or changing the stored
+ * `mode` it opens prefilled (`onDone` once saved, `onCancel` to close it, `onReload` to fetch the stored mode again).
+ */
+export interface ModeFormTarget {
+  projectId: string;
+  structureId: string;
+  mode?: SavedMode;
+  onDone: () => void;
+  onCancel?: () => void;
+  onReload?: () => Promise<unknown>;
+}
+
+/** One form to add or change a mode, whatever its source: the shared fields, the source's own, and the submit. */
+function useModeForm({ projectId, structureId, mode, onDone }: ModeFormTarget, newValues: ModeFormValues) {
   const createMode = useCreateMode(projectId, structureId);
+  const updateMode = useUpdateMode(projectId, structureId);
   const [formError, setFormError] = useState<string | null>(null);
-  const form = useForm({ resolver: zodResolver(createModeSchema), defaultValues });
+  const [refusal, setRefusal] = useState<SaveRefusal | null>(null);
+  // The mode as the form was opened on it: its version is the one a save names, and changes are counted from it.
+  const [opened] = useState(mode);
+  const form = useForm({ resolver: zodResolver(createModeSchema), defaultValues: opened ? modeToForm(opened) : newValues });
+  const onError = (error: unknown) => {
+    const refused = saveRefusalOf(error);
+    setRefusal(refused);
+    if (!refused) setFormError(applyServerIssues(error, modeFormFields, form.setError));
+  };
   const onSubmit = form.handleSubmit((values) => {
     setFormError(null);
+    setRefusal(null);
+    if (opened) {
+      const changes = modeChanges(opened, values);
+      if (!changesSomething(changes)) {
+        setFormError('Nothing differs from the stored mode: change a value, or cancel.');
+        return;
+      }
+      updateMode.mutate({ modeId: opened.id, input: changes }, { onSuccess: onDone, onError });
+      return;
+    }
     createMode.mutate(values, {
       onSuccess: () => {
         // The entries stay for the next mode (another mode number of the same beam, say); only the label is cleared.
         form.setValue('label', '');
-        onAdded();
+        onDone();
       },
-      onError: (error) => setFormError(applyServerIssues(error, modeFormFields, form.setError)),
+      onError,
     });
   });
-  return { form, onSubmit, formError, busy: createMode.isPending };
+  // The page may hold a form to add a mode and one to change a mode at once: their field ids differ.
+  const fieldId = (name: string) => (opened ? `edit-${name}` : name);
+  return { form, onSubmit, formError, refusal, busy: createMode.isPending || updateMode.isPending, fieldId };
 }
 
 function CommonModeFields({ register, errors, idPrefix }: { register: UseFormRegister<ModeFormValues>; errors: FieldErrors<ModeFormValues>; idPrefix: string }) {
@@ -70,39 +105,58 @@ function CommonModeFields({ register, errors, idPrefix }: { register: UseFormReg
           </option>
         ))}
       </SelectField>
-      <TextField
+      <NumberField
         id={`${idPrefix}-damping`}
         label="Damping ratio ζ [–]"
-        inputMode="decimal"
         hint="A fraction of critical damping: 0.006 is 0.6 %, the composite footbridge value of the ISO 10137 / BS 5400 tables; steel about 0.005 and concrete 0.008 (from memory)."
-        error={errorAt(errors, 'dampingRatio')}
-        {...register('dampingRatio', number)}
+        name="dampingRatio"
+        register={register}
+        errors={errors}
       />
     </>
   );
 }
 
-function FormFrame({ label, formError, busy, submitLabel, onSubmit, children }: { label: string; formError: string | null; busy: boolean; submitLabel: string; onSubmit: () => void; children: ReactNode }) {
+interface FormFrameProps {
+  target: ModeFormTarget;
+  /** The form's name when it adds a mode; a change is named after the mode. */
+  label: string;
+  formError: string | null;
+  refusal: SaveRefusal | null;
+  busy: boolean;
+  submitLabel: string;
+  onSubmit: () => void;
+  children: ReactNode;
+}
+
+function FormFrame({ target, label, formError, refusal, busy, submitLabel, onSubmit, children }: FormFrameProps) {
+  const editing = target.mode !== undefined;
   return (
     <form
       noValidate
-      aria-label={label}
+      aria-label={target.mode ? `Edit mode ${target.mode.label}` : label}
       className="flex flex-col gap-5"
       onSubmit={(event) => {
         event.preventDefault();
         onSubmit();
       }}
     >
+      <SaveRefusalNotice refusal={refusal} what="mode" onReload={target.onReload ?? (async () => undefined)} />
       {formError ? (
-        <Notice tone="error" title="The mode was not added">
+        <Notice tone="error" title={editing ? 'The mode was not saved' : 'The mode was not added'}>
           {formError}
         </Notice>
       ) : null}
       {children}
-      <div>
-        <Button type="submit" busy={busy}>
-          {submitLabel}
+      <div className="flex flex-wrap gap-3">
+        <Button type="submit" busy={busy} disabled={refusal?.kind === 'frozen'}>
+          {editing ? 'Save mode' : submitLabel}
         </Button>
+        {target.onCancel ? (
+          <Button tone="quiet" onClick={target.onCancel}>
+            Cancel
+          </Button>
+        ) : null}
       </div>
     </form>
   );
@@ -111,31 +165,31 @@ function FormFrame({ label, formError, busy, submitLabel, onSubmit, children }: 
 const typedDefaults: ModeFormValues = { label: '', direction: 'vertical', dampingRatio: undefined as unknown as number, source: { kind: 'typed' } };
 
 /** A mode typed in from a finite-element model or a measurement: frequency, modal mass, damping, direction. */
-export function TypedModeForm({ projectId, structureId, onAdded }: { projectId: string; structureId: string; onAdded: () => void }) {
-  const { form, onSubmit, formError, busy } = useModeForm(projectId, structureId, typedDefaults, onAdded);
+export function TypedModeForm(target: ModeFormTarget) {
+  const { form, onSubmit, formError, refusal, busy, fieldId } = useModeForm(target, typedDefaults);
   const { register, formState } = form;
   const errors = formState.errors;
   return (
-    <FormFrame label="Type a mode" formError={formError} busy={busy} submitLabel="Add mode" onSubmit={() => void onSubmit()}>
+    <FormFrame target={target} label="Type a mode" formError={formError} refusal={refusal} busy={busy} submitLabel="Add mode" onSubmit={() => void onSubmit()}>
       <div className="grid gap-4 sm:grid-cols-2">
-        <CommonModeFields register={register} errors={errors} idPrefix="typed-mode" />
-        <TextField id="typed-mode-frequency" label="Natural frequency [Hz]" inputMode="decimal" error={errorAt(errors, 'frequencyHz')} {...register('frequencyHz', number)} />
-        <TextField
-          id="typed-mode-modal-mass"
+        <CommonModeFields register={register} errors={errors} idPrefix={fieldId('typed-mode')} />
+        <NumberField id={fieldId('typed-mode-frequency')} label="Natural frequency [Hz]" name="frequencyHz" register={register} errors={errors} />
+        <NumberField
+          id={fieldId('typed-mode-modal-mass')}
           label="Modal mass [kg]"
-          inputMode="decimal"
           hint="For the mode shape scaled to 1 where the damper will sit."
-          error={errorAt(errors, 'modalMassKg')}
-          {...register('modalMassKg', number)}
+          name="modalMassKg"
+          register={register}
+          errors={errors}
         />
-        <TextField
-          id="typed-mode-shape-mean"
+        <NumberField
+          id={fieldId('typed-mode-shape-mean')}
           label="Mean |φ| over the deck [–]"
           optional
-          inputMode="decimal"
           hint="Used by crowd load cases; 2/π ≈ 0.637 for a half sine."
-          error={errorAt(errors, 'modeShapeMean')}
-          {...register('modeShapeMean', number)}
+          name="modeShapeMean"
+          register={register}
+          errors={errors}
         />
       </div>
     </FormFrame>
@@ -157,8 +211,8 @@ const beamDefaults: ModeFormValues = {
 };
 
 /** A mode of a uniform beam: the engine derives frequency, modal mass and mean |φ| as the engineer types. */
-export function BeamModeForm({ projectId, structureId, onAdded }: { projectId: string; structureId: string; onAdded: () => void }) {
-  const { form, onSubmit, formError, busy } = useModeForm(projectId, structureId, beamDefaults, onAdded);
+export function BeamModeForm(target: ModeFormTarget) {
+  const { form, onSubmit, formError, refusal, busy, fieldId } = useModeForm(target, beamDefaults);
   const { register, control, formState } = form;
   const errors = formState.errors;
   const source = useWatch({ control, name: 'source' }) as BeamSourceInput;
@@ -173,40 +227,41 @@ export function BeamModeForm({ projectId, structureId, onAdded }: { projectId: s
   })();
 
   return (
-    <FormFrame label="Derive a mode from a beam" formError={formError} busy={busy} submitLabel="Add beam mode" onSubmit={() => void onSubmit()}>
+    <FormFrame target={target} label="Derive a mode from a beam" formError={formError} refusal={refusal} busy={busy} submitLabel="Add beam mode" onSubmit={() => void onSubmit()}>
       <div className="grid gap-4 sm:grid-cols-2">
-        <CommonModeFields register={register} errors={errors} idPrefix="beam-mode" />
-        <SelectField id="beam-support" label="Supports" error={errorAt(errors, 'source.support')} {...register('source.support')}>
+        <CommonModeFields register={register} errors={errors} idPrefix={fieldId('beam-mode')} />
+        <SelectField id={fieldId('beam-support')} label="Supports" error={errorAt(errors, 'source.support')} {...register('source.support')}>
           {beamSupports.map((support) => (
             <option key={support} value={support}>
               {beamSupportLabels[support]}
             </option>
           ))}
         </SelectField>
-        <TextField id="beam-length" label="Length L [m]" inputMode="decimal" error={errorAt(errors, 'source.lengthM')} {...register('source.lengthM', number)} />
-        <TextField
-          id="beam-stiffness"
+        <NumberField id={fieldId('beam-length')} label="Length L [m]" name="source.lengthM" register={register} errors={errors} />
+        <NumberField
+          id={fieldId('beam-stiffness')}
           label="Bending stiffness EI [N·m²]"
-          inputMode="decimal"
           hint="E × I of the whole cross-section, e.g. 2.1e9."
-          error={errorAt(errors, 'source.bendingStiffnessNM2')}
-          {...register('source.bendingStiffnessNM2', number)}
+          name="source.bendingStiffnessNM2"
+          register={register}
+          errors={errors}
         />
-        <TextField
-          id="beam-mass"
+        <NumberField
+          id={fieldId('beam-mass')}
           label="Mass per length m [kg/m]"
-          inputMode="decimal"
           hint="Structure and permanent finishes."
-          error={errorAt(errors, 'source.massPerLengthKgPerM')}
-          {...register('source.massPerLengthKgPerM', number)}
+          name="source.massPerLengthKgPerM"
+          register={register}
+          errors={errors}
         />
-        <TextField
-          id="beam-mode-number"
+        <NumberField
+          id={fieldId('beam-mode-number')}
           label="Mode number"
-          inputMode="numeric"
           hint={`1 for the fundamental, up to ${MAX_BEAM_MODE_NUMBER}.`}
-          error={errorAt(errors, 'source.modeNumber')}
-          {...register('source.modeNumber', number)}
+          name="source.modeNumber"
+          register={register}
+          errors={errors}
+          whole
         />
       </div>
       <section aria-label="Derived from the beam" aria-live="polite" className="rounded-plate border border-tide-200 bg-tide-50 px-4 py-3 text-small text-tide-900">
@@ -247,14 +302,14 @@ export function BeamModeForm({ projectId, structureId, onAdded }: { projectId: s
 }
 
 /** "Use this mode at this DOF": a design mode taken from a saved lumped model, its numbers derived by the server. */
-export function ModelModeForm({ projectId, structureId, model, onAdded }: { projectId: string; structureId: string; model: LumpedModel; onAdded: () => void }) {
+export function ModelModeForm({ model, ...target }: ModeFormTarget & { model: LumpedModel }) {
   const defaults: ModeFormValues = {
     label: '',
     direction: 'vertical',
     dampingRatio: undefined as unknown as number,
     source: { kind: 'lumped-model', modelId: model.id, modeNumber: 1, dofIndex: model.massMatrixKg.length - 1 },
   };
-  const { form, onSubmit, formError, busy } = useModeForm(projectId, structureId, defaults, onAdded);
+  const { form, onSubmit, formError, refusal, busy, fieldId } = useModeForm(target, defaults);
   const { register, control, formState } = form;
   const errors = formState.errors;
   const source = useWatch({ control, name: 'source' }) as ModelSourceInput;
@@ -264,9 +319,9 @@ export function ModelModeForm({ projectId, structureId, model, onAdded }: { proj
   const atNode = chosen !== undefined && shapeValue !== undefined && Math.abs(shapeValue) < 1e-9 * Math.max(...chosen.shape.map(Math.abs));
 
   return (
-    <FormFrame label="Use a mode of this model" formError={formError} busy={busy} submitLabel="Add as a design mode" onSubmit={() => void onSubmit()}>
+    <FormFrame target={target} label="Use a mode of this model" formError={formError} refusal={refusal} busy={busy} submitLabel="Add as a design mode" onSubmit={() => void onSubmit()}>
       <div className="grid gap-4 sm:grid-cols-2">
-        <SelectField id="model-mode-number" label="Mode of the model" error={errorAt(errors, 'source.modeNumber')} {...register('source.modeNumber', { valueAsNumber: true })}>
+        <SelectField id={fieldId('model-mode-number')} label="Mode of the model" error={errorAt(errors, 'source.modeNumber')} {...register('source.modeNumber', { valueAsNumber: true })}>
           {model.modes.map((mode, index) => (
             <option key={index} value={index + 1}>
               Mode {index + 1}: {formatQuantity(mode.frequencyHz, 'Hz')}
@@ -274,7 +329,7 @@ export function ModelModeForm({ projectId, structureId, model, onAdded }: { proj
           ))}
         </SelectField>
         <SelectField
-          id="model-mode-dof"
+          id={fieldId('model-mode-dof')}
           label="Damper at"
           hint="The degree of freedom where the damper would sit; the modal mass is for the shape scaled to 1 there."
           error={errorAt(errors, 'source.dofIndex')}
@@ -286,7 +341,7 @@ export function ModelModeForm({ projectId, structureId, model, onAdded }: { proj
             </option>
           ))}
         </SelectField>
-        <CommonModeFields register={register} errors={errors} idPrefix="model-mode" />
+        <CommonModeFields register={register} errors={errors} idPrefix={fieldId('model-mode')} />
       </div>
       {chosen && shapeValue !== undefined ? (
         atNode ? (

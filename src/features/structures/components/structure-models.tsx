@@ -89,7 +89,7 @@ export function StructureModels({ projectId, structureId, models, canEdit }: Str
                   frequency and modal mass, and re-derives them when the model changes.
                 </p>
                 {modeAdded ? <Notice tone="success" title="Design mode added to the modes table above" /> : null}
-                <ModelModeForm key={`${selected.id}-${selected.version}`} projectId={projectId} structureId={structureId} model={selected} onAdded={() => setModeAdded(true)} />
+                <ModelModeForm key={`${selected.id}-${selected.version}`} projectId={projectId} structureId={structureId} model={selected} onDone={() => setModeAdded(true)} />
               </section>
             ) : null}
             {canEdit ? (
