@@ -58,8 +58,8 @@ export async function updateComfortCriteria(
   const { version, ...fields } = input;
   const changes = givenFields(fields);
   if (Object.keys(changes).length === 0) throw nothingToChange(['name', 'spec']);
-  await refuseIfFrozen(db, 'The comfort criteria', { criteriaId: id }, () => repository.findComfortCriteria(db, scope, id));
-  const row = await frozenWrite('The comfort criteria', () => asActor(db, user, (tx) => repository.updateComfortCriteriaAtVersion(tx, scope, id, version, changes)));
+  await refuseIfFrozen(db, 'This set of comfort criteria', { criteriaId: id }, () => repository.findComfortCriteria(db, scope, id));
+  const row = await frozenWrite('This set of comfort criteria', () => asActor(db, user, (tx) => repository.updateComfortCriteriaAtVersion(tx, scope, id, version, changes)));
   if (row) return toComfortCriteria(row);
   const current = await repository.findComfortCriteria(db, scope, id);
   if (!current) throw criteriaNotFound();
@@ -68,9 +68,9 @@ export async function updateComfortCriteria(
 
 export async function deleteComfortCriteria(db: Database, user: CurrentUser, projectId: string, id: string): Promise<void> {
   const scope = await requireProjectScope(db, user, projectId);
-  await refuseIfFrozen(db, 'The comfort criteria', { criteriaId: id }, () => repository.findComfortCriteria(db, scope, id));
+  await refuseIfFrozen(db, 'This set of comfort criteria', { criteriaId: id }, () => repository.findComfortCriteria(db, scope, id));
   const deleted = await deleteUnlessUsedByVariants(db, 'The comfort criteria', { criteriaId: id }, () =>
-    frozenWrite('The comfort criteria', () => asActor(db, user, (tx) => repository.deleteComfortCriteria(tx, scope, id))),
+    frozenWrite('This set of comfort criteria', () => asActor(db, user, (tx) => repository.deleteComfortCriteria(tx, scope, id))),
   );
   if (!deleted) throw criteriaNotFound();
 }
