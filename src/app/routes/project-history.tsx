@@ -51,7 +51,7 @@ export function ProjectHistoryRoute() {
   return (
     <div className="flex flex-col gap-6">
       <PageTitle title={`History · ${project.name}`} />
-      <Panel title="History" description="Every change of the project’s structures, modes, lumped models, load cases, comfort criteria, tuning variants, sign-offs and site records: who made it, when, and the values before and after, newest first. Values are shown as stored, in SI units.">
+      <Panel title="History" description="Every change of the project’s structures, modes, lumped models, load cases, comfort criteria, tuning variants, sign-offs, site records and as-built records: who made it, when, and the values before and after, newest first. Values are shown as stored, in SI units.">
         <HistoryFiltersForm
           key={search.toString()}
           filters={filters}
