@@ -28,7 +28,9 @@ export function AboutRoute() {
             This release holds the organisation, its people and roles, and its projects with their structural model:
             structures and their modes (typed in, derived from a beam or taken from a lumped n-DOF model whose modes and
             free vibration are computed as you type), load cases and comfort criteria, tuning variants, the owner's
-            sign-off, the fabricator's hardware sheet of an approved design (CSV and PDF) and site records.
+            sign-off, the fabricator's hardware sheet of an approved design (CSV and PDF) with the as-built record of each
+            damper unit, the engineer's design report of a tuning variant (PDF), site records, and the project's history
+            of every change.
           </p>
         </div>
       </Panel>
