@@ -9,10 +9,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { apiErrorSchema } from '../../shared/contracts/errors';
 import { asBuiltRecordListSchema, asBuiltRecordSchema } from '../../shared/contracts/as-built';
 import { hardwareSheetSchema, signOffSchema, type SignOff } from '../../shared/contracts/sign-offs';
-import { variantSchema } from '../../shared/contracts/variants';
-import { projectSchema } from '../../shared/contracts/projects';
 import { historyListSchema } from '../../shared/contracts/history';
 import { roles, type Role } from '../../shared/contracts/roles';
+import { createTestVariant, newTestDesignProject, testMode } from '../support/design-fixture';
 import { createTestApp, signIn, type Agent, type TestApp } from '../support/test-app';
 
 let t: TestApp;
@@ -20,9 +19,8 @@ const agents = {} as Record<Role, Agent>;
 let outsiderAgent: Agent;
 
 // Test inputs (invented).
-const mode = { label: 'Test vertical mode', direction: 'vertical', frequencyHz: 2.0, modalMassKg: 30_000, dampingRatio: 0.005, modeShapeMean: 0.6 };
-const crowdSpec = { kind: 'crowd', guide: 'setra', densityPerM2: 0.8, deckAreaM2: 120, harmonic: 1 };
-const criteriaSpec = { set: 'setra', class: 'maximum' };
+// The design of tests/support/design-fixture.ts, a Den Hartog variant on its crowd load case.
+const mode = testMode;
 const massRatio = 0.02;
 const unitCount = 2;
 
@@ -38,22 +36,13 @@ beforeAll(async () => {
   for (const role of roles) agents[role] = await signIn(t.app, t.people[role].email);
   outsiderAgent = await signIn(t.app, t.outsider.email);
   const agent = agents.engineer;
-  const projectId = projectSchema.parse((await agent.post('/api/projects').send({ name: 'As-built test footbridge', kind: 'footbridge' }).expect(201)).body).id;
-  const structureId = (await agent.post(`/api/projects/${projectId}/structures`).send({ name: 'Test span', kind: 'footbridge-span' }).expect(201)).body.id as string;
-  const modeId = (await agent.post(`/api/projects/${projectId}/structures/${structureId}/modes`).send(mode).expect(201)).body.id as string;
-  const crowdId = (await agent.post(`/api/projects/${projectId}/load-cases`).send({ name: 'Test crowd', spec: crowdSpec }).expect(201)).body.id as string;
-  const criteriaId = (await agent.post(`/api/projects/${projectId}/comfort-criteria`).send({ name: 'Test criteria', spec: criteriaSpec }).expect(201)).body.id as string;
-  const created = await agent.post(`/api/projects/${projectId}/variants`).send({
-    name: 'Test Den Hartog 2 %',
-    modeId,
-    loadCaseIds: [crowdId],
-    criteriaId,
+  const ids = await newTestDesignProject(agent, 'As-built test footbridge');
+  const { projectId } = ids;
+  const variant = await createTestVariant(agent, ids, {
+    loadCaseIds: [ids.crowdId],
     massRatio,
-    tuning: { method: 'den-hartog' },
-    unitCount,
+    unitCount
   });
-  expect(created.status, JSON.stringify(created.body)).toBe(201);
-  const variant = variantSchema.parse(created.body);
   const submitted = await agent.post(`/api/projects/${projectId}/sign-offs`).send({ variantId: variant.id });
   expect(submitted.status, JSON.stringify(submitted.body)).toBe(201);
   signOff = signOffSchema.parse(submitted.body);

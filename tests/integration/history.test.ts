@@ -8,21 +8,20 @@ import { sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { apiErrorSchema } from '../../shared/contracts/errors';
 import { historyListSchema, type HistoryEvent, type HistoryList } from '../../shared/contracts/history';
-import { projectSchema } from '../../shared/contracts/projects';
-import { variantSchema, type Variant } from '../../shared/contracts/variants';
+import type { Variant } from '../../shared/contracts/variants';
 import { roles, type Role } from '../../shared/contracts/roles';
 import { demoSiteRecordCsv, demoSiteRecords } from '../../server/db/seed';
 import { createTestApp, signIn, type Agent, type TestApp } from '../support/test-app';
+import { createTestVariant, newTestDesignProject, testCrowdSpec, testWalkerSpec, type TestDesignIds } from '../support/design-fixture';
 
 let t: TestApp;
 const agents = {} as Record<Role, Agent>;
 let outsiderAgent: Agent;
 
 // Test inputs (invented).
-const mode = { label: 'Test vertical mode', direction: 'vertical', frequencyHz: 2.0, modalMassKg: 30_000, dampingRatio: 0.005, modeShapeMean: 0.6 };
-const crowdSpec = { kind: 'crowd', guide: 'setra', densityPerM2: 0.5, deckAreaM2: 120, harmonic: 1 };
-const walkerSpec = { kind: 'walker' };
-const criteriaSpec = { set: 'setra', class: 'maximum' };
+// Test inputs (invented): the design of tests/support/design-fixture.ts, with a lighter crowd.
+const crowdSpec = { ...testCrowdSpec, densityPerM2: 0.5 };
+const walkerSpec = testWalkerSpec;
 const massKg = [
   [3000, 200],
   [200, 2500],
@@ -32,39 +31,11 @@ const stiffnessNPerM = [
   [-4e6, 7e6],
 ];
 
-interface Ids {
-  projectId: string;
-  structureId: string;
-  modeId: string;
-  crowdId: string;
-  walkerId: string;
-  criteriaId: string;
-}
-
-async function newProject(name: string): Promise<Ids> {
-  const agent = agents.engineer;
-  const projectId = projectSchema.parse((await agent.post('/api/projects').send({ name, kind: 'footbridge' }).expect(201)).body).id;
-  const structureId = (await agent.post(`/api/projects/${projectId}/structures`).send({ name: 'Test span', kind: 'footbridge-span' }).expect(201)).body.id as string;
-  const modeId = (await agent.post(`/api/projects/${projectId}/structures/${structureId}/modes`).send(mode).expect(201)).body.id as string;
-  const crowdId = (await agent.post(`/api/projects/${projectId}/load-cases`).send({ name: 'Test crowd', spec: crowdSpec }).expect(201)).body.id as string;
-  const walkerId = (await agent.post(`/api/projects/${projectId}/load-cases`).send({ name: 'Test walker', spec: walkerSpec }).expect(201)).body.id as string;
-  const criteriaId = (await agent.post(`/api/projects/${projectId}/comfort-criteria`).send({ name: 'Test criteria', spec: criteriaSpec }).expect(201)).body.id as string;
-  return { projectId, structureId, modeId, crowdId, walkerId, criteriaId };
-}
-
-async function createVariant(ids: Ids, over: Record<string, unknown> = {}, agent = agents.engineer): Promise<Variant> {
-  const response = await agent.post(`/api/projects/${ids.projectId}/variants`).send({
-    name: 'Test Den Hartog 2 %',
-    modeId: ids.modeId,
-    loadCaseIds: [ids.crowdId],
-    criteriaId: ids.criteriaId,
-    massRatio: 0.02,
-    tuning: { method: 'den-hartog' },
-    ...over,
-  });
-  expect(response.status, JSON.stringify(response.body)).toBe(201);
-  return variantSchema.parse(response.body);
-}
+type Ids = TestDesignIds;
+const newProject = (name: string): Promise<Ids> => newTestDesignProject(agents.engineer, name, { crowdSpec });
+/** A variant on the crowd alone unless `over` says otherwise. */
+const createVariant = (ids: Ids, over: Record<string, unknown> = {}, agent = agents.engineer): Promise<Variant> =>
+  createTestVariant(agent, ids, { loadCaseIds: [ids.crowdId], ...over });
 
 async function history(ids: { projectId: string }, query: Record<string, string | number> = {}, agent = agents.viewer): Promise<HistoryList> {
   const response = await agent.get(`/api/projects/${ids.projectId}/history`).query(query);

@@ -9,15 +9,12 @@ import { createServer, type Server, type Socket } from 'node:net';
 import type { AddressInfo } from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { signOffSchema, type SignOff } from '../../shared/contracts/sign-offs';
-import { projectSchema } from '../../shared/contracts/projects';
 import { drainOutbox, startOutboxRelay } from '../../server/mail/outbox';
 import { startFakeSmtp } from '../../server/mail/fake-smtp';
 import { appUrl, createTestApp, signIn, type Agent, type TestApp } from '../support/test-app';
+// Test inputs (invented): the design of the fixture.
+import { createTestVariant, newTestDesignProject } from '../support/design-fixture';
 
-// Test inputs (invented).
-const mode = { label: 'Test vertical mode', direction: 'vertical', frequencyHz: 2.0, modalMassKg: 30_000, dampingRatio: 0.005, modeShapeMean: 0.6 };
-const crowdSpec = { kind: 'crowd', guide: 'setra', densityPerM2: 0.8, deckAreaM2: 120, harmonic: 1 };
-const criteriaSpec = { set: 'setra', class: 'maximum' };
 const sendTimeoutMs = 4_000;
 
 /** A relay that accepts connections and never says a word (no SMTP greeting). */
@@ -73,17 +70,9 @@ describe('sign-off mails while the relay hangs', () => {
   it('answers the submission and the decision at once, keeps the decision, and sends the mails when the relay is back', async () => {
     const engineer = await signIn(t.app, t.people.engineer.email);
     const owner = await signIn(t.app, t.people.owner.email);
-    const projectId = projectSchema.parse((await engineer.post('/api/projects').send({ name: 'Hanging relay footbridge', kind: 'footbridge' }).expect(201)).body).id;
-    const structureId = (await engineer.post(`/api/projects/${projectId}/structures`).send({ name: 'Test span', kind: 'footbridge-span' }).expect(201)).body.id as string;
-    const modeId = (await engineer.post(`/api/projects/${projectId}/structures/${structureId}/modes`).send(mode).expect(201)).body.id as string;
-    const crowdId = (await engineer.post(`/api/projects/${projectId}/load-cases`).send({ name: 'Test crowd', spec: crowdSpec }).expect(201)).body.id as string;
-    const criteriaId = (await engineer.post(`/api/projects/${projectId}/comfort-criteria`).send({ name: 'Test criteria', spec: criteriaSpec }).expect(201)).body.id as string;
-    const variantId = (
-      await engineer
-        .post(`/api/projects/${projectId}/variants`)
-        .send({ name: 'Hanging relay variant', modeId, loadCaseIds: [crowdId], criteriaId, massRatio: 0.02, tuning: { method: 'den-hartog' } })
-        .expect(201)
-    ).body.id as string;
+    const ids = await newTestDesignProject(engineer, 'Hanging relay footbridge');
+    const { projectId } = ids;
+    const variantId = (await createTestVariant(engineer, ids, { name: 'Hanging relay variant', loadCaseIds: [ids.crowdId] })).id;
 
     // The answer lists the mail as pending with no attempt ended: it did not wait for the hanging relay.
     const response = await engineer.post(`/api/projects/${projectId}/sign-offs`).send({ variantId });

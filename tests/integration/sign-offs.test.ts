@@ -10,8 +10,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { apiErrorSchema } from '../../shared/contracts/errors';
 import { signOffListSchema, signOffSchema, type SignOff } from '../../shared/contracts/sign-offs';
 import { variantSchema, type Variant } from '../../shared/contracts/variants';
+import { createTestVariant, newTestDesignProject, testCriteriaSpec, type TestDesignIds } from '../support/design-fixture';
 import { comfortCriteriaSchema } from '../../shared/contracts/model';
-import { projectSchema } from '../../shared/contracts/projects';
 import { roles, type Role } from '../../shared/contracts/roles';
 import { drainOutbox } from '../../server/mail/outbox';
 import { startFakeSmtp } from '../../server/mail/fake-smtp';
@@ -23,45 +23,11 @@ let outsiderAgent: Agent;
 
 const errorOf = (body: unknown) => apiErrorSchema.parse(body).error;
 
-// Test inputs (invented).
-const mode = { label: 'Test vertical mode', direction: 'vertical', frequencyHz: 2.0, modalMassKg: 30_000, dampingRatio: 0.005, modeShapeMean: 0.6 };
-const crowdSpec = { kind: 'crowd', guide: 'setra', densityPerM2: 0.8, deckAreaM2: 120, harmonic: 1 };
-const walkerSpec = { kind: 'walker' };
-const criteriaSpec = { set: 'setra', class: 'maximum' };
-
-interface Ids {
-  projectId: string;
-  structureId: string;
-  modeId: string;
-  crowdId: string;
-  walkerId: string;
-  criteriaId: string;
-}
-
-async function newProject(name: string): Promise<Ids> {
-  const agent = agents.engineer;
-  const projectId = projectSchema.parse((await agent.post('/api/projects').send({ name, kind: 'footbridge' }).expect(201)).body).id;
-  const structureId = (await agent.post(`/api/projects/${projectId}/structures`).send({ name: 'Test span', kind: 'footbridge-span' }).expect(201)).body.id as string;
-  const modeId = (await agent.post(`/api/projects/${projectId}/structures/${structureId}/modes`).send(mode).expect(201)).body.id as string;
-  const crowdId = (await agent.post(`/api/projects/${projectId}/load-cases`).send({ name: 'Test crowd', spec: crowdSpec }).expect(201)).body.id as string;
-  const walkerId = (await agent.post(`/api/projects/${projectId}/load-cases`).send({ name: 'Test walker', spec: walkerSpec }).expect(201)).body.id as string;
-  const criteriaId = (await agent.post(`/api/projects/${projectId}/comfort-criteria`).send({ name: 'Test criteria', spec: criteriaSpec }).expect(201)).body.id as string;
-  return { projectId, structureId, modeId, crowdId, walkerId, criteriaId };
-}
-
-async function createVariant(ids: Ids, over: Record<string, unknown> = {}): Promise<Variant> {
-  const response = await agents.engineer.post(`/api/projects/${ids.projectId}/variants`).send({
-    name: 'Test Den Hartog 2 %',
-    modeId: ids.modeId,
-    loadCaseIds: [ids.crowdId, ids.walkerId],
-    criteriaId: ids.criteriaId,
-    massRatio: 0.02,
-    tuning: { method: 'den-hartog' },
-    ...over,
-  });
-  expect(response.status, JSON.stringify(response.body)).toBe(201);
-  return variantSchema.parse(response.body);
-}
+// Test inputs (invented): the design of tests/support/design-fixture.ts.
+const criteriaSpec = testCriteriaSpec;
+type Ids = TestDesignIds;
+const newProject = (name: string): Promise<Ids> => newTestDesignProject(agents.engineer, name);
+const createVariant = (ids: Ids, over: Record<string, unknown> = {}): Promise<Variant> => createTestVariant(agents.engineer, ids, over);
 
 const signOffsOf = (ids: Ids) => `/api/projects/${ids.projectId}/sign-offs`;
 const modeUrl = (ids: Ids) => `/api/projects/${ids.projectId}/structures/${ids.structureId}/modes/${ids.modeId}`;
@@ -380,17 +346,9 @@ describe('the mail outbox', () => {
     const down = await createTestApp({ env: { STILLSPAN_FAKE_SMTP: '0', SMTP_HOST: '127.0.0.1', SMTP_PORT: String(port) } });
     try {
       const engineer = await signIn(down.app, down.people.engineer.email);
-      const projectId = projectSchema.parse((await engineer.post('/api/projects').send({ name: 'Outbox footbridge', kind: 'footbridge' }).expect(201)).body).id;
-      const structureId = (await engineer.post(`/api/projects/${projectId}/structures`).send({ name: 'Test span', kind: 'footbridge-span' }).expect(201)).body.id as string;
-      const modeId = (await engineer.post(`/api/projects/${projectId}/structures/${structureId}/modes`).send(mode).expect(201)).body.id as string;
-      const crowdId = (await engineer.post(`/api/projects/${projectId}/load-cases`).send({ name: 'Test crowd', spec: crowdSpec }).expect(201)).body.id as string;
-      const criteriaId = (await engineer.post(`/api/projects/${projectId}/comfort-criteria`).send({ name: 'Test criteria', spec: criteriaSpec }).expect(201)).body.id as string;
-      const variantId = (
-        await engineer
-          .post(`/api/projects/${projectId}/variants`)
-          .send({ name: 'Outbox variant', modeId, loadCaseIds: [crowdId], criteriaId, massRatio: 0.02, tuning: { method: 'den-hartog' } })
-          .expect(201)
-      ).body.id as string;
+      const ids = await newTestDesignProject(engineer, 'Outbox footbridge');
+      const { projectId } = ids;
+      const variantId = (await createTestVariant(engineer, ids, { name: 'Outbox variant', loadCaseIds: [ids.crowdId] })).id;
       const response = await engineer.post(`/api/projects/${projectId}/sign-offs`).send({ variantId });
       expect(response.status, JSON.stringify(response.body)).toBe(201);
       const submitted = signOffSchema.parse(response.body);

@@ -11,6 +11,7 @@ import { preferencesSchema } from '../../shared/contracts/preferences';
 import { assessResponseSchema } from '../../shared/contracts/compute-design';
 import { projectSchema } from '../../shared/contracts/projects';
 import { roles, type Role } from '../../shared/contracts/roles';
+import { populateTestDesign, testCriteriaSpec, testCrowdSpec, testMode, testWalkerSpec, type TestDesignIds } from '../support/design-fixture';
 import { createTestApp, signIn, type Agent, type TestApp } from '../support/test-app';
 
 let t: TestApp;
@@ -21,28 +22,14 @@ const readers: Role[] = ['owner', 'fabricator', 'viewer'];
 const issuePaths = (body: unknown) => apiErrorSchema.parse(body).error.issues.map((issue) => issue.path);
 
 // Test inputs (invented, not the values of any structure).
-const mode = { label: 'Test vertical mode', direction: 'vertical', frequencyHz: 2.0, modalMassKg: 30_000, dampingRatio: 0.005, modeShapeMean: 0.6 };
-const crowdSpec = { kind: 'crowd', guide: 'setra', densityPerM2: 0.8, deckAreaM2: 120, harmonic: 1 };
-const walkerSpec = { kind: 'walker' };
-const criteriaSpec = { set: 'setra', class: 'maximum' };
+// The design of tests/support/design-fixture.ts (invented).
+const mode = testMode;
+const crowdSpec = testCrowdSpec;
+const walkerSpec = testWalkerSpec;
+const criteriaSpec = testCriteriaSpec;
 
-interface Ids {
-  projectId: string;
-  structureId: string;
-  modeId: string;
-  crowdId: string;
-  walkerId: string;
-  criteriaId: string;
-}
-
-async function populate(agent: Agent, projectId: string): Promise<Ids> {
-  const structureId = (await agent.post(`/api/projects/${projectId}/structures`).send({ name: 'Test span', kind: 'footbridge-span' }).expect(201)).body.id as string;
-  const modeId = (await agent.post(`/api/projects/${projectId}/structures/${structureId}/modes`).send(mode).expect(201)).body.id as string;
-  const crowdId = (await agent.post(`/api/projects/${projectId}/load-cases`).send({ name: 'Test crowd', spec: crowdSpec }).expect(201)).body.id as string;
-  const walkerId = (await agent.post(`/api/projects/${projectId}/load-cases`).send({ name: 'Test walker', spec: walkerSpec }).expect(201)).body.id as string;
-  const criteriaId = (await agent.post(`/api/projects/${projectId}/comfort-criteria`).send({ name: 'Test criteria', spec: criteriaSpec }).expect(201)).body.id as string;
-  return { projectId, structureId, modeId, crowdId, walkerId, criteriaId };
-}
+type Ids = TestDesignIds;
+const populate = (agent: Agent, projectId: string): Promise<Ids> => populateTestDesign(agent, projectId);
 
 let mine: Ids;
 let sibling: Ids;

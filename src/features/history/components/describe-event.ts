@@ -24,7 +24,8 @@ export function entityNoun(entity: string): string {
   return entityNouns[entity] ?? entity.replace(/-/g, ' ');
 }
 
-const verbs: Record<string, string> = {
+/** What happened, as a verb in the past (the filter's choices read the same). */
+export const actionVerbs: Record<string, string> = {
   create: 'added',
   update: 'changed',
   delete: 'deleted',
@@ -40,7 +41,7 @@ export function actorName(event: HistoryEvent): string {
 
 /** "changed the load case “Crowd class II”"; a sign-off names the design (its tuning variant). */
 export function eventSentence(event: HistoryEvent): string {
-  const verb = verbs[event.action] ?? event.action;
+  const verb = actionVerbs[event.action] ?? event.action;
   const label = event.label ? ` “${event.label}”` : '';
   if (event.entity === 'sign-off') {
     if (event.action === 'submitted') return `submitted the design${label} for sign-off`;

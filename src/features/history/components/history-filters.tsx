@@ -2,21 +2,12 @@ import { useState, type FormEvent } from 'react';
 import { historyActions, historyEntities, type HistoryFilters } from '../../../../shared/contracts/history';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextField } from '../../../components/ui/field';
-import { entityNoun } from './describe-event';
+import { actionVerbs, entityNoun } from './describe-event';
 
 export interface PersonChoice {
   id: string;
   name: string;
 }
-
-const actionWords: Record<string, string> = {
-  create: 'added',
-  update: 'changed',
-  delete: 'deleted',
-  submitted: 'submitted for sign-off',
-  approved: 'approved',
-  returned: 'returned',
-};
 
 /** A day picked in the person's own time zone as the instant it starts ("2026-03-01" → local midnight, in UTC). */
 function dayStart(day: string, plusDays = 0): string | undefined {
@@ -85,7 +76,7 @@ export function HistoryFiltersForm({ filters, people, onChange }: HistoryFilters
         <option value="">Anything</option>
         {historyActions.map((value) => (
           <option key={value} value={value}>
-            {actionWords[value]}
+            {actionVerbs[value]}
           </option>
         ))}
       </SelectField>
