@@ -113,10 +113,10 @@ describe('compute in worker threads', () => {
 
 /**
  * The size rule on an app of its own. The answer's size is known only once the computation has run, and the time
- * limit counts that run: with the 0.3 s limit above, the map below (4,000 cells, a fraction of a second on an idle
- * machine, more on a worker that was just replaced and has not warmed up) was stopped with 503 compute_timeout
- * whenever other processes kept the cores busy. Here the time limit is 60 s, beyond the test's own timeout (30 s), so the only
- * rule that can refuse the answer is its size: still 20 kB, still 422 answer_too_large naming the size.
+ * limit counts that run: with the 0.3 s limit above, the map below (4,000 cells: a fraction of a second on an idle
+ * machine, several seconds on a fresh worker while other processes keep both cores busy) was stopped with 503
+ * compute_timeout under load. Here the time limit is 60 s, beyond the test's own timeout (30 s, vite.config.ts), so
+ * the only rule that can refuse the answer is its size: still 20 kB, still 422 answer_too_large naming the size.
  */
 describe('the answer size limit', () => {
   let sized: TestApp;
