@@ -1,10 +1,12 @@
 import { DrizzleAdapter } from '@auth/drizzle-adapter';
+import type { JWT } from '@auth/core/jwt';
 import type { ExpressAuthConfig } from '@auth/express';
 import Credentials from '@auth/express/providers/credentials';
 import { z } from 'zod';
 import type { Database } from '../db/client';
 import { accounts, authenticators, sessions, users, verificationTokens } from '../db/schema';
-import { bumpSessionGeneration, findUserByEmail, upgradePasswordHash } from '../modules/users/users.repository';
+import { isDatabaseUnavailable, reportDatabaseOutage } from '../db/availability';
+import { bumpSessionGeneration, findUserByEmail, findUserById, upgradePasswordHash } from '../modules/users/users.repository';
 import { roleSchema } from '../../shared/contracts/roles';
 import { hashPassword, passwordNeedsRehash, verifyPassword } from './password';
 
@@ -23,6 +25,32 @@ const expectedAuthErrors = new Set(['CredentialsSignin', 'JWTSessionError', 'Mis
 const claimsSchema = z.object({ organisationId: z.string(), role: roleSchema });
 /** The person's session generation at sign-in (docs/decisions/0017-session-generation.md). */
 const generationSchema = z.object({ sessionGeneration: z.number().int() });
+/** The same generation as the token carries it. */
+const generationClaimSchema = z.object({ generation: z.number().int() });
+
+/**
+ * Whether a token Auth.js has decrypted still stands: 'ended' when its person is gone, has no membership, or has
+ * another session generation (sign-out, password or role change; docs/decisions/0017-session-generation.md), or when
+ * it carries no generation (issued before generations existed, which the API refuses as well). 'unchecked' when the
+ * database cannot be reached: an outage must not end a session by mistake, so the token stands until the database
+ * is back (the API itself answers 503 meanwhile, compute aside).
+ */
+async function sessionState(db: Database, token: JWT): Promise<'current' | 'ended' | 'unchecked'> {
+  const generation = generationClaimSchema.safeParse(token);
+  if (typeof token.sub !== 'string' || !generation.success) return 'ended';
+  try {
+    const person = await findUserById(db, token.sub);
+    return person && person.sessionGeneration === generation.data.generation ? 'current' : 'ended';
+  } catch (error) {
+    if (!isDatabaseUnavailable(error)) {
+      // Auth.js files a throw here as an unreadable cookie (JWTSessionError, which the logger keeps quiet): say it.
+      process.stderr.write(`[auth] could not check the session: ${error instanceof Error ? error.message : String(error)}\n`);
+      throw error;
+    }
+    reportDatabaseOutage(error);
+    return 'unchecked';
+  }
+}
 
 export function createAuthConfig(options: { db: Database; secret: string }): ExpressAuthConfig {
   const { db } = options;
@@ -64,15 +92,21 @@ export function createAuthConfig(options: { db: Database; secret: string }): Exp
       }),
     ],
     callbacks: {
-      jwt({ token, user }) {
+      async jwt({ token, user }) {
         if (user) {
+          // Sign-in: the person was just read with their password, so the generation is current.
           const claims = claimsSchema.parse(user);
           token.sub = user.id;
           token.organisationId = claims.organisationId;
           token.role = claims.role;
           token.generation = generationSchema.parse(user).sessionGeneration;
+          return token;
         }
-        return token;
+        // Every later use of the cookie by Auth.js itself (GET /api/auth/session) checks it the way requireUser does,
+        // so that Auth.js never shows as signed in a session the API has ended (docs/decisions/0017). Returning null
+        // makes Auth.js answer "no session" and clear the cookie. One primary-key read per call of the endpoint.
+        const state = await sessionState(db, token);
+        return state === 'ended' ? null : token;
       },
       session({ session, token }) {
         // The role and organisation in the session are those at sign-in; the API reads the current ones per request.
