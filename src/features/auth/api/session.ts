@@ -70,10 +70,9 @@ export function useSignIn() {
  * 4. end the session on the server, then start the cache over.
  * If the server refuses, the person is put back and the signed-in layout returns them to the page they were on.
  */
-export function useSignOut() {
-  const queryClient = useQueryClient();
+export function signOutMutationOptions(queryClient: QueryClient, endSession: () => Promise<void> = signOut) {
   const sessionKey = meQueryOptions().queryKey;
-  return useMutation({
+  return {
     onMutate: async () => {
       await queryClient.cancelQueries({ queryKey: sessionKey, exact: true });
       const me = queryClient.getQueryData(sessionKey) ?? null;
@@ -81,10 +80,15 @@ export function useSignOut() {
       await queryClient.cancelQueries();
       return { me };
     },
-    mutationFn: signOut,
+    mutationFn: endSession,
     onSuccess: () => resetCacheForPerson(queryClient, null),
-    onError: (_error, _input, context) => {
+    onError: (_error: unknown, _input: void, context: { me: Me | null } | undefined) => {
       if (context?.me) queryClient.setQueryData(sessionKey, context.me);
     },
-  });
+  };
+}
+
+export function useSignOut() {
+  const queryClient = useQueryClient();
+  return useMutation(signOutMutationOptions(queryClient));
 }
