@@ -6,11 +6,12 @@ import { RequireSessionRoute } from './routes/require-session';
 import { RootErrorRoute, RouteError } from './routes/route-error';
 import { RootLayoutRoute, RootLoading } from './routes/root-layout';
 import { SignInRoute } from './routes/sign-in';
-import { requireSessionLoader, rootLoader } from './session';
+import { requireSessionLoader, rootLoader, whenSignedIn } from './session';
 
 const section = <RouteError />;
 
-// Pages off the first path (sign-in → projects) load on demand, each in its own chunk.
+// Pages off the first path (sign-in → projects) load on demand, each in its own chunk. Their loaders prefetch only
+// for a signed-in person (`whenSignedIn`).
 const about = () => import('./routes/about').then((module) => ({ Component: module.AboutRoute }));
 const devMail = () => import('./routes/dev-mail').then((module) => ({ Component: module.DevMailRoute }));
 const invitation = () => import('./routes/invitation').then((module) => ({ Component: module.InvitationRoute }));
@@ -19,30 +20,30 @@ const projectLayout = () => import('./routes/project-layout').then((module) => (
 const projectOverview = () => import('./routes/project-overview').then((module) => ({ Component: module.ProjectOverviewRoute }));
 const projectMembers = () => import('./routes/project-members').then((module) => ({ Component: module.ProjectMembersRoute }));
 const projectStructures = () =>
-  import('./routes/project-structures').then((module) => ({ Component: module.ProjectStructuresRoute, loader: module.projectStructuresLoader }));
+  import('./routes/project-structures').then((module) => ({ Component: module.ProjectStructuresRoute, loader: whenSignedIn(module.projectStructuresLoader) }));
 const projectStructure = () =>
-  import('./routes/project-structure').then((module) => ({ Component: module.ProjectStructureRoute, loader: module.projectStructureLoader }));
+  import('./routes/project-structure').then((module) => ({ Component: module.ProjectStructureRoute, loader: whenSignedIn(module.projectStructureLoader) }));
 const projectLoadCases = () =>
-  import('./routes/project-load-cases').then((module) => ({ Component: module.ProjectLoadCasesRoute, loader: module.projectLoadCasesLoader }));
+  import('./routes/project-load-cases').then((module) => ({ Component: module.ProjectLoadCasesRoute, loader: whenSignedIn(module.projectLoadCasesLoader) }));
 const projectComfortCriteria = () =>
   import('./routes/project-comfort-criteria').then((module) => ({
     Component: module.ProjectComfortCriteriaRoute,
-    loader: module.projectComfortCriteriaLoader,
+    loader: whenSignedIn(module.projectComfortCriteriaLoader),
   }));
 const tuningVariants = () =>
-  import('./routes/tuning-variants').then((module) => ({ Component: module.TuningVariantsRoute, loader: module.tuningVariantsLoader }));
+  import('./routes/tuning-variants').then((module) => ({ Component: module.TuningVariantsRoute, loader: whenSignedIn(module.tuningVariantsLoader) }));
 const tuningVariant = () =>
-  import('./routes/tuning-variant').then((module) => ({ Component: module.TuningVariantRoute, loader: module.tuningVariantLoader }));
+  import('./routes/tuning-variant').then((module) => ({ Component: module.TuningVariantRoute, loader: whenSignedIn(module.tuningVariantLoader) }));
 const tuningVariantEdit = () =>
-  import('./routes/tuning-variant').then((module) => ({ Component: module.TuningVariantEditRoute, loader: module.tuningVariantLoader }));
+  import('./routes/tuning-variant').then((module) => ({ Component: module.TuningVariantEditRoute, loader: whenSignedIn(module.tuningVariantLoader) }));
 const projectSiteRecords = () =>
-  import('./routes/project-site-records').then((module) => ({ Component: module.ProjectSiteRecordsRoute, loader: module.projectSiteRecordsLoader }));
+  import('./routes/project-site-records').then((module) => ({ Component: module.ProjectSiteRecordsRoute, loader: whenSignedIn(module.projectSiteRecordsLoader) }));
 const projectSignOff = () =>
-  import('./routes/project-sign-off').then((module) => ({ Component: module.ProjectSignOffRoute, loader: module.projectSignOffLoader }));
+  import('./routes/project-sign-off').then((module) => ({ Component: module.ProjectSignOffRoute, loader: whenSignedIn(module.projectSignOffLoader) }));
 const projectHardwareSheet = () =>
-  import('./routes/project-hardware-sheet').then((module) => ({ Component: module.ProjectHardwareSheetRoute, loader: module.projectHardwareSheetLoader }));
+  import('./routes/project-hardware-sheet').then((module) => ({ Component: module.ProjectHardwareSheetRoute, loader: whenSignedIn(module.projectHardwareSheetLoader) }));
 const projectHistory = () =>
-  import('./routes/project-history').then((module) => ({ Component: module.ProjectHistoryRoute, loader: module.projectHistoryLoader }));
+  import('./routes/project-history').then((module) => ({ Component: module.ProjectHistoryRoute, loader: whenSignedIn(module.projectHistoryLoader) }));
 const projectSection = (slug: string) => () =>
   import('./routes/project-section').then((module) => ({ Component: module.projectSectionRoute(slug) }));
 

@@ -1,4 +1,4 @@
-import { useQuery } from '@tanstack/react-query';
+import { useQuery, type QueryClient } from '@tanstack/react-query';
 import { redirect, type LoaderFunctionArgs } from 'react-router-dom';
 import type { Me } from '../../shared/contracts';
 import { appConfigQueryOptions, meQueryOptions } from '../features/auth/api/session';
@@ -18,6 +18,21 @@ export async function requireSessionLoader({ request }: LoaderFunctionArgs) {
     throw redirect(signInPath(url.pathname + url.search));
   }
   return null;
+}
+
+type Loader = (args: LoaderFunctionArgs) => unknown;
+
+/**
+ * The one rule for the loaders of signed-in pages: they prefetch only for a signed-in person. A deep link opened
+ * signed out (a mailed link) runs the child loaders beside `requireSessionLoader`, which sends the visitor to the
+ * sign-in page; without this rule they would fetch first and be answered 401. The session check shares the one
+ * request in flight for the session key, so signed in it costs nothing more.
+ */
+export function whenSignedIn<L extends Loader>(loader: L, client: QueryClient = queryClient) {
+  return async (args: LoaderFunctionArgs): Promise<Awaited<ReturnType<L>> | null> => {
+    if (!(await client.ensureQueryData(meQueryOptions()))) return null;
+    return (await loader(args)) as Awaited<ReturnType<L>>;
+  };
 }
 
 /** The sign-in page, which returns to `next` (a path and its query) afterwards. */

@@ -43,6 +43,7 @@ async function openHardwareSheet(page: Page) {
 describe('as-built records', () => {
   let projectId = '';
   let signOffId = '';
+  let recordedMassKg = 0;
 
   it('the fabricator records the units of an approved design and sees the deviation and an out-of-range warning', async () => {
     const { page } = browser;
@@ -91,6 +92,7 @@ describe('as-built records', () => {
 
     // Unit 1 5 % heavy; unit 2 tuned 10 % above the high end of the tuning range.
     const heavyKg = Math.round(massKg * 1.05);
+    recordedMassKg = heavyKg;
     const fastHz = Number((highHz * 1.1).toFixed(2));
     await mass1.fill(String(heavyKg));
     await section.getByLabel('Unit 2, tuned frequency [Hz]').fill(String(fastHz));
@@ -127,6 +129,35 @@ describe('as-built records', () => {
     await section.getByText(/the fabricator, an engineer or an admin records them/).waitFor();
     expect(await section.getByRole('button', { name: 'Add as-built record' }).count()).toBe(0);
     await browser.shot('as-built-03-viewer');
+    expect(browser.consoleErrors).toEqual([]);
+    await signOut(page);
+  });
+
+  it('shows the fabricator who reads US customary units those beside the SI values; the form says it takes SI', async () => {
+    const { page } = browser;
+    await signIn(page, baseUrl, 'fabricator@demo.stillspan.test');
+    await openFootbridge(page);
+    const setUnits = async (unitSystem: string) => (await api(page, 'PATCH', '/api/me/preferences', { unitSystem })).status;
+    expect(await setUnits('us-customary')).toBe(200);
+    try {
+      const section = await openHardwareSheet(page);
+      await page.reload();
+      await section.waitFor();
+      const form = section.getByRole('form', { name: 'Record the units as built' });
+      await form.getByRole('columnheader', { name: /^Moving mass \[kg, SI\]/ }).waitFor();
+      await form.getByText('This form takes SI units (kg, N/m, Hz)').waitFor();
+      const latest = section.getByRole('region', { name: 'Latest as-built record' });
+      const unit1 = latest.getByRole('row', { name: /^Unit 1/ });
+      // 1 lb = 0.45359237 kg exactly (NIST SP 811, appendix B.8); four significant figures beside the SI value.
+      const pounds = new Intl.NumberFormat('en-GB', { maximumSignificantDigits: 4 }).format(recordedMassKg / 0.45359237);
+      const kilograms = new Intl.NumberFormat('en-GB', { maximumSignificantDigits: 4 }).format(recordedMassKg);
+      await unit1.getByText(`${kilograms} kg · ${pounds} lb`, { exact: true }).waitFor();
+      await latest.getByRole('columnheader', { name: /^Spring rate \(N\/m · lbf\/in\)/ }).waitFor();
+      await browser.shot('as-built-04-us-customary');
+      await section.screenshot({ path: '/tmp/shots-client/as-built-us-customary.png' });
+    } finally {
+      expect(await setUnits('si')).toBe(200);
+    }
     expect(browser.consoleErrors).toEqual([]);
   });
 });

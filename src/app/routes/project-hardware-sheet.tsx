@@ -8,13 +8,10 @@ import { useCurrentUser } from '../session';
 import { Loading } from '../../components/ui/loading';
 import { PageTitle } from '../../components/ui/page-title';
 import { QueryError } from '../../components/ui/query-error';
-import { meQueryOptions } from '../../features/auth/api/session';
 import { queryClient } from '../../lib/query-client';
 import { useProjectContext } from './project-layout';
 
 export async function projectHardwareSheetLoader({ params }: LoaderFunctionArgs) {
-  // Loaders run beside the session check: without a session (a mailed link opened signed out) nothing is fetched.
-  if (!(await queryClient.ensureQueryData(meQueryOptions()))) return null;
   await queryClient.ensureQueryData(signOffsQueryOptions(params.projectId ?? '')).catch(() => undefined);
   return null;
 }

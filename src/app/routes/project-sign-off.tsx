@@ -12,7 +12,6 @@ import { Loading } from '../../components/ui/loading';
 import { PageTitle } from '../../components/ui/page-title';
 import { Panel } from '../../components/ui/panel';
 import { QueryError } from '../../components/ui/query-error';
-import { meQueryOptions } from '../../features/auth/api/session';
 import { queryClient } from '../../lib/query-client';
 import { useCurrentUser } from '../session';
 import { useProjectContext } from './project-layout';
@@ -21,8 +20,6 @@ const criteriaInWords = (signOff: SignOff) => <LimitLines lines={describeCriteri
 
 /** Prefetches the project's sign-offs; a failure is shown by the page itself. */
 export async function projectSignOffLoader({ params }: LoaderFunctionArgs) {
-  // Loaders run beside the session check: without a session (a mailed link opened signed out) nothing is fetched.
-  if (!(await queryClient.ensureQueryData(meQueryOptions()))) return null;
   await queryClient.ensureQueryData(signOffsQueryOptions(params.projectId ?? '')).catch(() => undefined);
   return null;
 }

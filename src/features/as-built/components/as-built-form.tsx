@@ -7,6 +7,7 @@ import { Notice } from '../../../components/ui/notice';
 import { applyServerIssues } from '../../../lib/form-errors';
 import { bodyResolver, dropBlank } from '../../../lib/form-resolver';
 import { numberOrUndefined } from '../../../lib/form-values';
+import { useDisplayUnits } from '../../../lib/display-units';
 import { formatNumber } from '../../../lib/format';
 import { useRecordAsBuilt } from '../api/as-built';
 
@@ -107,6 +108,9 @@ export function AsBuiltForm({ projectId, signOffId, design, latest }: { projectI
   });
 
   const id = (i: number, field: string) => `as-built-${signOffId.slice(0, 8)}-${i + 1}-${field}`;
+  // The record is typed in SI whatever the person's unit preference; for a US customary reader the labels say so.
+  const withUs = useDisplayUnits().system === 'us-customary';
+  const si = withUs ? ', SI' : '';
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Record the units as built" className="flex flex-col gap-4">
       {formError ? (
@@ -119,24 +123,30 @@ export function AsBuiltForm({ projectId, signOffId, design, latest }: { projectI
           <span aria-hidden="true">✕ </span>Some values need a correction; each is marked next to its field.
         </p>
       ) : null}
+      {withUs ? (
+        <p className="text-small text-ink-soft">
+          This form takes SI units (kg, N/m, Hz), as the hardware sheet&apos;s files do; the comparison shows the US customary
+          values beside them.
+        </p>
+      ) : null}
       <div className="overflow-x-auto">
         <table className="w-full border-collapse text-left text-small">
-          <caption className="sr-only">Measured values per unit</caption>
+          <caption className="sr-only">Measured values per unit, in SI units</caption>
           <thead>
             <tr>
               <th scope="col" className="border-b-2 border-paper-line px-2 py-2 text-caption font-semibold text-ink-muted">
                 Unit
               </th>
               <th scope="col" className="border-b-2 border-paper-line px-2 py-2 text-caption font-semibold text-ink-muted">
-                Moving mass [kg]
+                Moving mass [kg{si}]
                 <span className="block font-normal">design {formatNumber(design.movingMassPerUnitKg, 4)}</span>
               </th>
               <th scope="col" className="border-b-2 border-paper-line px-2 py-2 text-caption font-semibold text-ink-muted">
-                Spring rate [N/m] <span className="font-normal">(if measured)</span>
+                Spring rate [N/m{si}] <span className="font-normal">(if measured)</span>
                 <span className="block font-normal">design {formatNumber(design.springRatePerUnitNPerM, 4)}</span>
               </th>
               <th scope="col" className="border-b-2 border-paper-line px-2 py-2 text-caption font-semibold text-ink-muted">
-                Tuned frequency [Hz] <span className="font-normal">(if measured)</span>
+                Tuned frequency [Hz{si}] <span className="font-normal">(if measured)</span>
                 <span className="block font-normal">
                   design {formatNumber(design.frequencyHz, 4)}, range {formatNumber(design.frequencyLowHz, 3)}–{formatNumber(design.frequencyHighHz, 3)}
                 </span>

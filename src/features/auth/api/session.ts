@@ -61,10 +61,34 @@ export function useSignIn() {
   });
 }
 
+/**
+ * Signing out, in an order that lets no request leave once the session ends:
+ * 1. stop a session check in flight, so that it cannot bring the person back;
+ * 2. forget the person: the signed-in pages unmount (the signed-in layout sends them to the sign-in page), so none of
+ *    their queries fetches or refetches any more;
+ * 3. abort the requests still in flight;
+ * 4. end the session on the server, then start the cache over.
+ * If the server refuses, the person is put back and the signed-in layout returns them to the page they were on.
+ */
+export function signOutMutationOptions(queryClient: QueryClient, endSession: () => Promise<void> = signOut) {
+  const sessionKey = meQueryOptions().queryKey;
+  return {
+    onMutate: async () => {
+      await queryClient.cancelQueries({ queryKey: sessionKey, exact: true });
+      const me = queryClient.getQueryData(sessionKey) ?? null;
+      queryClient.setQueryData(sessionKey, null);
+      await queryClient.cancelQueries();
+      return { me };
+    },
+    mutationFn: endSession,
+    onSuccess: () => resetCacheForPerson(queryClient, null),
+    onError: (_error: unknown, _input: void, context: { me: Me | null } | undefined) => {
+      if (context?.me) queryClient.setQueryData(sessionKey, context.me);
+    },
+  };
+}
+
 export function useSignOut() {
   const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: signOut,
-    onSuccess: () => resetCacheForPerson(queryClient, null),
-  });
+  return useMutation(signOutMutationOptions(queryClient));
 }

@@ -3,8 +3,11 @@ import {
   memberListSchema,
   peopleListSchema,
   type CreateInvitationInput,
+  type Member,
+  type MemberList,
   type UpdateMemberRoleInput,
 } from '../../../../shared/contracts';
+import { fetchAllPages, pageSearch } from '../../../lib/all-pages';
 import { apiRequest } from '../../../lib/api-client';
 
 /** Keys form a tree: invalidating `all` refreshes both lists of the organisation. */
@@ -14,19 +17,30 @@ export const memberKeys = {
   people: ['organisation', 'people'] as const,
 };
 
-/** The organisation's people without invitations: readable by every member (used to add people to a project). */
+/**
+ * The organisation's people without invitations, all of them (the API pages them; every page is read): readable by
+ * every member (used to add people to a project).
+ */
 export const organisationPeopleQueryOptions = () =>
   queryOptions({
     queryKey: memberKeys.people,
-    queryFn: ({ signal }) => apiRequest('/api/organisation/people', { schema: peopleListSchema, signal }),
-    select: (data) => data.people,
+    queryFn: async ({ signal }): Promise<Member[]> => {
+      const pages = await fetchAllPages((query) => apiRequest(`/api/organisation/people${pageSearch(query)}`, { schema: peopleListSchema, signal }));
+      return pages.flatMap((page) => page.people);
+    },
   });
 
-/** The organisation's people and its invitations (administrators only). */
+/** Joins the pages of the members-and-invitations list; the API pages both lists together. */
+export function joinMemberPages(pages: MemberList[]): Pick<MemberList, 'members' | 'invitations'> {
+  return { members: pages.flatMap((page) => page.members), invitations: pages.flatMap((page) => page.invitations) };
+}
+
+/** The organisation's people and its invitations, all of them (administrators only). */
 export const organisationMembersQueryOptions = () =>
   queryOptions({
     queryKey: memberKeys.membersAndInvitations,
-    queryFn: ({ signal }) => apiRequest('/api/organisation/members', { schema: memberListSchema, signal }),
+    queryFn: async ({ signal }) =>
+      joinMemberPages(await fetchAllPages((query) => apiRequest(`/api/organisation/members${pageSearch(query)}`, { schema: memberListSchema, signal }))),
   });
 
 export function useInviteMember() {

@@ -7,8 +7,10 @@ import {
   type AddProjectMemberInput,
   type CreateProjectInput,
   type Project,
+  type ProjectMember,
   type UpdateProjectInput,
 } from '../../../../shared/contracts';
+import { fetchAllPages, pageSearch } from '../../../lib/all-pages';
 import { apiRequest } from '../../../lib/api-client';
 
 /** Keys form a tree, so invalidating ['projects'] refreshes the list, every project and their members. */
@@ -46,12 +48,16 @@ export const projectQueryOptions = (projectId: string) =>
     queryFn: ({ signal }) => apiRequest(`/api/projects/${encodeURIComponent(projectId)}`, { schema: projectSchema, signal }),
   });
 
+/** The project's members, all of them (the API pages them; every page is read). */
 export const projectMembersQueryOptions = (projectId: string) =>
   queryOptions({
     queryKey: projectKeys.members(projectId),
-    queryFn: ({ signal }) =>
-      apiRequest(`/api/projects/${encodeURIComponent(projectId)}/members`, { schema: projectMemberListSchema, signal }),
-    select: (data) => data.members,
+    queryFn: async ({ signal }): Promise<ProjectMember[]> => {
+      const pages = await fetchAllPages((query) =>
+        apiRequest(`/api/projects/${encodeURIComponent(projectId)}/members${pageSearch(query)}`, { schema: projectMemberListSchema, signal }),
+      );
+      return pages.flatMap((page) => page.members);
+    },
   });
 
 export function useCreateProject() {
