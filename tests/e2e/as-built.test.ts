@@ -8,32 +8,14 @@
 import { describe, expect, inject, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { browserForFile, signIn, signOut } from './browser';
+import { api, approvedFootbridgeCopy, openFootbridge } from './demo-design';
 
 const baseUrl = inject('baseUrl');
 const browser = browserForFile();
 const copyName = 'As-built check (invented demo variant)';
 
-/** A JSON request from the signed-in page (same origin, the session's cookie). */
-async function api(page: Page, method: string, path: string, body?: unknown): Promise<{ status: number; json: unknown }> {
-  return page.evaluate(
-    async ({ method, path, body }) => {
-      const response = await fetch(path, { method, headers: body ? { 'Content-Type': 'application/json' } : {}, body: body ? JSON.stringify(body) : undefined });
-      const text = await response.text();
-      return { status: response.status, json: text ? (JSON.parse(text) as unknown) : null };
-    },
-    { method, path, body },
-  );
-}
-
-async function openFootbridge(page: Page): Promise<string> {
-  await page.goto(`${baseUrl}/projects`);
-  await page.getByRole('link', { name: /Wrenmoor Mill footbridge/ }).first().click();
-  await page.waitForURL(/\/projects\/[0-9a-f-]{36}/);
-  return /\/projects\/([0-9a-f-]{36})/.exec(page.url())![1];
-}
-
 async function openHardwareSheet(page: Page) {
-  await openFootbridge(page);
+  await openFootbridge(page, baseUrl);
   await page.getByRole('navigation', { name: 'Project sections' }).getByRole('link', { name: /Hardware sheet/ }).click();
   const section = page.getByRole('region', { name: `As built · ${copyName}` });
   await section.waitFor();
@@ -47,29 +29,7 @@ describe('as-built records', () => {
 
   it('the fabricator records the units of an approved design and sees the deviation and an out-of-range warning', async () => {
     const { page } = browser;
-    await signIn(page, baseUrl, 'engineer@demo.stillspan.test');
-    projectId = await openFootbridge(page);
-    const list = (await api(page, 'GET', `/api/projects/${projectId}/variants`)).json as { variants: Array<Record<string, unknown>> };
-    const source = list.variants.find((v) => String(v.name).startsWith('Den Hartog 2 %'))!;
-    const created = await api(page, 'POST', `/api/projects/${projectId}/variants`, {
-      name: copyName,
-      modeId: source.modeId,
-      loadCaseIds: source.loadCaseIds,
-      criteriaId: source.criteriaId,
-      massRatio: source.massRatio,
-      tuning: source.tuning,
-      unitCount: 2,
-    });
-    expect(created.status).toBe(201);
-    const submitted = await api(page, 'POST', `/api/projects/${projectId}/sign-offs`, { variantId: (created.json as { id: string }).id });
-    expect(submitted.status).toBe(201);
-    signOffId = (submitted.json as { id: string }).id;
-    await signOut(page);
-
-    await signIn(page, baseUrl, 'owner@demo.stillspan.test');
-    await openFootbridge(page);
-    expect((await api(page, 'POST', `/api/projects/${projectId}/sign-offs/${signOffId}/approve`, { comment: 'For the workshop (e2e).' })).status).toBe(200);
-    await signOut(page);
+    ({ projectId, signOffId } = await approvedFootbridgeCopy(page, baseUrl, copyName));
 
     await signIn(page, baseUrl, 'fabricator@demo.stillspan.test');
     const section = await openHardwareSheet(page);
@@ -136,7 +96,7 @@ describe('as-built records', () => {
   it('shows the fabricator who reads US customary units those beside the SI values; the form says it takes SI', async () => {
     const { page } = browser;
     await signIn(page, baseUrl, 'fabricator@demo.stillspan.test');
-    await openFootbridge(page);
+    await openFootbridge(page, baseUrl);
     const setUnits = async (unitSystem: string) => (await api(page, 'PATCH', '/api/me/preferences', { unitSystem })).status;
     expect(await setUnits('us-customary')).toBe(200);
     try {
