@@ -10,6 +10,7 @@ import { fileURLToPath } from 'node:url';
 import { threadId } from 'node:worker_threads';
 import { Script } from 'node:vm';
 import process from 'node:process';
+import { setTimeout } from 'node:timers';
 
 export const root = resolve(dirname(fileURLToPath(import.meta.url)), '..', '..');
 export const defaultCacheDir = join(root, '.cache', 'engine');
@@ -153,4 +154,10 @@ export function loadEngineBundle(manifest, cacheDir = defaultCacheDir) {
       }
     },
   };
+}
+
+// `node server/workers/engine-bundle.mjs` (part of `npm run build`): builds the bundle unless a fresh one is there.
+if (process.argv[1] && resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
+  const manifest = await ensureEngineBundle();
+  process.stdout.write(`engine bundle: ${join(defaultCacheDir, manifest.build)}\n`);
 }

@@ -4,6 +4,7 @@
 // error), or when the pool asks for the sources, is the TypeScript loaded as such: imported directly when the process
 // already runs with a TypeScript loader (`node --import tsx`, inherited by worker threads), otherwise through tsx's
 // scoped import. See docs/decisions/0014-engine-worker-pool.md.
+import process from 'node:process';
 import { URL } from 'node:url';
 import { workerData } from 'piscina';
 import { ensureEngineBundle, loadEngineBundle, defaultCacheDir } from './engine-bundle.mjs';
