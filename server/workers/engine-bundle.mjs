@@ -17,8 +17,13 @@ export const defaultCacheDir = join(root, '.cache', 'engine');
 const entry = 'server/workers/engine-task.ts';
 const bundleName = 'engine-task.cjs';
 const manifestVersion = 1;
-/** A build older than this whose folder the manifest no longer names is removed; a build lock older than it is ignored. */
+/** A build older than this whose folder the manifest no longer names is removed. */
 const staleAfterMs = 60_000;
+/**
+ * A build lock older than this is taken over: its holder was ended mid-build (a worker terminated by a time limit or by
+ * the pool's closing). A build takes about a second; two at once are harmless, only wasteful.
+ */
+const lockStaleAfterMs = 10_000;
 
 function mtimeMs(path) {
   try {
@@ -86,7 +91,7 @@ const sleep = (ms) => new Promise((done) => setTimeout(done, ms));
 
 /**
  * A fresh manifest, building one when there is none. Several workers (and server processes) start at once: the first
- * takes a lock folder and builds, the others wait for its manifest (or build themselves once the lock is a minute old).
+ * takes a lock folder and builds, the others wait for its manifest (or take the lock over once it is 10 s old).
  */
 export async function ensureEngineBundle(cacheDir = defaultCacheDir) {
   const fresh = freshManifest(cacheDir);
@@ -100,7 +105,7 @@ export async function ensureEngineBundle(cacheDir = defaultCacheDir) {
     } catch (error) {
       if (error?.code !== 'EEXIST') throw error;
       const held = mtimeMs(lock);
-      if (held >= 0 && Date.now() - held > staleAfterMs) {
+      if (held >= 0 && Date.now() - held > lockStaleAfterMs) {
         rmSync(lock, { recursive: true, force: true });
         continue;
       }

@@ -4,7 +4,7 @@
  * older than a source is not used but built again. The requests are test inputs of our own (the records are synthetic
  * single-DOF oscillators made by the test helpers), not site data; the engineering itself is checked elsewhere.
  */
-import { existsSync, mkdtempSync, rmSync, utimesSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, rmSync, utimesSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -66,6 +66,20 @@ describe('the engine bundle', () => {
     expect(second.build).not.toBe(first.build);
     expect(freshManifest(cacheDir)?.build).toBe(second.build);
     expect(second.inputs).toEqual(expect.arrayContaining(['server/workers/engine-task.ts', 'shared/compute/commands.ts', 'package-lock.json']));
+  }, 60_000);
+
+  it('takes over a build lock left by a worker ended mid-build', async () => {
+    const before = await ensureEngineBundle(cacheDir);
+    const past = new Date('2001-01-01T00:00:00Z');
+    utimesSync(join(cacheDir, 'manifest.json'), past, past);
+    const lock = join(cacheDir, 'building.lock');
+    mkdirSync(lock);
+    utimesSync(lock, past, past);
+    const started = performance.now();
+    const after = await ensureEngineBundle(cacheDir);
+    expect(after.build).not.toBe(before.build);
+    expect(existsSync(lock)).toBe(false);
+    expect(performance.now() - started).toBeLessThan(30_000);
   }, 60_000);
 
   it('records a source that is gone as stale', async () => {
