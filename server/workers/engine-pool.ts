@@ -2,8 +2,10 @@
  * The pool of worker threads that runs the numerical engine off the server's event loop (piscina), so that no
  * single computation holds up other requests. Each task gets a time limit from the moment a worker starts it: a task
  * still running when it passes is ended by terminating its worker (piscina starts a new one) and answered 503
- * `compute_timeout`. A full queue, or a wait for a free worker beyond its own limit, is 503 `compute_busy`. Every module that runs engine work (compute commands, and later variants, sizing, site
- * records) goes through `runCommand`. The pool holds no state a second server process would need.
+ * `compute_timeout`. A full queue, or a wait for a free worker beyond its own limit, is 503 `compute_busy`. Every module that runs engine work goes through it: compute commands
+ * through `runCommand`, tuning variants and site records (their CSV parsed here too) through `runJob`. The workers
+ * load the engine from a prebuilt bundle (engine-bundle.mjs). The pool holds no state a second server process would
+ * need.
  */
 import { availableParallelism } from 'node:os';
 import { MessageChannel } from 'node:worker_threads';
