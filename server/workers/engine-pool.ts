@@ -2,8 +2,10 @@
  * The pool of worker threads that runs the numerical engine off the server's event loop (piscina), so that no
  * single computation holds up other requests. Each task gets a time limit from the moment a worker starts it: a task
  * still running when it passes is ended by terminating its worker (piscina starts a new one) and answered 503
- * `compute_timeout`. A full queue, or a wait for a free worker beyond its own limit, is 503 `compute_busy`. Every module that runs engine work (compute commands, and later variants, sizing, site
- * records) goes through `runCommand`. The pool holds no state a second server process would need.
+ * `compute_timeout`. A full queue, or a wait for a free worker beyond its own limit, is 503 `compute_busy`. Every module that runs engine work goes through it: compute commands
+ * through `runCommand`, tuning variants and site records (their CSV parsed here too) through `runJob`. The workers
+ * load the engine from a prebuilt bundle (engine-bundle.mjs). The pool holds no state a second server process would
+ * need.
  */
 import { availableParallelism } from 'node:os';
 import { MessageChannel } from 'node:worker_threads';
@@ -25,6 +27,13 @@ export interface EnginePoolOptions {
   maxAnswerBytes: number;
   /** Tasks waiting for a thread before new ones are refused (503 compute_busy). */
   maxQueue?: number;
+  /**
+   * Where the workers load the engine from: 'bundle' (default), the prebuilt minified bundle of engine-task
+   * (engine-bundle.mjs, rebuilt first when a source is newer), or 'sources', the TypeScript through tsx.
+   */
+  engineCode?: 'bundle' | 'sources';
+  /** Folder of the bundle's builds; default .cache/engine in the repository. */
+  engineCacheDir?: string;
 }
 
 export interface EnginePool {
@@ -41,6 +50,8 @@ export interface EnginePool {
    * limit and answer bound; the engine's refusal of the input is HttpError 400 invalid_request with its issues.
    */
   runJob<T = unknown>(job: EngineJob): Promise<T>;
+  /** Where a worker loaded the engine from: "bundle build-…" or "sources". */
+  engineOrigin(): Promise<string>;
   readonly threads: number;
   close(): Promise<void>;
 }
@@ -56,13 +67,14 @@ export function createEnginePool(options: EnginePoolOptions): EnginePool {
     maxQueue: options.maxQueue ?? threads * 64,
     // Workers stay up: starting one costs the loading of the engine.
     idleTimeout: Number.MAX_SAFE_INTEGER,
+    workerData: { engineCode: options.engineCode ?? 'bundle', engineCacheDir: options.engineCacheDir },
   });
   // A worker that fails to start must not crash the server; the task that needed it reports the error.
   piscina.on('error', (error: unknown) => {
     process.stderr.write(`[engine] worker error: ${error instanceof Error ? error.message : String(error)}\n`);
   });
 
-  async function runTask(fields: Pick<EngineTask, 'command' | 'request' | 'job'>): Promise<string> {
+  async function runTask(fields: Pick<EngineTask, 'command' | 'request' | 'job' | 'probe'>): Promise<string> {
     const { port1, port2 } = new MessageChannel();
     const task: EngineTask = { ...fields, maxAnswerBytes: options.maxAnswerBytes, startedPort: port2 };
     const controller = new AbortController();
@@ -115,6 +127,9 @@ export function createEnginePool(options: EnginePoolOptions): EnginePool {
     runCommand,
     async runJob<T>(job: EngineJob) {
       return JSON.parse(await runTask({ command: job.kind, request: null, job })) as T;
+    },
+    async engineOrigin() {
+      return JSON.parse(await runTask({ command: '', request: null, probe: 'origin' })) as string;
     },
     async runCommandValue<T>(command: string, request: unknown) {
       return JSON.parse(await runCommand(command, request)) as T;

@@ -8,12 +8,18 @@ import { getComputeCommand } from '../../shared/compute/commands';
 import { ComputeInputError, errorCodes } from '../../shared/compute/types';
 import { toApiIssues, type ApiIssue } from '../../shared/contracts/errors';
 import { computeVariantCurves, computeVariantResult, computeVariantSize, type VariantComputeInput } from '../../shared/compute/variant';
+import { HttpError } from '../lib/http-error';
+import { analyseRecordInline, type AnalyseRecordInput } from '../modules/site-records/site-record-analysis';
 
-/** Engine work of the server's own modules (not a compute command of the API): a tuning variant's computations. */
+/**
+ * Engine work of the server's own modules (not a compute command of the API): a tuning variant's computations, and a
+ * site record's reading (the CSV file parsed here, off the event loop) and analysis.
+ */
 export type EngineJob =
   | { kind: 'variant-result'; input: VariantComputeInput }
   | { kind: 'variant-size'; input: VariantComputeInput }
-  | { kind: 'variant-curves'; input: VariantComputeInput; loadCaseIndex: number };
+  | { kind: 'variant-curves'; input: VariantComputeInput; loadCaseIndex: number }
+  | { kind: 'site-record-analysis'; input: AnalyseRecordInput };
 
 function runJob(job: EngineJob): unknown {
   switch (job.kind) {
@@ -23,6 +29,8 @@ function runJob(job: EngineJob): unknown {
       return computeVariantSize(job.input);
     case 'variant-curves':
       return computeVariantCurves(job.input, job.loadCaseIndex);
+    case 'site-record-analysis':
+      return analyseRecordInline(job.input);
   }
 }
 
@@ -36,6 +44,8 @@ export interface EngineTask {
   maxAnswerBytes: number;
   /** The worker says "started" on it when the task begins to run (after the engine has loaded). */
   startedPort?: MessagePort;
+  /** Instead of engine work: the worker answers where its engine code came from ("bundle build-…" or "sources"). */
+  probe?: 'origin';
 }
 
 export type EngineTaskResult =
@@ -64,6 +74,8 @@ function serialise(answer: unknown, maxAnswerBytes: number): EngineTaskResult {
 function refusal(error: unknown): EngineTaskResult {
   // The engine's input checks throw ComputeInputError; anything else is a fault (500).
   if (error instanceof ComputeInputError) return { ok: false, status: 400, code: errorCodes.invalidRequest, message: error.message, issues: error.issues };
+  // A job of the server's own modules refuses its input as the module would (a site record's file: 400 naming it).
+  if (error instanceof HttpError) return { ok: false, status: error.status, code: error.code, message: error.message, issues: error.details };
   throw error;
 }
 

@@ -1,7 +1,7 @@
 /**
  * The analysis of one site record: read the stored file, pick the channel, run `identify`. Given the server's engine
- * pool, `identify` runs on a worker thread under the pool's time limit; the demo seed and unit tests run it inline.
- * Reading the CSV stays on the calling thread.
+ * pool, the whole of it (reading a CSV of up to 20 MB included) runs on a worker thread under the pool's time limit, as
+ * the job `site-record-analysis`, so the event loop only hands over the bytes; the demo seed and unit tests run it inline.
  */
 import { identifyCommand } from '../../../shared/compute/identify-command';
 import { ComputeInputError } from '../../../shared/compute/types';
@@ -72,7 +72,8 @@ export function recordTimeHistory(fileBytes: Uint8Array, channel: number, sample
   return { ...base, thinned: true, timesS, accelerationMPerS2: values };
 }
 
-export async function analyseRecord(input: AnalyseRecordInput, engine?: EnginePool): Promise<AnalysedRecord> {
+/** Reads the file and runs identify on the calling thread; refusals are HttpError 400 naming the field. */
+export function analyseRecordInline(input: AnalyseRecordInput): AnalysedRecord {
   let parsed: ParsedRecordFile;
   try {
     parsed = readStoredFile(input.fileBytes, input.channel, input.sampleRateHz);
@@ -102,9 +103,7 @@ export async function analyseRecord(input: AnalyseRecordInput, engine?: EnginePo
     throw new HttpError(400, 'invalid_request', issues.map((issue) => issue.message).join('; '), issues);
   }
   let analysis: IdentifyResponse;
-  // The pool's refusals are already HttpError 400 with the engine's issues.
-  if (engine) analysis = await engine.runCommandValue<IdentifyResponse>('identify', request.data);
-  else try {
+  try {
     analysis = identifyCommand.run(request.data);
   } catch (error) {
     if (error instanceof ComputeInputError) throw new HttpError(400, 'invalid_request', error.message, error.issues);
@@ -112,4 +111,13 @@ export async function analyseRecord(input: AnalyseRecordInput, engine?: EnginePo
   }
   const { accelerationMPerS2, ...file } = parsed;
   return { file: { ...file, sampleCount: accelerationMPerS2.length }, analysis };
+}
+
+/**
+ * The analysis, in the engine pool when one is given (the worker throws the same HttpError, which the pool hands back
+ * with its status, code, message and issues), else inline.
+ */
+export async function analyseRecord(input: AnalyseRecordInput, engine?: EnginePool): Promise<AnalysedRecord> {
+  if (engine) return engine.runJob<AnalysedRecord>({ kind: 'site-record-analysis', input });
+  return analyseRecordInline(input);
 }

@@ -1,0 +1,168 @@
+// The engine's worker threads start from a prebuilt JavaScript bundle of `engine-task.ts` (docs/decisions/0014), built
+// the way the `calc` bundles are (docs/decisions/0013): esbuild, minified, CommonJS, into .cache/engine/build-…/, with
+// .cache/engine/manifest.json naming the build and every source file that went into it. A worker reads the manifest,
+// checks that no source is newer than it (or gone), and runs the bundle through `vm.Script` with V8's code cache kept
+// beside it; a missing or stale build is built first (esbuild is imported only then), by one process at a time.
+import { mkdirSync, readdirSync, readFileSync, renameSync, rmSync, rmdirSync, statSync, writeFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { dirname, join, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { threadId } from 'node:worker_threads';
+import { Script } from 'node:vm';
+import process from 'node:process';
+import { setTimeout } from 'node:timers';
+
+export const root = resolve(dirname(fileURLToPath(import.meta.url)), '..', '..');
+export const defaultCacheDir = join(root, '.cache', 'engine');
+const entry = 'server/workers/engine-task.ts';
+const bundleName = 'engine-task.cjs';
+const manifestVersion = 1;
+/** A build older than this whose folder the manifest no longer names is removed. */
+const staleAfterMs = 60_000;
+/**
+ * A build lock older than this is taken over: its holder was ended mid-build (a worker terminated by a time limit or by
+ * the pool's closing). A build takes about a second; two at once are harmless, only wasteful.
+ */
+const lockStaleAfterMs = 10_000;
+
+function mtimeMs(path) {
+  try {
+    return statSync(path).mtimeMs;
+  } catch {
+    return -1;
+  }
+}
+
+/** The manifest in `cacheDir` when it exists and no recorded source is newer than it (or gone); else null. */
+export function freshManifest(cacheDir = defaultCacheDir) {
+  const manifestFile = join(cacheDir, 'manifest.json');
+  let manifest;
+  let built;
+  try {
+    built = statSync(manifestFile).mtimeMs;
+    manifest = JSON.parse(readFileSync(manifestFile, 'utf8'));
+  } catch {
+    return null;
+  }
+  if (manifest?.version !== manifestVersion || typeof manifest.build !== 'string' || !Array.isArray(manifest.inputs) || manifest.inputs.length === 0) return null;
+  for (const input of manifest.inputs) {
+    const time = mtimeMs(join(root, input));
+    if (time < 0 || time > built) return null;
+  }
+  return manifest;
+}
+
+/** Builds the bundle into a new folder of `cacheDir` and renames the manifest into place (atomic); returns it. */
+export async function buildEngineBundle(cacheDir = defaultCacheDir) {
+  const esbuild = await import('esbuild');
+  mkdirSync(cacheDir, { recursive: true });
+  const buildName = `build-${Date.now().toString(36)}-${process.pid}-${threadId}`;
+  const outdir = join(cacheDir, buildName);
+  const result = await esbuild.build({
+    entryPoints: { 'engine-task': entry },
+    outdir,
+    bundle: true,
+    minify: true,
+    platform: 'node',
+    format: 'cjs',
+    target: 'node20',
+    outExtension: { '.js': '.cjs' },
+    metafile: true,
+    logLevel: 'error',
+    logOverride: { 'import-is-undefined': 'error' },
+    absWorkingDir: root,
+  });
+  const inputs = new Set(['package.json', 'package-lock.json', 'server/workers/engine-bundle.mjs']);
+  for (const path of Object.keys(result.metafile.inputs)) if (!path.includes(':') && !path.includes('node_modules')) inputs.add(path);
+  const manifest = { version: manifestVersion, build: buildName, inputs: [...inputs] };
+  const manifestFile = join(cacheDir, 'manifest.json');
+  const temporary = `${manifestFile}.${process.pid}-${threadId}.tmp`;
+  writeFileSync(temporary, JSON.stringify(manifest));
+  renameSync(temporary, manifestFile);
+  for (const name of readdirSync(cacheDir)) {
+    if (!name.startsWith('build-') || name === buildName) continue;
+    const path = join(cacheDir, name);
+    if (Date.now() - mtimeMs(path) > staleAfterMs) rmSync(path, { recursive: true, force: true });
+  }
+  return manifest;
+}
+
+const sleep = (ms) => new Promise((done) => setTimeout(done, ms));
+
+/**
+ * A fresh manifest, building one when there is none. Several workers (and server processes) start at once: the first
+ * takes a lock folder and builds, the others wait for its manifest (or take the lock over once it is 10 s old).
+ */
+export async function ensureEngineBundle(cacheDir = defaultCacheDir) {
+  const fresh = freshManifest(cacheDir);
+  if (fresh) return fresh;
+  mkdirSync(cacheDir, { recursive: true });
+  const lock = join(cacheDir, 'building.lock');
+  for (;;) {
+    try {
+      mkdirSync(lock);
+      break;
+    } catch (error) {
+      if (error?.code !== 'EEXIST') throw error;
+      const held = mtimeMs(lock);
+      if (held >= 0 && Date.now() - held > lockStaleAfterMs) {
+        rmSync(lock, { recursive: true, force: true });
+        continue;
+      }
+      await sleep(50);
+      const built = freshManifest(cacheDir);
+      if (built) return built;
+    }
+  }
+  try {
+    return freshManifest(cacheDir) ?? (await buildEngineBundle(cacheDir));
+  } finally {
+    try {
+      rmdirSync(lock);
+    } catch {
+      // Removed already as stale by another process.
+    }
+  }
+}
+
+/**
+ * Runs the bundle of `manifest` (CommonJS through `vm.Script`, with V8's code cache from beside it when there is one)
+ * and returns its exports with `writeCodeCache()`, to be called once the first task has run so that the cache holds
+ * the functions that ran compiled; it writes only when the cache was missing or refused (another Node version).
+ */
+export function loadEngineBundle(manifest, cacheDir = defaultCacheDir) {
+  const file = join(cacheDir, manifest.build, bundleName);
+  const cacheFile = `${file}.v8cache`;
+  let cachedData;
+  try {
+    cachedData = readFileSync(cacheFile);
+  } catch {
+    cachedData = undefined;
+  }
+  const source = `(function (exports, require, module, __filename, __dirname) {${readFileSync(file, 'utf8')}\n})`;
+  const script = new Script(source, { filename: file, cachedData });
+  let pending = cachedData === undefined || script.cachedDataRejected === true;
+  const module = { exports: {} };
+  script.runInThisContext()(module.exports, createRequire(file), module, file, dirname(file));
+  return {
+    exports: module.exports,
+    build: manifest.build,
+    writeCodeCache() {
+      if (!pending) return;
+      pending = false;
+      try {
+        const temporary = `${cacheFile}.${process.pid}-${threadId}.tmp`;
+        writeFileSync(temporary, script.createCachedData());
+        renameSync(temporary, cacheFile);
+      } catch {
+        // A cache is an optimisation only: without it the bundle is compiled as usual.
+      }
+    },
+  };
+}
+
+// `node server/workers/engine-bundle.mjs` (part of `npm run build`): builds the bundle unless a fresh one is there.
+if (process.argv[1] && resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
+  const manifest = await ensureEngineBundle();
+  process.stdout.write(`engine bundle: ${join(defaultCacheDir, manifest.build)}\n`);
+}
