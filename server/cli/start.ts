@@ -9,6 +9,7 @@ import { repoRoot, type RunningCluster } from '../db/cluster';
 import { EnvError, getEnv } from '../env';
 import { startServer, type RunningServer } from '../server';
 import { startProjectDatabaseUnlessGiven, stopOnSignals } from './project-database';
+import { ensureEngineBundle } from '../workers/engine-bundle.mjs';
 
 let cluster: RunningCluster | null = null;
 let server: RunningServer | null = null;
@@ -21,6 +22,15 @@ async function stopAll(code: number): Promise<never> {
     await cluster?.stop().catch((error: unknown) => process.stderr.write(`[postgres] could not stop: ${String(error)}\n`));
   }
   process.exit(code);
+}
+
+/** The engine workers' bundle, so that the first computation does not wait for it (the workers fall back to the sources). */
+async function buildEngineBundle(): Promise<void> {
+  try {
+    await ensureEngineBundle();
+  } catch (error) {
+    process.stderr.write(`[engine] could not build the engine bundle: ${error instanceof Error ? error.message : String(error)}\n`);
+  }
 }
 
 function buildClient(): Promise<void> {
@@ -42,6 +52,8 @@ async function main(): Promise<void> {
   cluster = await startProjectDatabaseUnlessGiven(env.pgPort);
   if (stopping) return;
   await buildClient();
+  if (stopping) return;
+  await buildEngineBundle();
   if (stopping) return;
   server = await startServer({ ...env, databaseUrl: cluster?.url ?? env.databaseUrl });
   process.stdout.write(`[stillspan] open ${env.appUrl} — Ctrl-C stops the server${cluster?.startedHere ? ' and its PostgreSQL' : ''}\n`);

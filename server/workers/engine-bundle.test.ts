@@ -10,7 +10,6 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ambientRecord } from '../../shared/engine/signal/test-records';
 import { createEnginePool, type EnginePool } from './engine-pool';
-// @ts-expect-error: plain JavaScript module without type declarations
 import { buildEngineBundle, ensureEngineBundle, freshManifest, loadEngineBundle } from './engine-bundle.mjs';
 import { runEngineTask, type EngineTask, type EngineTaskResult } from './engine-task';
 
