@@ -11,7 +11,7 @@ import { preferencesSchema } from '../../shared/contracts/preferences';
 import { assessResponseSchema } from '../../shared/contracts/compute-design';
 import { projectSchema } from '../../shared/contracts/projects';
 import { roles, type Role } from '../../shared/contracts/roles';
-import { populateTestDesign, testCriteriaSpec, testCrowdSpec, testMode, testWalkerSpec, type TestDesignIds } from '../support/design-fixture';
+import { createTestVariant, populateTestDesign, testVariantBody, testCriteriaSpec, testCrowdSpec, testMode, testWalkerSpec, type TestDesignIds } from '../support/design-fixture';
 import { createTestApp, signIn, type Agent, type TestApp } from '../support/test-app';
 
 let t: TestApp;
@@ -37,24 +37,9 @@ let theirs: Ids;
 const variantsOf = (ids: Ids) => `/api/projects/${ids.projectId}/variants`;
 const modeUrl = (ids: Ids) => `/api/projects/${ids.projectId}/structures/${ids.structureId}/modes/${ids.modeId}`;
 
-function variantBody(ids: Ids, over: Record<string, unknown> = {}) {
-  return {
-    name: 'Test Den Hartog 2 %',
-    modeId: ids.modeId,
-    loadCaseIds: [ids.crowdId, ids.walkerId],
-    criteriaId: ids.criteriaId,
-    massRatio: 0.02,
-    tuning: { method: 'den-hartog' },
-    unitCount: 2,
-    ...over,
-  };
-}
-
-async function create(ids: Ids, over: Record<string, unknown> = {}): Promise<Variant> {
-  const response = await agents.engineer.post(variantsOf(ids)).send(variantBody(ids, over));
-  expect(response.status, JSON.stringify(response.body)).toBe(201);
-  return variantSchema.parse(response.body);
-}
+/** The fixture's variant with two units. */
+const variantBody = (ids: Ids, over: Record<string, unknown> = {}) => testVariantBody(ids, { unitCount: 2, ...over });
+const create = (ids: Ids, over: Record<string, unknown> = {}): Promise<Variant> => createTestVariant(agents.engineer, ids, { unitCount: 2, ...over });
 
 /** POST /api/compute/assess: the same command as `calc assess`. */
 async function assess(body: Record<string, unknown>) {
