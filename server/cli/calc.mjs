@@ -8,11 +8,10 @@
 // command only the core), with V8's code cache kept beside each bundle so that its functions are not compiled again
 // at every start. A missing or stale build is rebuilt first (esbuild is imported only then).
 import { statSync, readFileSync, mkdirSync, renameSync, writeFileSync, readdirSync, rmSync } from 'node:fs';
-import { createRequire } from 'node:module';
-import { Script } from 'node:vm';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import process from 'node:process';
+import { nodeBundleOptions, runCachedBundle } from '../lib/cached-bundle.mjs';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..', '..');
 const cacheDir = join(root, '.cache', 'calc');
@@ -97,36 +96,18 @@ const entries = {
   },
 };
 
-/** Scripts whose code cache is missing or was refused, written after the command has run (with what it compiled). */
+/** The bundles run so far, whose code cache is written after the command has run (with what it compiled). */
 const pendingCaches = [];
 
 /** Runs a CommonJS bundle of the build, with V8's code cache from beside it when there is one. */
 function loadBundle(file) {
-  const cacheFile = `${file}.v8cache`;
-  let cachedData;
-  try {
-    cachedData = readFileSync(cacheFile);
-  } catch {
-    cachedData = undefined;
-  }
-  const source = `(function (exports, require, module, __filename, __dirname) {${readFileSync(file, 'utf8')}\n})`;
-  const script = new Script(source, { filename: file, cachedData });
-  if (cachedData === undefined || script.cachedDataRejected) pendingCaches.push({ script, cacheFile });
-  const module = { exports: {} };
-  script.runInThisContext()(module.exports, createRequire(file), module, file, dirname(file));
-  return module.exports;
+  const loaded = runCachedBundle(file);
+  pendingCaches.push(loaded);
+  return loaded.exports;
 }
 
 function writeCodeCaches() {
-  for (const { script, cacheFile } of pendingCaches.splice(0)) {
-    try {
-      const temporary = `${cacheFile}.${process.pid}.tmp`;
-      writeFileSync(temporary, script.createCachedData());
-      renameSync(temporary, cacheFile);
-    } catch {
-      // A cache is an optimisation only: without it the bundle is compiled as usual.
-    }
-  }
+  for (const loaded of pendingCaches.splice(0)) loaded.writeCodeCache();
 }
 
 function isCommand(value) {
@@ -146,21 +127,7 @@ async function build() {
   mkdirSync(cacheDir, { recursive: true });
   const buildName = `build-${Date.now().toString(36)}-${process.pid}`;
   const outdir = join(cacheDir, buildName);
-  const result = await esbuild.build({
-    entryPoints,
-    outdir,
-    bundle: true,
-    minify: true,
-    platform: 'node',
-    format: 'cjs',
-    target: 'node20',
-    outExtension: { '.js': '.cjs' },
-    metafile: true,
-    logLevel: 'error',
-    logOverride: { 'import-is-undefined': 'error' },
-    absWorkingDir: root,
-    plugins: [leanZod, entries],
-  });
+  const result = await esbuild.build({ ...nodeBundleOptions, entryPoints, outdir, absWorkingDir: root, plugins: [leanZod, entries] });
   // Every command of the registry, and the bundle (module of commands) that holds it; the registry's own bundle
   // answers for a command defined anywhere else. (Loading them here leaves no code cache: the first run writes it.)
   const all = loadBundle(join(outdir, 'all.cjs'));
@@ -183,7 +150,7 @@ async function build() {
       }
     }
   }
-  const inputs = new Set(['package.json', 'package-lock.json', 'server/cli/calc.mjs']);
+  const inputs = new Set(['package.json', 'package-lock.json', 'server/cli/calc.mjs', 'server/lib/cached-bundle.mjs']);
   for (const path of Object.keys(probe.metafile.inputs)) if (!path.includes(':') && !path.includes('node_modules')) inputs.add(path);
   for (const path of Object.keys(result.metafile.inputs)) if (!path.includes(':') && !path.includes('node_modules')) inputs.add(path);
   const manifest = { version: 3, build: buildName, inputs: [...inputs], commands };

@@ -4,12 +4,11 @@
 // checks that no source is newer than it (or gone), and runs the bundle through `vm.Script` with V8's code cache kept
 // beside it; a missing or stale build is built first (esbuild is imported only then), by one process at a time.
 import { mkdirSync, readdirSync, readFileSync, renameSync, rmSync, rmdirSync, statSync, writeFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { threadId } from 'node:worker_threads';
-import { Script } from 'node:vm';
 import process from 'node:process';
+import { nodeBundleOptions, runCachedBundle } from '../lib/cached-bundle.mjs';
 import { setTimeout } from 'node:timers';
 
 export const root = resolve(dirname(fileURLToPath(import.meta.url)), '..', '..');
@@ -58,21 +57,8 @@ export async function buildEngineBundle(cacheDir = defaultCacheDir) {
   mkdirSync(cacheDir, { recursive: true });
   const buildName = `build-${Date.now().toString(36)}-${process.pid}-${threadId}`;
   const outdir = join(cacheDir, buildName);
-  const result = await esbuild.build({
-    entryPoints: { 'engine-task': entry },
-    outdir,
-    bundle: true,
-    minify: true,
-    platform: 'node',
-    format: 'cjs',
-    target: 'node20',
-    outExtension: { '.js': '.cjs' },
-    metafile: true,
-    logLevel: 'error',
-    logOverride: { 'import-is-undefined': 'error' },
-    absWorkingDir: root,
-  });
-  const inputs = new Set(['package.json', 'package-lock.json', 'server/workers/engine-bundle.mjs']);
+  const result = await esbuild.build({ ...nodeBundleOptions, entryPoints: { 'engine-task': entry }, outdir, absWorkingDir: root });
+  const inputs = new Set(['package.json', 'package-lock.json', 'server/workers/engine-bundle.mjs', 'server/lib/cached-bundle.mjs']);
   for (const path of Object.keys(result.metafile.inputs)) if (!path.includes(':') && !path.includes('node_modules')) inputs.add(path);
   const manifest = { version: manifestVersion, build: buildName, inputs: [...inputs] };
   const manifestFile = join(cacheDir, 'manifest.json');
@@ -131,34 +117,7 @@ export async function ensureEngineBundle(cacheDir = defaultCacheDir) {
  * the functions that ran compiled; it writes only when the cache was missing or refused (another Node version).
  */
 export function loadEngineBundle(manifest, cacheDir = defaultCacheDir) {
-  const file = join(cacheDir, manifest.build, bundleName);
-  const cacheFile = `${file}.v8cache`;
-  let cachedData;
-  try {
-    cachedData = readFileSync(cacheFile);
-  } catch {
-    cachedData = undefined;
-  }
-  const source = `(function (exports, require, module, __filename, __dirname) {${readFileSync(file, 'utf8')}\n})`;
-  const script = new Script(source, { filename: file, cachedData });
-  let pending = cachedData === undefined || script.cachedDataRejected === true;
-  const module = { exports: {} };
-  script.runInThisContext()(module.exports, createRequire(file), module, file, dirname(file));
-  return {
-    exports: module.exports,
-    build: manifest.build,
-    writeCodeCache() {
-      if (!pending) return;
-      pending = false;
-      try {
-        const temporary = `${cacheFile}.${process.pid}-${threadId}.tmp`;
-        writeFileSync(temporary, script.createCachedData());
-        renameSync(temporary, cacheFile);
-      } catch {
-        // A cache is an optimisation only: without it the bundle is compiled as usual.
-      }
-    },
-  };
+  return { ...runCachedBundle(join(cacheDir, manifest.build, bundleName)), build: manifest.build };
 }
 
 // `node server/workers/engine-bundle.mjs` (part of `npm run build`): builds the bundle unless a fresh one is there.
