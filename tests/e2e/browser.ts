@@ -120,3 +120,13 @@ export async function signOut(page: Page): Promise<void> {
   await page.getByRole('heading', { name: 'Sign in', exact: true }).waitFor();
   expect(new URL(page.url()).pathname).toBe('/sign-in');
 }
+
+/** Creates a project with the projects page's form (signed in as an engineer or admin) and opens it. */
+export async function createAndOpenProject(page: Page, projectName: string): Promise<void> {
+  await page.getByRole('button', { name: 'New project' }).click();
+  const newProject = page.getByRole('form', { name: 'New project' });
+  await newProject.getByLabel('Project name').fill(projectName);
+  await newProject.getByRole('button', { name: 'Create project' }).click();
+  await page.getByRole('list', { name: 'Projects' }).getByRole('link', { name: projectName }).click();
+  await page.getByRole('heading', { level: 1, name: projectName }).waitFor();
+}

@@ -5,7 +5,7 @@
  * numbers are invented.
  */
 import { describe, inject, it } from 'vitest';
-import { browserForFile, signIn, signOut } from './browser';
+import { browserForFile, createAndOpenProject, signIn, signOut } from './browser';
 
 const baseUrl = inject('baseUrl');
 const stamp = Date.now().toString(36);
@@ -18,12 +18,7 @@ describe('project history in the browser', () => {
   it('shows the engineer a change with its person, its thing and the value before and after', async () => {
     const { page } = browser;
     await signIn(page, baseUrl, 'engineer@demo.stillspan.test');
-    await page.getByRole('button', { name: 'New project' }).click();
-    const newProject = page.getByRole('form', { name: 'New project' });
-    await newProject.getByLabel('Project name').fill(projectName);
-    await newProject.getByRole('button', { name: 'Create project' }).click();
-    await page.getByRole('list', { name: 'Projects' }).getByRole('link', { name: projectName }).click();
-    await page.getByRole('heading', { level: 1, name: projectName }).waitFor();
+    await createAndOpenProject(page, projectName);
 
     const sections = page.getByRole('navigation', { name: 'Project sections' });
     await sections.getByRole('link', { name: 'Structures and modes' }).click();

@@ -6,7 +6,7 @@
  */
 import { describe, expect, inject, it } from 'vitest';
 import { lumpedModelListSchema } from '../../shared/contracts';
-import { browserForFile, signIn, signOut } from './browser';
+import { browserForFile, createAndOpenProject, signIn, signOut } from './browser';
 
 const baseUrl = inject('baseUrl');
 const stamp = Date.now().toString(36);
@@ -27,12 +27,7 @@ describe('structural model in the browser', () => {
   it('lets the engineer add a structure with a beam-derived mode', async () => {
     const { page } = browser;
     await signIn(page, baseUrl, 'engineer@demo.stillspan.test');
-    await page.getByRole('button', { name: 'New project' }).click();
-    const newProject = page.getByRole('form', { name: 'New project' });
-    await newProject.getByLabel('Project name').fill(projectName);
-    await newProject.getByRole('button', { name: 'Create project' }).click();
-    await page.getByRole('list', { name: 'Projects' }).getByRole('link', { name: projectName }).click();
-    await page.getByRole('heading', { level: 1, name: projectName }).waitFor();
+    await createAndOpenProject(page, projectName);
 
     await page.getByRole('navigation', { name: 'Project sections' }).getByRole('link', { name: 'Structures and modes' }).click();
     await page.getByText('No structures yet.').waitFor();
