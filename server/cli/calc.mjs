@@ -7,11 +7,11 @@
 // no source is newer than the manifest, and loads only the bundle of the command asked for (`--help` and an unknown
 // command only the core), with V8's code cache kept beside each bundle so that its functions are not compiled again
 // at every start. A missing or stale build is rebuilt first (esbuild is imported only then).
-import { statSync, readFileSync, mkdirSync, renameSync, writeFileSync, readdirSync, rmSync } from 'node:fs';
+import { mkdirSync, readdirSync, rmSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import process from 'node:process';
-import { nodeBundleOptions, runCachedBundle } from '../lib/cached-bundle.mjs';
+import { mtimeMs, nodeBundleOptions, readFreshManifest, runCachedBundle, writeManifest } from '../lib/cached-bundle.mjs';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..', '..');
 const cacheDir = join(root, '.cache', 'calc');
@@ -20,30 +20,9 @@ const registry = 'shared/compute/commands.ts';
 const core = 'server/cli/calc-core.ts';
 const errorsModule = 'shared/contracts/errors.ts';
 
-function mtimeMs(path) {
-  try {
-    return statSync(path).mtimeMs;
-  } catch {
-    return -1;
-  }
-}
-
 /** The manifest when it exists and no recorded source is newer than it (or gone); else null. */
 function freshManifest() {
-  let manifest;
-  let built;
-  try {
-    built = statSync(manifestFile).mtimeMs;
-    manifest = JSON.parse(readFileSync(manifestFile, 'utf8'));
-  } catch {
-    return null;
-  }
-  if (manifest?.version !== 3 || !Array.isArray(manifest.inputs) || manifest.inputs.length === 0) return null;
-  for (const input of manifest.inputs) {
-    const time = mtimeMs(join(root, input));
-    if (time < 0 || time > built) return null;
-  }
-  return manifest;
+  return readFreshManifest(manifestFile, root, 3);
 }
 
 /**
@@ -155,9 +134,7 @@ async function build() {
   for (const path of Object.keys(result.metafile.inputs)) if (!path.includes(':') && !path.includes('node_modules')) inputs.add(path);
   const manifest = { version: 3, build: buildName, inputs: [...inputs], commands };
   // Rename is atomic: a concurrent calc reads either the old manifest (whose build stays) or the new one.
-  const temporary = `${manifestFile}.${process.pid}.tmp`;
-  writeFileSync(temporary, JSON.stringify(manifest));
-  renameSync(temporary, manifestFile);
+  writeManifest(manifestFile, manifest);
   // Builds older than a minute that the manifest no longer names are left from earlier sources: remove them.
   for (const name of readdirSync(cacheDir)) {
     if (!name.startsWith('build-') || name === buildName) continue;

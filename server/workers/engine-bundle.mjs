@@ -3,12 +3,12 @@
 // .cache/engine/manifest.json naming the build and every source file that went into it. A worker reads the manifest,
 // checks that no source is newer than it (or gone), and runs the bundle through `vm.Script` with V8's code cache kept
 // beside it; a missing or stale build is built first (esbuild is imported only then), by one process at a time.
-import { mkdirSync, readdirSync, readFileSync, renameSync, rmSync, rmdirSync, statSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readdirSync, rmSync, rmdirSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { threadId } from 'node:worker_threads';
 import process from 'node:process';
-import { nodeBundleOptions, runCachedBundle } from '../lib/cached-bundle.mjs';
+import { mtimeMs, nodeBundleOptions, readFreshManifest, runCachedBundle, writeManifest } from '../lib/cached-bundle.mjs';
 import { setTimeout } from 'node:timers';
 
 export const root = resolve(dirname(fileURLToPath(import.meta.url)), '..', '..');
@@ -24,31 +24,10 @@ const staleAfterMs = 60_000;
  */
 const lockStaleAfterMs = 10_000;
 
-function mtimeMs(path) {
-  try {
-    return statSync(path).mtimeMs;
-  } catch {
-    return -1;
-  }
-}
-
 /** The manifest in `cacheDir` when it exists and no recorded source is newer than it (or gone); else null. */
 export function freshManifest(cacheDir = defaultCacheDir) {
-  const manifestFile = join(cacheDir, 'manifest.json');
-  let manifest;
-  let built;
-  try {
-    built = statSync(manifestFile).mtimeMs;
-    manifest = JSON.parse(readFileSync(manifestFile, 'utf8'));
-  } catch {
-    return null;
-  }
-  if (manifest?.version !== manifestVersion || typeof manifest.build !== 'string' || !Array.isArray(manifest.inputs) || manifest.inputs.length === 0) return null;
-  for (const input of manifest.inputs) {
-    const time = mtimeMs(join(root, input));
-    if (time < 0 || time > built) return null;
-  }
-  return manifest;
+  const manifest = readFreshManifest(join(cacheDir, 'manifest.json'), root, manifestVersion);
+  return manifest && typeof manifest.build === 'string' ? manifest : null;
 }
 
 /** Builds the bundle into a new folder of `cacheDir` and renames the manifest into place (atomic); returns it. */
@@ -61,10 +40,7 @@ export async function buildEngineBundle(cacheDir = defaultCacheDir) {
   const inputs = new Set(['package.json', 'package-lock.json', 'server/workers/engine-bundle.mjs', 'server/lib/cached-bundle.mjs']);
   for (const path of Object.keys(result.metafile.inputs)) if (!path.includes(':') && !path.includes('node_modules')) inputs.add(path);
   const manifest = { version: manifestVersion, build: buildName, inputs: [...inputs] };
-  const manifestFile = join(cacheDir, 'manifest.json');
-  const temporary = `${manifestFile}.${process.pid}-${threadId}.tmp`;
-  writeFileSync(temporary, JSON.stringify(manifest));
-  renameSync(temporary, manifestFile);
+  writeManifest(join(cacheDir, 'manifest.json'), manifest);
   for (const name of readdirSync(cacheDir)) {
     if (!name.startsWith('build-') || name === buildName) continue;
     const path = join(cacheDir, name);
