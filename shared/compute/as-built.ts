@@ -16,6 +16,7 @@ import type { SignOffSnapshot } from '../contracts/sign-offs';
 import type { HardwareSheetEntry } from '../contracts/compute-design';
 import type { AsBuiltComparison, AsBuiltUnitComparison, AsBuiltUnitInput, RangeVerdict } from '../contracts/as-built';
 import { governingHardwareEntry, HardwareSheetUnavailableError } from './hardware-sheet';
+import { massRatioWarningRange } from '../engine/design';
 
 /** Per-unit design numbers and tuning range of an approved damper (the "per unit" and "tuning range" rows of the sheet). */
 export interface AsBuiltDesign {
@@ -35,9 +36,6 @@ export interface AsBuiltDesign {
   totalMovingMassKg: number;
   modalMassKg: number;
 }
-
-/** Mass ratios outside this band get a warning (PRODUCT cautions: usual mass ratios 0.5–10 %). */
-export const USUAL_MASS_RATIO_RANGE = [0.005, 0.1] as const;
 
 /** Thrown when the approved result holds no hardware entry to compare with (the hardware sheet's own error). */
 export { HardwareSheetUnavailableError as AsBuiltDesignUnavailableError };
@@ -214,7 +212,8 @@ export function compareAsBuilt(design: AsBuiltDesign, units: readonly AsBuiltUni
   const builtMassRatio = allRecorded ? measuredTotalKg / design.modalMassKg : null;
 
   const warnings = compared.flatMap((unit) => unit.warnings);
-  if (builtMassRatio !== null && (builtMassRatio < USUAL_MASS_RATIO_RANGE[0] || builtMassRatio > USUAL_MASS_RATIO_RANGE[1])) {
+  // The design's own mass-ratio band (shared/engine/design.ts; PRODUCT cautions: usual mass ratios 0.5–10 %).
+  if (builtMassRatio !== null && (builtMassRatio < massRatioWarningRange[0] || builtMassRatio > massRatioWarningRange[1])) {
     warnings.push(
       `The mass ratio built, ${shown(builtMassRatio * 100)} %, is outside the usual 0.5–10 % of the modal mass; have the design checked for this damper`,
     );

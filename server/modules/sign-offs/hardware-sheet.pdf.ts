@@ -5,7 +5,7 @@
  */
 import PDFDocument from 'pdfkit';
 import { formatHardwareValue, type HardwareSheet } from '../../../shared/compute/hardware-sheet';
-import { latin, registerWorkSans } from '../../pdf/fonts';
+import { FONT_REGULAR, FONT_SEMIBOLD, latin, registerWorkSans } from '../../pdf/fonts';
 
 export function hardwareSheetPdf(sheet: HardwareSheet): Promise<Buffer> {
   const doc = new PDFDocument({ size: 'A4', margin: 48, info: { Title: `Hardware sheet ${sheet.projectName} ${sheet.revision}`, Creator: 'Stillspan' } });
@@ -19,8 +19,8 @@ export function hardwareSheetPdf(sheet: HardwareSheet): Promise<Buffer> {
 
   const left = doc.page.margins.left;
   const width = doc.page.width - left - doc.page.margins.right;
-  doc.font('WorkSans-SemiBold').fontSize(18).text('Hardware sheet', left);
-  doc.font('WorkSans').fontSize(11).text(`Project: ${sheet.projectName}`);
+  doc.font(FONT_SEMIBOLD).fontSize(18).text('Hardware sheet', left);
+  doc.font(FONT_REGULAR).fontSize(11).text(`Project: ${sheet.projectName}`);
   doc.text(`Tuning variant: ${sheet.variantName}`);
   doc.text(`Revision: ${sheet.revision}`);
   doc.moveDown(0.8);
@@ -45,13 +45,13 @@ export function hardwareSheetPdf(sheet: HardwareSheet): Promise<Buffer> {
     if (row.section !== section) {
       section = row.section;
       doc.moveDown(0.4);
-      line([section.toUpperCase(), '', '', ''], 'WorkSans-SemiBold');
+      line([section.toUpperCase(), '', '', ''], FONT_SEMIBOLD);
     }
-    line([latin(row.quantity), latin(formatHardwareValue(row.value)), latin(row.unit), latin(row.note)], 'WorkSans');
+    line([latin(row.quantity), latin(formatHardwareValue(row.value)), latin(row.unit), latin(row.note)], FONT_REGULAR);
   }
   doc.moveDown(1);
-  doc.font('WorkSans-SemiBold').fontSize(10).text('Caution', left, doc.y, { width });
-  doc.font('WorkSans').fontSize(10).text(sheet.caution, left, doc.y, { width });
+  doc.font(FONT_SEMIBOLD).fontSize(10).text('Caution', left, doc.y, { width });
+  doc.font(FONT_REGULAR).fontSize(10).text(sheet.caution, left, doc.y, { width });
   doc.end();
   return done;
 }

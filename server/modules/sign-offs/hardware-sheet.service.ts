@@ -8,6 +8,7 @@ import type { CurrentUser } from '../../middleware/auth';
 import { buildHardwareSheet, type HardwareSheet } from '../../../shared/compute/hardware-sheet';
 import { requireProjectScope } from '../structures/structures.service';
 import * as repository from './sign-offs.repository';
+import { fileNameSlug } from '../../lib/file-name';
 
 export async function getHardwareSheet(db: Database, user: CurrentUser, projectId: string, signOffId: string): Promise<HardwareSheet> {
   const scope = await requireProjectScope(db, user, projectId);
@@ -35,10 +36,6 @@ export async function getHardwareSheet(db: Database, user: CurrentUser, projectI
 
 /** A file name from the project's name and the sheet's revision (letters, digits, dashes). */
 export function hardwareSheetFileName(sheet: HardwareSheet, extension: 'csv' | 'pdf'): string {
-  const slug = sheet.projectName
-    .normalize('NFKD')
-    .replace(/[^A-Za-z0-9]+/g, '-')
-    .replace(/^-+|-+$/g, '')
-    .slice(0, 60);
+  const slug = fileNameSlug(sheet.projectName, 60);
   return `${slug || 'project'}-hardware-sheet-${sheet.revision}.${extension}`;
 }

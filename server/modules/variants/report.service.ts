@@ -6,6 +6,7 @@
  */
 import type { Database } from '../../db/client';
 import { HttpError } from '../../lib/http-error';
+import { fileNameSlug } from '../../lib/file-name';
 import type { CurrentUser } from '../../middleware/auth';
 import type { EnginePool } from '../../workers/engine-pool';
 import type { SavedMode } from '../../../shared/contracts/model';
@@ -101,12 +102,7 @@ export async function getVariantReport(db: Database, engine: EnginePool, user: C
 
 /** A file name from the project's and the variant's names and the report's revision (letters, digits, dashes). */
 export function variantReportFileName(data: VariantReportData): string {
-  const slug = (text: string) =>
-    text
-      .normalize('NFKD')
-      .replace(/[^A-Za-z0-9]+/g, '-')
-      .replace(/^-+|-+$/g, '')
-      .slice(0, 50);
+  const slug = (text: string) => fileNameSlug(text, 50);
   return `${slug(data.projectName) || 'project'}-${slug(data.variant.name) || 'variant'}-design-report-${variantReportRevision(data.variant)}.pdf`;
 }
 
