@@ -1,4 +1,4 @@
-import { formatNumber } from '../../../lib/format';
+import { formatNumber, formatSignedNumber } from '../../../lib/format';
 import { formatInUnits, toDisplay, unitLabel, type Quantity } from '../../../lib/units';
 
 /**
@@ -15,8 +15,7 @@ export function usCustomaryText(quantity: AsBuiltQuantity, siValue: number, sign
 
 /** A signed deviation in US customary units: "+22.05 lb", "−3.4 lbf/in" (the sign as the SI deviation shows it). */
 export function usCustomaryDeviation(quantity: AsBuiltQuantity, siDeviation: number, significant = 3): string {
-  const text = usCustomaryText(quantity, siDeviation, significant);
-  return siDeviation > 0 ? `+${text}` : text;
+  return `${formatSignedNumber(toDisplay(quantity, siDeviation, 'us-customary'), significant)} ${unitLabel(quantity, 'us-customary')}`;
 }
 
 /** A range in US customary units: "529.1–573.2 lb". */
