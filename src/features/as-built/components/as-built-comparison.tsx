@@ -116,7 +116,7 @@ export function AsBuiltComparisonView({ comparison, caption }: { comparison: AsB
             <Th>Moving mass{withUs ? ' (kg · lb)' : ''} · range at design springs</Th>
             <Th>Spring rate{withUs ? ' (N/m · lbf/in)' : ''} · range at design mass</Th>
             <Th>Tuned frequency, measured · tuning range</Th>
-            <Th>Frequency implied by k and m · tuning range</Th>
+            <Th>Frequency from spring rate and moving mass · tuning range</Th>
           </tr>
         </thead>
         <tbody>
