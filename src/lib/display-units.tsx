@@ -1,6 +1,5 @@
 import { createContext, useContext, useMemo } from 'react';
-import { formatNumber } from './format';
-import { fromDisplay, toDisplay, unitLabel, type Quantity, type UnitSystem } from './units';
+import { formatInUnits, fromDisplay, toDisplay, unitLabel, type Quantity, type UnitSystem } from './units';
 
 const UnitSystemContext = createContext<UnitSystem>('si');
 
@@ -29,7 +28,7 @@ export function useDisplayUnits(): DisplayUnits {
       toDisplay: (quantity, siValue) => toDisplay(quantity, siValue, system),
       toSI: (quantity, displayValue) => fromDisplay(quantity, displayValue, system),
       format: (quantity, siValue, significant = 4) =>
-        siValue === null || siValue === undefined ? '—' : `${formatNumber(toDisplay(quantity, siValue, system), significant)} ${unitLabel(quantity, system)}`,
+        siValue === null || siValue === undefined ? '—' : formatInUnits(quantity, siValue, system, significant),
     }),
     [system],
   );

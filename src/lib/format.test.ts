@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatNumber, formatPercent, formatQuantity } from './format';
+import { formatNumber, formatPercent, formatQuantity, formatSignedNumber } from './format';
 
 describe('formatNumber', () => {
   it('rounds to significant digits and groups thousands', () => {
@@ -18,6 +18,12 @@ describe('formatNumber', () => {
   it('says what an infinite or missing number is instead of printing NaN', () => {
     expect(formatNumber(Number.POSITIVE_INFINITY)).toBe('∞');
     expect(formatNumber(Number.NaN)).toBe('—');
+  });
+
+  it('shows the sign of a change both ways', () => {
+    expect(formatSignedNumber(10.44, 3)).toBe('+10.4');
+    expect(formatSignedNumber(-3.21, 2)).toBe('−3.2');
+    expect(formatSignedNumber(0)).toBe('0');
   });
 
   it('puts the unit after the number and ratios in percent', () => {

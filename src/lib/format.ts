@@ -78,6 +78,12 @@ function formatPowerOfTen(value: number, significant: number): string {
   return `${String(Number(mantissa)).replace('-', '−')} × 10${digits}`;
 }
 
+/** A change or deviation with its sign shown both ways: "+10.4", "−3.2", "0". */
+export function formatSignedNumber(value: number, significant = 4): string {
+  const text = formatNumber(value, significant);
+  return value > 0 ? `+${text}` : text;
+}
+
 /** A number with its SI unit: "1.873 Hz", "45,000 kg". */
 export function formatQuantity(value: number, unit: string, significant = 4): string {
   return `${formatNumber(value, significant)} ${unit}`;

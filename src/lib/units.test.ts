@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { fromDisplay, KG_PER_LB, M_PER_FT, M_PER_IN, N_PER_LBF, STANDARD_GRAVITY_M_PER_S2, toDisplay, unitLabel, type Quantity } from './units';
+import { formatInUnits, fromDisplay, KG_PER_LB, M_PER_FT, M_PER_IN, N_PER_LBF, STANDARD_GRAVITY_M_PER_S2, toDisplay, unitLabel, type Quantity } from './units';
 
 // Every definition below is NIST Special Publication 811 (2008), appendix B: the pound, inch and foot are exact by
 // definition (international yard and pound agreement of 1959), standard gravity is exact (3rd CGPM, 1901), and the
@@ -49,5 +49,12 @@ describe('display units against NIST SP 811', () => {
         expect(fromDisplay(quantity, toDisplay(quantity, 3.14159, system), system)).toBeCloseTo(3.14159, 12);
       }
     }
+  });
+
+  it('writes a value with the unit of the system (NIST SP 811: 1 lb = 0.45359237 kg, 1 in = 0.0254 m, exact)', () => {
+    expect(formatInUnits('mass', 45.359237, 'us-customary')).toBe('100 lb');
+    expect(formatInUnits('displacement', 0.0254, 'us-customary')).toBe('1 in');
+    expect(formatInUnits('displacement', 0.0125, 'si')).toBe('12.5 mm');
+    expect(formatInUnits('mass', 300, 'us-customary', 6)).toBe('661.387 lb'); // 300 / 0.45359237 = 661.387…
   });
 });

@@ -12,6 +12,7 @@
  */
 
 import type { UnitSystem } from '../../shared/contracts/preferences';
+import { formatNumber } from './format';
 
 export type { UnitSystem };
 
@@ -81,6 +82,11 @@ export function toDisplay(quantity: Quantity, siValue: number, system: UnitSyste
 /** A value typed in the display unit of the system, back to SI (forms convert here before validating). */
 export function fromDisplay(quantity: Quantity, displayValue: number, system: UnitSystem): number {
   return displayValue / systems[system][quantity].factor;
+}
+
+/** An SI value as text in the display unit of the system: "1,234 kg", "2,722 lb", "5.1 %g". */
+export function formatInUnits(quantity: Quantity, siValue: number, system: UnitSystem, significant = 4): string {
+  return `${formatNumber(toDisplay(quantity, siValue, system), significant)} ${unitLabel(quantity, system)}`;
 }
 
 export function describeUnitSystem(system: UnitSystem): string {

@@ -12,6 +12,7 @@ import { SiteRecordDetails, type RetunedVariantOptions } from '../../features/si
 import { UploadRecordPanel, type StructureChoice } from '../../features/site-records/components/upload-record-panel';
 import { modesQueryOptions, structuresQueryOptions } from '../../features/structures/api/structures';
 import { variantKeys, variantsQueryOptions } from '../../features/variants/api/variants';
+import { formatPercent, formatQuantity } from '../../lib/format';
 import { queryClient } from '../../lib/query-client';
 import { useCurrentUser } from '../session';
 import { useProjectContext } from './project-layout';
@@ -102,8 +103,8 @@ export function ProjectSiteRecordsRoute() {
                       <span className="font-semibold text-tide-800">{record.fileName}</span>
                       <span className="text-small text-ink-soft">
                         {structureName(record.structureId)} ·{' '}
-                        {record.analysis.frequencyHz === null ? 'no clear mode' : `${record.analysis.frequencyHz.toPrecision(4)} Hz`}
-                        {record.analysis.dampingRatio === null ? '' : `, ζ ${(record.analysis.dampingRatio * 100).toPrecision(3)} %`}
+                        {record.analysis.frequencyHz === null ? 'no clear mode' : formatQuantity(record.analysis.frequencyHz, 'Hz')}
+                        {record.analysis.dampingRatio === null ? '' : `, ζ ${formatPercent(record.analysis.dampingRatio)}`}
                       </span>
                     </button>
                     {open ? <SiteRecordDetails projectId={project.id} record={record} canAnalyse={canUpload} canDelete={canEdit} retunedVariant={retunedVariant} /> : null}

@@ -1,16 +1,13 @@
 import type { AsBuiltComparison, AsBuiltUnitComparison, RangeVerdict } from '../../../../shared/contracts/as-built';
 import { Table, Td, Th } from '../../../components/ui/table';
 import { useDisplayUnits } from '../../../lib/display-units';
-import { formatNumber, formatPercent } from '../../../lib/format';
+import { formatNumber, formatPercent, formatSignedNumber } from '../../../lib/format';
 import { usCustomaryDeviation, usCustomaryRange, usCustomaryText, type AsBuiltQuantity } from './as-built-units';
 
 type Deviation = AsBuiltUnitComparison['movingMassKg'];
 
-/** A signed deviation, with its unit and percentage: "+10.4 kg (+4.2 %)". */
-function signed(value: number, significant = 3): string {
-  const text = formatNumber(value, significant);
-  return value > 0 ? `+${text}` : text;
-}
+/** A signed deviation at three figures unless told ("+10.4"); with its unit and percentage it reads "+10.4 kg (+4.2 %)". */
+const signed = (value: number, significant = 3) => formatSignedNumber(value, significant);
 
 type RangeCheck = AsBuiltUnitComparison['massRange'];
 
@@ -119,7 +116,7 @@ export function AsBuiltComparisonView({ comparison, caption }: { comparison: AsB
             <Th>Moving mass{withUs ? ' (kg · lb)' : ''} · range at design springs</Th>
             <Th>Spring rate{withUs ? ' (N/m · lbf/in)' : ''} · range at design mass</Th>
             <Th>Tuned frequency, measured · tuning range</Th>
-            <Th>Frequency implied by k and m · tuning range</Th>
+            <Th>Frequency from spring rate and moving mass · tuning range</Th>
           </tr>
         </thead>
         <tbody>

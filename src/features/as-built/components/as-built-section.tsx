@@ -6,7 +6,7 @@ import { Loading } from '../../../components/ui/loading';
 import { Notice } from '../../../components/ui/notice';
 import { Panel } from '../../../components/ui/panel';
 import { QueryError } from '../../../components/ui/query-error';
-import { formatDateTime } from '../../../lib/format';
+import { formatDateTime, formatNumber } from '../../../lib/format';
 import { asBuiltQueryOptions } from '../api/as-built';
 import { AsBuiltComparisonView } from './as-built-comparison';
 import { AsBuiltForm } from './as-built-form';
@@ -43,7 +43,7 @@ export function AsBuiltSection({ projectId, signOff, canRecord }: { projectId: s
   return (
     <Panel
       title={title}
-      description={`What was built, unit by unit, against the hardware sheet: ${design.unitCount} unit${design.unitCount === 1 ? '' : 's'}, tuning range ${design.frequencyLowHz.toPrecision(3)}–${design.frequencyHighHz.toPrecision(3)} Hz.`}
+      description={`What was built, unit by unit, against the hardware sheet: ${design.unitCount} unit${design.unitCount === 1 ? '' : 's'}, tuning range ${formatNumber(design.frequencyLowHz, 3)}–${formatNumber(design.frequencyHighHz, 3)} Hz.`}
     >
       <div className="flex flex-col gap-6">
         <Caution>

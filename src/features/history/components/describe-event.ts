@@ -5,7 +5,7 @@
  * shown as stored, in SI.
  */
 import type { HistoryChange, HistoryEvent } from '../../../../shared/contracts/history';
-import { formatNumber } from '../../../lib/format';
+import { formatNumber, formatQuantity } from '../../../lib/format';
 
 const entityNouns: Record<string, string> = {
   structure: 'structure',
@@ -66,6 +66,9 @@ const unitSuffixes: [RegExp, string][] = [
   [/S$/, 's'],
 ];
 
+/** Names that read better than their words: ids name the thing they point at. */
+const fieldNameOverrides: Record<string, string> = { loadCaseIds: 'load cases', modeId: 'mode', criteriaId: 'comfort criteria', variantId: 'tuning variant', structureId: 'structure' };
+
 /** `deckAreaM2` → { words: "deck area", unit: "m²" }; `dampingRatio` → { words: "damping ratio" }. */
 export function fieldWords(field: string): { words: string; unit?: string } {
   let name = field;
@@ -77,8 +80,7 @@ export function fieldWords(field: string): { words: string; unit?: string } {
       break;
     }
   }
-  const overrides: Record<string, string> = { loadCaseIds: 'load cases', modeId: 'mode', criteriaId: 'comfort criteria', variantId: 'tuning variant', structureId: 'structure' };
-  const words = overrides[field] ?? name.replace(/([a-z0-9])([A-Z])/g, '$1 $2').toLowerCase();
+  const words = fieldNameOverrides[field] ?? name.replace(/([a-z0-9])([A-Z])/g, '$1 $2').toLowerCase();
   return { words, unit };
 }
 
@@ -95,7 +97,7 @@ function leaves(value: unknown, prefix: string, out: Map<string, unknown>): Map<
 
 export function formatValue(value: unknown, unit: string | undefined, names: Record<string, string>): string {
   if (value === null || value === undefined) return 'none';
-  if (typeof value === 'number') return unit ? `${formatNumber(value)} ${unit}` : formatNumber(value);
+  if (typeof value === 'number') return unit ? formatQuantity(value, unit) : formatNumber(value);
   if (typeof value === 'boolean') return value ? 'yes' : 'no';
   if (typeof value === 'string') {
     if (names[value]) return `“${names[value]}”`;

@@ -1,5 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
 import { formatHardwareValue } from '../../../../shared/compute/hardware-sheet';
+import { Caution } from '../../../components/ui/caution';
 import { Loading } from '../../../components/ui/loading';
 import { Panel } from '../../../components/ui/panel';
 import { QueryError } from '../../../components/ui/query-error';
@@ -73,7 +74,8 @@ export function HardwareSheetPanel({ projectId, signOffId }: { projectId: string
         ))}
       </Table>
       <div className="mt-4">
-        <SheetCaution text={sheet.data.caution} />
+        {/* The sheet's own caution, word for word as its CSV and PDF carry it. */}
+        <Caution wording={sheet.data.caution} />
       </div>
     </Panel>
   );
@@ -88,14 +90,4 @@ function sections(rows: HardwareSheetAnswer['rows']): [string, HardwareSheetAnsw
     else groups.push([row.section, [row]]);
   }
   return groups;
-}
-
-/** The sheet's own caution, word for word as its CSV and PDF carry it. */
-function SheetCaution({ text }: { text: string }) {
-  return (
-    <aside aria-label="Caution" className="rounded-plate border-l-4 border-ember-500 bg-ember-50 px-4 py-3 text-small text-ink">
-      <strong className="font-semibold text-ember-700">Caution. </strong>
-      {text}
-    </aside>
-  );
 }

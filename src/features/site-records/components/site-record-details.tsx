@@ -14,12 +14,12 @@ import { Notice } from '../../../components/ui/notice';
 import { QueryError } from '../../../components/ui/query-error';
 import { Table, Td, Th } from '../../../components/ui/table';
 import { describeError, issueMessage, issuesFor } from '../../../lib/api-client';
-import { formatDateTime, formatNumber, formatPercent, formatQuantity } from '../../../lib/format';
+import { formatDateTime, formatNumber, formatPercent, formatQuantity, formatSignedNumber } from '../../../lib/format';
 import { siteRecordTimeHistoryQueryOptions, useAnalyseSiteRecord, useCreateRetunedVariant, useDeleteSiteRecord, useRetune } from '../api/site-records';
 import { conditionLabels, methodLabels, tuningMethodLabels } from './labels';
 
 const orDash = (value: number | null | undefined, show: (v: number) => string) => (value === null || value === undefined ? '—' : show(value));
-const signedPercent = (value: number | null) => (value === null ? '—' : `${value > 0 ? '+' : ''}${formatNumber(value, 3)} %`);
+const signedPercent = (value: number | null) => (value === null ? '—' : `${formatSignedNumber(value, 3)} %`);
 const firstIssue = (error: unknown, field: string) => {
   const issue = issuesFor(error, field)[0];
   return issue ? issueMessage(issue) : undefined;

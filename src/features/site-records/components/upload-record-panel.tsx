@@ -5,6 +5,7 @@ import { Button } from '../../../components/ui/button';
 import { SelectField, TextAreaField, TextField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
 import { describeError, issueMessage, issuesFor } from '../../../lib/api-client';
+import { formatQuantity } from '../../../lib/format';
 import { useUploadSiteRecord, type UploadProgress } from '../api/site-records';
 import { conditionLabels, methodLabels } from './labels';
 
@@ -129,7 +130,7 @@ export function UploadRecordPanel({ projectId, structures, onUploaded }: { proje
           <option value="">None</option>
           {modes.map((m) => (
             <option key={m.id} value={m.id}>
-              {m.label} ({m.frequencyHz.toPrecision(3)} Hz)
+              {m.label} ({formatQuantity(m.frequencyHz, 'Hz', 3)})
             </option>
           ))}
         </SelectField>
