@@ -15,8 +15,18 @@ import type { Mailer, OutgoingMail } from './mailer';
 export const outboxMaxAttempts = 10;
 const firstRetryS = 30;
 const longestRetryS = 3600;
-/** How long a claimed mail stays away from other relays while it is being sent. */
-const claimS = 120;
+/** Room left after the slowest round, so that a claim outlives its round with time to mark the last mail. */
+const claimMarginS = 60;
+/** Mails claimed in one round unless told otherwise. */
+const defaultRoundSize = 50;
+
+/**
+ * How long the mails claimed in one round stay away from other relays: the slowest round (each of its mails sent just
+ * within the time limit) and a margin, so that a second relay never sends again a mail this round still holds.
+ */
+export function claimSecondsFor(roundSize: number, sendTimeoutMs: number): number {
+  return Math.ceil((roundSize * sendTimeoutMs) / 1000) + claimMarginS;
+}
 
 /** Seconds before the next attempt after `attempts` failed ones. */
 export function retryDelayS(attempts: number): number {
@@ -72,11 +82,13 @@ export async function drainOutbox(
   if (options.ids && !options.ids.length) return 0;
   const due = options.dueOrNot ? sql`true` : sql`next_attempt_at <= now()`;
   const only = options.ids ? sql`and id in (${sql.join(options.ids.map((id) => sql`${id}::uuid`), sql`, `)})` : sql``;
+  const roundSize = options.limit ?? defaultRoundSize;
+  const sendTimeoutMs = options.sendTimeoutMs ?? defaultSendTimeoutMs;
   const claimed = await db.execute<ClaimedMail>(sql`
-    update outbox set next_attempt_at = now() + make_interval(secs => ${claimS})
+    update outbox set next_attempt_at = now() + make_interval(secs => ${claimSecondsFor(roundSize, sendTimeoutMs)})
     where id in (
       select id from outbox where state = 'pending' and ${due} ${only}
-      order by created_at limit ${options.limit ?? 50} for update skip locked
+      order by created_at limit ${roundSize} for update skip locked
     )
     returning id, to_address, subject, text_body, html_body, attempts`);
   let sent = 0;
@@ -88,7 +100,7 @@ export async function drainOutbox(
     }
     try {
       const outgoing = { to: mail.to_address, subject: mail.subject, text: mail.text_body, ...(mail.html_body ? { html: mail.html_body } : {}) };
-      await sendWithin(mailer, outgoing, options.sendTimeoutMs ?? defaultSendTimeoutMs);
+      await sendWithin(mailer, outgoing, sendTimeoutMs);
       await db.execute(sql`update outbox set state = 'sent', attempts = attempts + 1, sent_at = now(), last_error = null where id = ${mail.id}`);
       sent++;
     } catch (error) {
