@@ -8,6 +8,7 @@
  */
 import type { SignOffSnapshot } from '../contracts/sign-offs';
 import type { HardwareSheetEntry } from '../contracts/compute-design';
+import { standardGravityMPerS2 } from '../engine/loads/floor-walking';
 
 export const HARDWARE_SHEET_CAUTION =
   'These results support, and never replace, the judgement of a qualified engineer, who remains responsible for the design. ' +
@@ -114,7 +115,7 @@ export function hardwareDesignRows(design: HardwareDesign): HardwareSheetRow[] {
   add('per unit', 'Spring rate per unit', entry.perUnit.springRateNPerM, 'N/m', 'k = m (2π f_a)², per unit');
   add('per unit', 'Spring rate per spring', entry.perUnit.springRatePerSpringNPerM, 'N/m', `per unit / ${entry.springsPerUnit} springs in parallel`);
   add('per unit', 'Damper coefficient per unit', entry.perUnit.damperCoefficientNsPerM, 'N·s/m', 'c = 2 ζ_a m ω_a, per unit');
-  add('per unit', 'Static deflection under the moving mass', mm(entry.staticDeflectionM), 'mm', 'g / ω_a², g = 9.80665 m/s²');
+  add('per unit', 'Static deflection under the moving mass', mm(entry.staticDeflectionM), 'mm', `g / ω_a², g = ${standardGravityMPerS2} m/s²`);
   add('stroke', 'Largest stroke amplitude', mm(entry.maximumStrokeM), 'mm', `load case ${loadCaseName}`);
   add('stroke', 'Stroke margin', entry.strokeMarginFactor, '', 'design stroke = margin × largest stroke');
   add('stroke', 'Design stroke', mm(entry.designStrokeM), 'mm');
