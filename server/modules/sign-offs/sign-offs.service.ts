@@ -15,7 +15,7 @@ import type { ApproveSignOffInput, ReturnSignOffInput, SignOff, SignOffSnapshot,
 import { requireProjectScope } from '../structures/structures.service';
 import type { ProjectScope } from '../structures/structures.repository';
 import * as variantsRepository from '../variants/variants.repository';
-import { getVariant } from '../variants/variants.service';
+import { getVariant, noResultReason } from '../variants/variants.service';
 import { toSavedMode } from '../modes/modes.service';
 import { toSavedLoadCase } from '../load-cases/load-cases.service';
 import { toComfortCriteria } from '../comfort-criteria/comfort-criteria.service';
@@ -72,7 +72,7 @@ export async function getSignOff(db: Database, user: CurrentUser, projectId: str
 async function snapshotOf(ctx: AppContext, user: CurrentUser, scope: ProjectScope, variantId: string): Promise<SignOffSnapshot> {
   const variant = await getVariant(ctx.db, ctx.enginePool, user, scope.projectId, variantId);
   if (!variant.result) {
-    const why = variant.resultError ? `the engine refuses its current inputs (${variant.resultError.message})` : 'it has no computed result';
+    const why = noResultReason(variant);
     throw new HttpError(409, 'variant_without_result', `The tuning variant cannot be submitted: ${why}; change it so that it computes, then submit`, [
       { path: 'variantId', message: `has no result: ${why}` },
     ]);

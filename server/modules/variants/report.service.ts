@@ -18,7 +18,7 @@ import { requireProjectScope } from '../structures/structures.service';
 import { findLumpedModel } from '../lumped-models/lumped-models.repository';
 import { toSavedMode } from '../modes/modes.service';
 import * as repository from './variants.repository';
-import { getVariant, variantCurves } from './variants.service';
+import { getVariant, noResultReason, variantCurvesOfEveryLoadCase } from './variants.service';
 
 export interface VariantReportData {
   projectName: string;
@@ -45,7 +45,7 @@ const inputsMissing = () => new HttpError(409, 'variant_inputs_missing', 'A mode
 export async function getVariantReport(db: Database, engine: EnginePool, user: CurrentUser, projectId: string, variantId: string): Promise<VariantReportData> {
   const variant = await getVariant(db, engine, user, projectId, variantId);
   if (!variant.result) {
-    const why = variant.resultError ? `the engine refuses its current inputs (${variant.resultError.message})` : 'it has no computed result';
+    const why = noResultReason(variant);
     throw new HttpError(409, 'variant_without_result', `The design report needs a computed result, and this tuning variant has none: ${why}; change it so that it computes`, [
       { path: 'variantId', message: `has no result: ${why}` },
     ]);
@@ -71,9 +71,8 @@ export async function getVariantReport(db: Database, engine: EnginePool, user: C
     }
   }
 
-  // The page's own plot data, one load case after another (each runs on the engine's worker pool).
-  const curves: VariantCurves[] = [];
-  for (const loadCase of loadCases) curves.push(await variantCurves(db, engine, user, projectId, variantId, loadCase.id));
+  // The page's own plot data (the curves route's), every load case from the variant's inputs read once.
+  const curves = await variantCurvesOfEveryLoadCase(db, engine, user, projectId, variantId);
   // The curves are computed from the inputs as they are now: a change made meanwhile would mix two designs. (An
   // approved design computed by an earlier engine keeps its stored result; its plots are then the present engine's,
   // and the report says so.)

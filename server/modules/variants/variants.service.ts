@@ -274,10 +274,30 @@ export async function variantCurves(db: Database, engine: EnginePool, user: Curr
   const index = record.loadCaseIds.indexOf(loadCaseId);
   if (index < 0) throw invalidField('loadCaseId', 'is not one of this variant\'s load cases');
   const input = await computeInputOf(db, scope, { ...record.row, loadCaseIds: record.loadCaseIds });
+  return curvesOf(engine, input, index);
+}
+
+/** The plot data of every load case of the variant, in its order, from its inputs read once (the design report's). */
+export async function variantCurvesOfEveryLoadCase(db: Database, engine: EnginePool, user: CurrentUser, projectId: string, id: string): Promise<VariantCurves[]> {
+  const scope = await requireProjectScope(db, user, projectId);
+  const record = await requireVariant(db, scope, id);
+  const input = await computeInputOf(db, scope, { ...record.row, loadCaseIds: record.loadCaseIds });
+  const curves: VariantCurves[] = [];
+  // One load case after another: each runs on the engine's worker pool.
+  for (let index = 0; index < record.loadCaseIds.length; index++) curves.push(await curvesOf(engine, input, index));
+  return curves;
+}
+
+async function curvesOf(engine: EnginePool, input: Awaited<ReturnType<typeof computeInputOf>>, loadCaseIndex: number): Promise<VariantCurves> {
   try {
-    return await computeVariant(engine, { kind: 'curves', input, loadCaseIndex: index });
+    return await computeVariant(engine, { kind: 'curves', input, loadCaseIndex });
   } catch (error) {
     if (error instanceof ComputeInputError) throw computeRefusal(error);
     throw error;
   }
+}
+
+/** Why a variant has no result, in words for a 409 (the engine's refusal of its inputs, or none computed yet). */
+export function noResultReason(variant: Variant): string {
+  return variant.resultError ? `the engine refuses its current inputs (${variant.resultError.message})` : 'it has no computed result';
 }
